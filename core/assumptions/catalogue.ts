@@ -1,0 +1,128 @@
+/**
+ * Published assumptions: values that a guideline, a label or a local protocol
+ * may set differently. Each has a default with its source, named alternatives,
+ * and a plausible range for an override. The user may override any of them in
+ * a case; the override (value, reason, who, when) then shows in every
+ * derivation that used it.
+ */
+export interface AssumptionAlternative {
+  readonly value: number;
+  readonly label: string;
+  readonly sourceIds: readonly string[];
+}
+
+export interface Assumption {
+  readonly id: string;
+  readonly label: string;
+  readonly unit: string;
+  readonly value: number;
+  readonly sourceIds: readonly string[];
+  readonly alternatives: readonly AssumptionAlternative[];
+  readonly min: number;
+  readonly max: number;
+  readonly note?: string;
+}
+
+export const assumptionCatalogue = [
+  {
+    id: 'iron-per-ml-red-cells',
+    label: 'iron per mL of pure red cells',
+    unit: 'mg/mL',
+    // 1.08 mg/mL: Cohen, Glimm & Porter, Blood 2008;111:583 (from memory which source uses which value;
+    // references.md §1). Red-cell haemoglobin about 31 g/dL × 3.466 mg Fe/g Hb ≈ 1.07–1.08.
+    value: 1.08,
+    sourceIds: ['cohen-2008', 'iron-per-hb-derived'],
+    alternatives: [
+      // 1.16 mg/mL: thalassaemia guideline literature (red-cell Hb about 33–34 g/dL); memory.
+      { value: 1.16, label: 'thalassaemia guideline value (about 33–34 g/dL red-cell haemoglobin)', sourceIds: ['tif-guideline-iron-per-ml'] },
+    ],
+    min: 0.9,
+    max: 1.25,
+    note: 'Or derive it from the red-cell MCHC with the calculator iron-per-ml-from-mchc.',
+  },
+  {
+    id: 'liver-dry-to-wet-ratio',
+    label: 'dry-to-wet liver weight factor (mg/g dry ÷ factor = mg/g wet)',
+    unit: '1',
+    // Dry ≈ 3.33 × wet, i.e. about 70 % water: Fischer & Harmatz, Hematology ASH Educ Program 2009:215 (secondary).
+    value: 3.33,
+    sourceIds: ['fischer-harmatz-2009'],
+    alternatives: [],
+    min: 2.5,
+    max: 4.5,
+  },
+  {
+    id: 'deferasirox-film-coated-factor',
+    label: 'deferasirox film-coated dose as a fraction of the dispersible-tablet dose',
+    unit: '1',
+    // 0.7: deferasirox labels (film-coated 14 mg/kg/day ≈ dispersible 20 mg/kg/day); secondary.
+    value: 0.7,
+    sourceIds: ['deferasirox-label'],
+    alternatives: [],
+    min: 0.6,
+    max: 0.8,
+  },
+  {
+    id: 'efficiency-deferoxamine',
+    label: 'chelation efficiency of deferoxamine (share of a dose excreted as iron complex)',
+    unit: '1',
+    // about 13 %: Porter's reviews and guideline chapters; from memory (references.md §3).
+    value: 0.13,
+    sourceIds: ['porter-efficiency-memory'],
+    alternatives: [],
+    min: 0.01,
+    max: 0.5,
+  },
+  {
+    id: 'efficiency-deferiprone',
+    label: 'chelation efficiency of deferiprone (share of a dose excreted as iron complex)',
+    unit: '1',
+    // about 7 %: Porter's reviews and guideline chapters; from memory (references.md §3).
+    value: 0.07,
+    sourceIds: ['porter-efficiency-memory'],
+    alternatives: [],
+    min: 0.01,
+    max: 0.5,
+  },
+  {
+    id: 'efficiency-deferasirox',
+    label: 'chelation efficiency of deferasirox, applied to the dispersible-equivalent dose',
+    unit: '1',
+    // about 27 % of the dispersible-tablet dose: Porter's reviews; from memory (references.md §3).
+    value: 0.27,
+    sourceIds: ['porter-efficiency-memory'],
+    alternatives: [],
+    min: 0.01,
+    max: 0.6,
+  },
+  {
+    id: 'basal-iron-loss-mg-per-day',
+    label: 'basal iron loss',
+    unit: 'mg/d',
+    // About 1 mg/day, not strongly related to body weight: Hunt et al., Am J Clin Nutr 2009;
+    // Institute of Medicine DRI 2001 (references.md §1, confirmed).
+    value: 1.0,
+    sourceIds: ['hunt-2009'],
+    alternatives: [
+      { value: 1.58, label: 'menstruating women (median)', sourceIds: ['hunt-2009'] },
+      { value: 0.99, label: 'postmenopausal women (median)', sourceIds: ['hunt-2009'] },
+    ],
+    min: 0,
+    max: 3,
+  },
+] as const satisfies readonly Assumption[];
+
+export type AssumptionId = (typeof assumptionCatalogue)[number]['id'];
+
+export function findAssumption(id: string): Assumption | undefined {
+  return assumptionCatalogue.find((it) => it.id === id);
+}
+
+/** A user's override of an assumption, kept with the case. */
+export interface AssumptionOverride {
+  readonly value: number;
+  readonly reason: string;
+  readonly by?: string;
+  readonly at?: string;
+}
+export type AssumptionOverrides = Readonly<Record<string, AssumptionOverride>>;

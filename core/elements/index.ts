@@ -1,0 +1,2 @@
+export * from './atomicWeights';
+export * from './molarMass';

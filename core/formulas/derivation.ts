@@ -1,0 +1,54 @@
+/**
+ * A derivation says how a number came to be: the formula, its inputs with
+ * units and origins, the sources, and the derivations of inputs that were
+ * themselves computed. Formulas build it while they compute (core/formulas/run),
+ * never in a second pass.
+ */
+
+export type Origin =
+  /** Typed by the user; `ref` points at the case entry, e.g. 'transfusions[3] 2026-01-04'. */
+  | { readonly kind: 'entered'; readonly ref?: string }
+  /** The formula's own fixed default. */
+  | { readonly kind: 'default' }
+  /** A published assumption, at its default or overridden by the user. */
+  | {
+      readonly kind: 'assumption';
+      readonly assumptionId: string;
+      readonly overridden: boolean;
+      readonly reason?: string;
+      readonly by?: string;
+      readonly at?: string;
+    }
+  /** The output of another formula. */
+  | { readonly kind: 'computed'; readonly derivation: Derivation };
+
+export interface DerivedValue {
+  readonly name: string;
+  readonly label: string;
+  readonly value: number | string;
+  readonly unit: string;
+}
+
+export interface DerivedInput extends DerivedValue {
+  readonly origin: Origin;
+}
+
+export interface Derivation {
+  readonly formulaId: string;
+  readonly title: string;
+  readonly expression: string;
+  readonly inputs: readonly DerivedInput[];
+  readonly outputs: readonly DerivedValue[];
+  readonly sourceIds: readonly string[];
+}
+
+/** Every formula id used in a derivation tree, depth first, each once. */
+export function formulaIdsIn(derivation: Derivation): string[] {
+  const seen = new Set<string>();
+  const walk = (node: Derivation): void => {
+    seen.add(node.formulaId);
+    for (const input of node.inputs) if (input.origin.kind === 'computed') walk(input.origin.derivation);
+  };
+  walk(derivation);
+  return [...seen];
+}

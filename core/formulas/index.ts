@@ -1,0 +1,4 @@
+export * from './types';
+export * from './derivation';
+export * from './validate';
+export * from './run';

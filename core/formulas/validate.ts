@@ -1,0 +1,151 @@
+import { findAssumption, type AssumptionOverrides } from '../assumptions';
+import { issue, type Issue } from '../result';
+import type { Origin } from './derivation';
+import type { ChoiceInputSpec, InputSpecs, NumberInputSpec } from './types';
+
+export interface ValidatedInputs {
+  readonly values: Readonly<Record<string, number | string | undefined>>;
+  readonly origins: Readonly<Record<string, Origin>>;
+}
+
+/** "0.40–0.85 mL" style range text used in every message. */
+export function describeRange(spec: NumberInputSpec): string {
+  const unit = spec.unit === '1' ? '' : ` ${spec.unit}`;
+  return `${spec.min}–${spec.max}${unit}`;
+}
+
+function withUnit(value: number, unit: string): string {
+  return unit === '1' ? `${value}` : `${value} ${unit}`;
+}
+
+/**
+ * Check one number against its spec. Returns the issues (empty when valid).
+ * A fraction typed as a percentage (0.6 entered as 60) gets advice to enter the fraction.
+ */
+export function checkNumber(name: string, value: number, spec: NumberInputSpec): Issue[] {
+  if (!Number.isFinite(value)) {
+    return [issue('not_a_number', [name], `${capitalise(spec.label)}: "${value}" is not a number; expected ${describeRange(spec)}.`)];
+  }
+  if (spec.integer && !Number.isInteger(value)) {
+    return [issue('not_an_integer', [name], `${capitalise(spec.label)} ${value} must be a whole number in ${describeRange(spec)}.`)];
+  }
+  if (value < spec.min || value > spec.max) {
+    let advice = '';
+    if (spec.unit === '1' && spec.max <= 1 && value > 1 && value <= 100) {
+      advice = `; enter it as a fraction (${roundForAdvice(value / 100)})`;
+    }
+    return [
+      issue(
+        'out_of_range',
+        [name],
+        `${capitalise(spec.label)} ${withUnit(value, spec.unit)} is outside the plausible range ${describeRange(spec)}${advice}.`,
+      ),
+    ];
+  }
+  return [];
+}
+
+function roundForAdvice(value: number): number {
+  return Math.round(value * 10000) / 10000;
+}
+
+export function capitalise(text: string): string {
+  return text.length === 0 ? text : text[0]!.toUpperCase() + text.slice(1);
+}
+
+function checkChoice(name: string, raw: unknown, spec: ChoiceInputSpec): Issue[] {
+  if (typeof raw !== 'string' || !spec.choices.includes(raw)) {
+    return [
+      issue('unknown_choice', [name], `${capitalise(spec.label)} "${String(raw)}" is not one of: ${spec.choices.join(', ')}.`),
+    ];
+  }
+  return [];
+}
+
+function toNumber(raw: unknown): number {
+  if (typeof raw === 'number') return raw;
+  if (typeof raw === 'string' && raw.trim() !== '') return Number(raw.trim());
+  return Number.NaN;
+}
+
+/**
+ * Validate raw inputs (numbers, or strings from a command line or a form)
+ * against a formula's input specs. Missing inputs take the spec's default or
+ * its published assumption (overridden if the caller passes an override);
+ * every value gets an origin for the derivation.
+ *
+ * @param specs - the formula's inputs
+ * @param raw - values by input name; strings are parsed as numbers for number inputs
+ * @param given - origins of supplied values (default: entered)
+ * @param overrides - assumption overrides from the case
+ * @returns values and origins, or the issues (every invalid input at once)
+ */
+export function validateInputs(
+  specs: InputSpecs,
+  raw: Readonly<Record<string, unknown>>,
+  given: Readonly<Record<string, Origin>> = {},
+  overrides: AssumptionOverrides = {},
+): { ok: true; value: ValidatedInputs } | { ok: false; issues: Issue[] } {
+  const values: Record<string, number | string | undefined> = {};
+  const origins: Record<string, Origin> = {};
+  const issues: Issue[] = [];
+  for (const [name, spec] of Object.entries(specs)) {
+    const supplied = raw[name];
+    const present = supplied !== undefined && supplied !== null && supplied !== '';
+    if (spec.kind === 'choice') {
+      if (present) {
+        const found = checkChoice(name, supplied, spec);
+        issues.push(...found);
+        values[name] = supplied as string;
+        origins[name] = given[name] ?? { kind: 'entered' };
+      } else if (spec.default !== undefined) {
+        values[name] = spec.default;
+        origins[name] = { kind: 'default' };
+      } else if (!spec.optional) {
+        issues.push(issue('required', [name], `${capitalise(spec.label)} is required: one of ${spec.choices.join(', ')}.`));
+      }
+      continue;
+    }
+    if (present) {
+      const value = toNumber(supplied);
+      if (Number.isNaN(value)) {
+        issues.push(
+          issue('not_a_number', [name], `${capitalise(spec.label)} "${String(supplied)}" is not a number; expected ${describeRange(spec)}.`),
+        );
+        continue;
+      }
+      issues.push(...checkNumber(name, value, spec));
+      values[name] = value;
+      origins[name] = given[name] ?? { kind: 'entered' };
+    } else if (spec.assumption !== undefined) {
+      const assumption = findAssumption(spec.assumption);
+      if (!assumption) throw new Error(`Formula input ${name} names unknown assumption ${spec.assumption}`);
+      const override = overrides[spec.assumption];
+      if (override) {
+        issues.push(...checkNumber(name, override.value, { ...spec, min: assumption.min, max: assumption.max }));
+        values[name] = override.value;
+        origins[name] = {
+          kind: 'assumption',
+          assumptionId: assumption.id,
+          overridden: true,
+          reason: override.reason,
+          ...(override.by !== undefined ? { by: override.by } : {}),
+          ...(override.at !== undefined ? { at: override.at } : {}),
+        };
+      } else {
+        values[name] = assumption.value;
+        origins[name] = { kind: 'assumption', assumptionId: assumption.id, overridden: false };
+      }
+    } else if (spec.default !== undefined) {
+      values[name] = spec.default;
+      origins[name] = { kind: 'default' };
+    } else if (!spec.optional) {
+      issues.push(issue('required', [name], `${capitalise(spec.label)} is required (${describeRange(spec)}).`));
+    }
+  }
+  for (const name of Object.keys(raw)) {
+    if (!(name in specs)) issues.push(issue('unknown_option', [name], `"${name}" is not an input of this calculation.`));
+  }
+  const errors = issues.filter((it) => it.severity === 'error');
+  return errors.length > 0 ? { ok: false, issues } : { ok: true, value: { values, origins } };
+}

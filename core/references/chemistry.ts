@@ -1,0 +1,4 @@
+import type { Source } from './source';
+
+/** Sources for chemistry (references.md). */
+export const chemistrySources = [] as const satisfies readonly Source[];

@@ -1,0 +1,27 @@
+import { chelatorsSources } from './chelators';
+import { chemistrySources } from './chemistry';
+import { ironSources } from './iron';
+import { patientSources } from './patient';
+import type { Source } from './source';
+import { standardSources } from './standards';
+
+export * from './source';
+
+/** Every source the core cites. Each area owns its list; add a source there. */
+export const sourceCatalogue: readonly Source[] = [
+  ...standardSources,
+  ...ironSources,
+  ...chelatorsSources,
+  ...patientSources,
+  ...chemistrySources,
+];
+
+const byId = new Map<string, Source>();
+for (const source of sourceCatalogue) {
+  if (byId.has(source.id)) throw new Error(`Duplicate source id ${source.id}`);
+  byId.set(source.id, source);
+}
+
+export function findSource(id: string): Source | undefined {
+  return byId.get(id);
+}

@@ -1,0 +1,7 @@
+export * from './quantity';
+export * from './mass';
+export * from './volume';
+export * from './time';
+export * from './concentration';
+export * from './liverIron';
+export * from './haematocrit';

@@ -1,0 +1,15 @@
+import { fileURLToPath } from 'node:url';
+import { defineConfig } from 'vitest/config';
+
+const root = fileURLToPath(new URL('..', import.meta.url));
+
+export default defineConfig({
+  root,
+  test: {
+    include: ['tests/**/*.test.ts', 'tests/**/*.test.tsx'],
+    exclude: ['node_modules/**', 'dist/**', 'tests/browser/**'],
+    environment: 'node',
+    // Two cores on every machine here: keep one worker per core.
+    maxWorkers: 2,
+  },
+});
