@@ -1,0 +1,45 @@
+/**
+ * Command-line arguments: positional words, `--flag value` / `--flag=value`
+ * options, and boolean switches. Switches are declared by the caller so that
+ * `--json` never swallows the next word.
+ */
+export interface ParsedArgs {
+  readonly positionals: readonly string[];
+  readonly options: Readonly<Record<string, string>>;
+  readonly switches: ReadonlySet<string>;
+  /** Options given without a value (e.g. a trailing `--volume-ml`). */
+  readonly missingValues: readonly string[];
+}
+
+export function parseArgs(argv: readonly string[], switchNames: readonly string[]): ParsedArgs {
+  const positionals: string[] = [];
+  const options: Record<string, string> = {};
+  const switches = new Set<string>();
+  const missingValues: string[] = [];
+  for (let index = 0; index < argv.length; index += 1) {
+    const word = argv[index]!;
+    if (!word.startsWith('--') || word === '--') {
+      positionals.push(word);
+      continue;
+    }
+    const equals = word.indexOf('=');
+    const flag = equals >= 0 ? word.slice(0, equals) : word;
+    if (switchNames.includes(flag)) {
+      switches.add(flag);
+      continue;
+    }
+    if (equals >= 0) {
+      options[flag] = word.slice(equals + 1);
+      continue;
+    }
+    const next = argv[index + 1];
+    // A negative number is a value, not a flag.
+    if (next === undefined || (next.startsWith('--') && !/^--?\d/.test(next))) {
+      missingValues.push(flag);
+      continue;
+    }
+    options[flag] = next;
+    index += 1;
+  }
+  return { positionals, options, switches, missingValues };
+}

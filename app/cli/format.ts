@@ -1,0 +1,32 @@
+/**
+ * Format a number for a reader: fixed decimals for ordinary magnitudes,
+ * three significant figures for small ones (so 0.0123 does not print as 0.01),
+ * and scientific notation for very large or very small ones.
+ *
+ * @example formatNumber(181.44, 1) === '181.4'
+ * @example formatNumber(0.01234, 2) === '0.0123'
+ */
+export function formatNumber(value: number, decimals = 2): string {
+  if (value === 0) return '0';
+  const magnitude = Math.abs(value);
+  if (magnitude >= 1e7 || magnitude < 1e-4) return value.toExponential(3);
+  if (magnitude < 10 ** -decimals * 100) return String(Number(value.toPrecision(3)));
+  return value.toFixed(decimals);
+}
+
+/**
+ * A number as a person would type it back: no padding zeros, no binary noise.
+ * @example formatPlain(0.1 + 0.2) === '0.3'
+ */
+export function formatPlain(value: number): string {
+  return String(Number(value.toPrecision(10)));
+}
+
+/** "280 mL", "0.6" for a fraction, "positive" for text. */
+export function withUnit(value: number | string, unit: string, decimals?: number): string {
+  const text = typeof value === 'number' ? formatNumber(value, decimals) : value;
+  return unit === '' || unit === '1' ? text : `${text} ${unit}`;
+}
+
+export const decisionSupportCaution =
+  'Decision support only: for review by the prescriber; follow local protocols and verify every value.';

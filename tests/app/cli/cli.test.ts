@@ -1,0 +1,132 @@
+import { spawnSync } from 'node:child_process';
+import { mkdtempSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { parseArgs } from '../../../app/cli/args';
+import { runCli } from '../../../app/cli/main';
+import { formulaCatalogue } from '../../../core/formulas/catalogue';
+import { describeFormula, flagForInput } from '../../../core/formulas/describe';
+// @ts-expect-error plain ESM build script without type declarations
+import { buildCli } from '../../../app/build/build-cli.mjs';
+
+function cli(...argv: string[]) {
+  const out: string[] = [];
+  const err: string[] = [];
+  const code = runCli(argv, { out: (text) => out.push(text), err: (text) => err.push(text) });
+  return { code, out: out.join('\n'), err: err.join('\n') };
+}
+
+describe('argument parsing', () => {
+  it('reads --flag value, --flag=value, switches and negative numbers', () => {
+    const parsed = parseArgs(['x', '--a', '1', '--b=2', '--json', '--c', '-3', '--d'], ['--json']);
+    expect(parsed.positionals).toEqual(['x']);
+    expect(parsed.options).toEqual({ '--a': '1', '--b': '2', '--c': '-3' });
+    expect([...parsed.switches]).toEqual(['--json']);
+    expect(parsed.missingValues).toEqual(['--d']);
+  });
+
+  it('turns input names into kebab-case flags', () => {
+    expect(flagForInput('volumeMl')).toBe('--volume-ml');
+    expect(flagForInput('ironPerMlRedCellsMg')).toBe('--iron-per-ml-red-cells-mg');
+    expect(flagForInput('r2StarPerS')).toBe('--r2-star-per-s');
+  });
+});
+
+describe('calc --list', () => {
+  it('lists every calculator of the catalogue, generated from the same definitions', () => {
+    const { code, out } = cli('calc', '--list', '--json');
+    expect(code).toBe(0);
+    const listed = JSON.parse(out) as { id: string; inputs: { flag: string }[] }[];
+    expect(listed.map((it) => it.id)).toEqual(formulaCatalogue.map((it) => it.id));
+    for (const formula of formulaCatalogue) {
+      const entry = listed.find((it) => it.id === formula.id)!;
+      expect(entry.inputs.map((it) => it.flag)).toEqual(Object.keys(formula.inputs).map(flagForInput));
+    }
+  });
+
+  it('prints a readable list naming units, ranges and sources', () => {
+    const { code, out } = cli('calc', '--list');
+    expect(code).toBe(0);
+    for (const formula of formulaCatalogue) expect(out).toContain(`${formula.id} — ${formula.title}`);
+    expect(out).toContain('--unit-haematocrit <fraction, 0.4–0.85>');
+    expect(out).toContain('source: Cohen AR, Glimm E, Porter JB');
+  });
+});
+
+describe('calc <calculator>', () => {
+  it('prints a readable line with units, inputs and their origins (280 mL × 0.60 × 1.08 = 181.44 mg)', () => {
+    const { code, out } = cli('calc', 'transfusion-iron', '--volume-ml', '280', '--unit-haematocrit', '0.6');
+    expect(code).toBe(0);
+    expect(out.split('\n')[0]).toBe('transfusion-iron: iron 181.4 mg');
+    expect(out).toContain('iron per mL of pure red cells 1.08 mg/mL (assumption iron-per-ml-red-cells, published default)');
+    expect(out).toContain('for review by the prescriber');
+  });
+
+  it('gives machine-readable JSON with units beside each value', () => {
+    const { code, out } = cli('calc', 'transfusion-iron', '--volume-ml=280', '--unit-haematocrit=0.6', '--json');
+    expect(code).toBe(0);
+    const parsed = JSON.parse(out);
+    expect(parsed.outputs.ironMg.unit).toBe('mg');
+    expect(parsed.outputs.ironMg.value).toBeCloseTo(181.44, 9);
+    expect(parsed.derivation.formulaId).toBe('transfusion-iron');
+  });
+
+  it('refuses an unknown calculator, an unknown flag and a missing value, printing no number', () => {
+    const unknown = cli('calc', 'iron-magic');
+    expect(unknown.code).toBe(2);
+    expect(unknown.err).toContain('Unknown calculator "iron-magic"');
+    const badFlag = cli('calc', 'transfusion-iron', '--volume', '280');
+    expect(badFlag.code).toBe(1);
+    expect(badFlag.err).toContain('--volume: not an input of transfusion-iron');
+    expect(badFlag.out).toBe('');
+    const missing = cli('calc', 'transfusion-iron', '--volume-ml');
+    expect(missing.code).toBe(1);
+    expect(missing.err).toContain('--volume-ml: a value is missing');
+  });
+
+  // For every calculator in the catalogue: a value far outside the plausible range of any
+  // number input is refused with a message that names the flag, the value and the range,
+  // and nothing is printed on stdout.
+  for (const formula of formulaCatalogue) {
+    for (const input of describeFormula(formula).inputs.filter((it) => it.kind === 'number')) {
+      it(`${formula.id} refuses ${input.flag} above its range`, () => {
+        const tooHigh = input.max! * 10 + 1000;
+        const { code, out, err } = cli('calc', formula.id, input.flag, String(tooHigh));
+        expect(code).toBe(1);
+        expect(out).toBe('');
+        expect(err).toContain(`${input.flag}: `);
+        expect(err).toContain(String(tooHigh));
+        expect(err).toContain(`${input.min}–${input.max}`);
+      });
+    }
+    for (const input of describeFormula(formula).inputs.filter((it) => it.kind === 'choice')) {
+      it(`${formula.id} refuses an unknown choice for ${input.flag}`, () => {
+        const { code, out, err } = cli('calc', formula.id, input.flag, 'no-such-choice');
+        expect(code).toBe(1);
+        expect(out).toBe('');
+        expect(err).toContain(`${input.flag}: `);
+        expect(err).toContain('"no-such-choice" is not one of');
+      });
+    }
+  }
+});
+
+describe('the built command line', () => {
+  it('runs from the single-file bundle that npm install builds', async () => {
+    const outfile = join(mkdtempSync(join(tmpdir(), 'cl-cli-')), 'cli.cjs');
+    await buildCli(outfile);
+    const run = spawnSync(process.execPath, [outfile, 'calc', 'transfusion-iron', '--volume-ml', '300', '--unit-haematocrit', '0.65'], {
+      encoding: 'utf8',
+    });
+    expect(run.status).toBe(0);
+    // 300 × 0.65 × 1.08 = 210.6 mg, inside the 200–250 mg per unit of Hoffbrand 2012.
+    expect(run.stdout.split('\n')[0]).toBe('transfusion-iron: iron 210.6 mg');
+    const bad = spawnSync(process.execPath, [outfile, 'calc', 'transfusion-iron', '--volume-ml', '-5', '--unit-haematocrit', '0.6'], {
+      encoding: 'utf8',
+    });
+    expect(bad.status).toBe(1);
+    expect(bad.stdout).toBe('');
+    expect(bad.stderr).toContain('--volume-ml: Volume transfused -5 mL is outside the plausible range 1–10000 mL.');
+  });
+});
