@@ -1,0 +1,51 @@
+import { describe, expect, it } from 'vitest';
+import {
+  addDaysIso,
+  addMonthsIso,
+  daysBetween,
+  isIsoDate,
+  monthEndIso,
+  monthStartIso,
+} from '../../../core/dates';
+
+// Outside reference: the Gregorian calendar rules (ISO 8601; leap years divisible by 4,
+// except centuries not divisible by 400), checked against JavaScript's own Date.UTC.
+describe('ISO calendar dates', () => {
+  it('accepts real dates and refuses impossible ones', () => {
+    expect(isIsoDate('2024-02-29')).toBe(true);
+    expect(isIsoDate('2000-02-29')).toBe(true);
+    expect(isIsoDate('1900-02-29')).toBe(false);
+    expect(isIsoDate('2025-02-29')).toBe(false);
+    expect(isIsoDate('2026-13-01')).toBe(false);
+    expect(isIsoDate('2026-1-01')).toBe(false);
+    expect(isIsoDate('01/02/2026')).toBe(false);
+  });
+
+  it('counts days as Date.UTC does, across a leap day and a year end', () => {
+    const utcDays = (a: [number, number, number], b: [number, number, number]) =>
+      (Date.UTC(...b) - Date.UTC(...a)) / 86_400_000;
+    expect(daysBetween('2024-02-28', '2024-03-01')).toBe(utcDays([2024, 1, 28], [2024, 2, 1]));
+    expect(daysBetween('2025-12-20', '2026-01-10')).toBe(21);
+    expect(daysBetween('2026-11-20', '2025-11-20')).toBe(-365);
+  });
+
+  it('adds days and months with month-end clamping', () => {
+    expect(addDaysIso('2026-02-27', 3)).toBe('2026-03-02');
+    expect(addMonthsIso('2026-01-31', 1)).toBe('2026-02-28');
+    expect(addMonthsIso('2024-01-31', 1)).toBe('2024-02-29');
+    expect(addMonthsIso('2026-11-20', 24)).toBe('2028-11-20');
+    expect(monthStartIso('2026-11-20')).toBe('2026-11-01');
+    expect(monthEndIso('2024-02-10')).toBe('2024-02-29');
+  });
+
+  it('does not depend on the machine time zone', () => {
+    const before = process.env.TZ;
+    process.env.TZ = 'Pacific/Kiritimati';
+    try {
+      expect(daysBetween('2026-03-01', '2026-04-01')).toBe(31);
+      expect(monthStartIso('2026-03-01')).toBe('2026-03-01');
+    } finally {
+      process.env.TZ = before;
+    }
+  });
+});
