@@ -1,0 +1,185 @@
+import { addDaysIso, daysBetween, monthKey, type IsoDate } from '../dates/isoDate';
+import { angelucciSlopeMgPerKgPerMgPerGDry } from '../iron/bodyIron';
+import type { LedgerInput } from './ledgerInput';
+import { weightKgAt } from './weightAt';
+
+/** One calendar month of the iron account. The last month ends at the review date. */
+export interface MonthOfAccount {
+  /** 'YYYY-MM'. */
+  readonly month: string;
+  readonly firstDay: IsoDate;
+  readonly lastDay: IsoDate;
+  readonly days: number;
+  /** Iron in with transfused red cells, mg. */
+  readonly transfusedInMg: number;
+  /** Iron out with removed blood (exchange, venesection), mg. */
+  readonly removedWithBloodMg: number;
+  /** Expected iron out through chelation, mg (regimen × efficiency × adherence). */
+  readonly chelationOutMg: number;
+  /** Basal loss, mg. */
+  readonly basalLossMg: number;
+  /** In − out, mg. */
+  readonly netMg: number;
+  /** Weight on the month's last day, kg. */
+  readonly weightKg: number;
+  /**
+   * Estimated body iron stores at the end of the month, mg: anchored to the
+   * latest measured LIC (Angelucci relation) and carried forward by the net
+   * balance; null before the first LIC on record.
+   */
+  readonly bodyIronMg: number | null;
+  /** Estimated LIC at the end of the month, mg/g dry; null before the first LIC. */
+  readonly licEstimateMgPerGDry: number | null;
+  /** Measured LICs inside the month (the estimate is re-anchored to each). */
+  readonly measuredLic: readonly { readonly date: IsoDate; readonly licMgPerGDry: number }[];
+}
+
+export interface IronAccount {
+  readonly firstDay: IsoDate;
+  readonly lastDay: IsoDate;
+  readonly months: readonly MonthOfAccount[];
+  /** Body iron stores estimated on the review date, mg, or null with no LIC on record. */
+  readonly bodyIronAtAsOfMg: number | null;
+  readonly licAtAsOfMgPerGDry: number | null;
+  /** Per-day series for callers that need sums over arbitrary windows (same length as the day count). */
+  readonly daily: DailySeries;
+}
+
+/** Day-by-day flows from `firstDay` (index 0) to the review date. */
+export interface DailySeries {
+  readonly firstDay: IsoDate;
+  readonly transfusedInMg: Float64Array;
+  readonly removedWithBloodMg: Float64Array;
+  readonly chelationOutMg: Float64Array;
+  readonly basalLossMg: Float64Array;
+  readonly weightKg: Float64Array;
+}
+
+/**
+ * The month-by-month iron account from the first record to the review date.
+ *
+ * Each day: in = transfused iron; out = iron in removed blood + expected
+ * chelation removal (each active regimen, averaged over its days per week) +
+ * basal loss. Body iron stores are anchored at each measured LIC by the
+ * Angelucci relation (stores mg = 10.6 × LIC × weight; Angelucci et al.,
+ * N Engl J Med 2000;343:327) and carried forward by the net balance; the LIC
+ * estimate is stores ÷ (10.6 × weight).
+ *
+ * @param input - normalised flows (see ledgerInput.ts); at least one weight
+ * @returns months oldest first; sums of the months equal the sums of the records
+ * @example a record with one 280 mL unit at 0.60 and no chelation has transfusedInMg 181.44 in its month
+ */
+export function computeIronAccount(input: LedgerInput): IronAccount {
+  const firstDay = earliestDate(input);
+  const dayCount = daysBetween(firstDay, input.asOf) + 1;
+  const daily: DailySeries = {
+    firstDay,
+    transfusedInMg: new Float64Array(dayCount),
+    removedWithBloodMg: new Float64Array(dayCount),
+    chelationOutMg: new Float64Array(dayCount),
+    basalLossMg: new Float64Array(dayCount),
+    weightKg: new Float64Array(dayCount),
+  };
+  for (const movement of input.movements) {
+    const index = daysBetween(firstDay, movement.date);
+    if (index < 0 || index >= dayCount) continue;
+    daily.transfusedInMg[index]! += movement.ironInMg;
+    daily.removedWithBloodMg[index]! += movement.ironOutMg;
+  }
+  // Weights change rarely: walk them in date order instead of searching per day.
+  const sortedWeights = [...input.weights].sort((a, b) => a.date.localeCompare(b.date));
+  let weightIndex = 0;
+  let currentWeight = weightKgAt(input.weights, firstDay);
+  for (let index = 0; index < dayCount; index += 1) {
+    const date = addDaysIso(firstDay, index);
+    while (weightIndex < sortedWeights.length && sortedWeights[weightIndex]!.date <= date) {
+      currentWeight = sortedWeights[weightIndex]!.weightKg;
+      weightIndex += 1;
+    }
+    daily.weightKg[index] = currentWeight;
+    daily.basalLossMg[index] = input.basalLossMgPerDay;
+  }
+  for (const span of input.chelation) {
+    const from = Math.max(0, daysBetween(firstDay, span.start));
+    const to = Math.min(dayCount - 1, span.end === null ? dayCount - 1 : daysBetween(firstDay, span.end));
+    for (let index = from; index <= to; index += 1) {
+      daily.chelationOutMg[index]! += span.expectedRemovalMgPerDay(daily.weightKg[index]!);
+    }
+  }
+
+  const anchors = new Map<number, number[]>();
+  for (const measurement of input.licMeasurements) {
+    const index = daysBetween(firstDay, measurement.date);
+    if (index < 0 || index >= dayCount) continue;
+    anchors.set(index, [...(anchors.get(index) ?? []), measurement.licMgPerGDry]);
+  }
+
+  const months: MonthOfAccount[] = [];
+  let bodyIronMg: number | null = null;
+  let open: Omit<MonthOfAccount, 'bodyIronMg' | 'licEstimateMgPerGDry' | 'lastDay' | 'weightKg' | 'netMg'> & {
+    measuredLic: { date: IsoDate; licMgPerGDry: number }[];
+  } | null = null;
+  const closeMonth = (lastIndex: number): void => {
+    if (!open) return;
+    const weightKg = daily.weightKg[lastIndex]!;
+    months.push({
+      ...open,
+      lastDay: addDaysIso(firstDay, lastIndex),
+      netMg: open.transfusedInMg - open.removedWithBloodMg - open.chelationOutMg - open.basalLossMg,
+      weightKg,
+      bodyIronMg,
+      licEstimateMgPerGDry: bodyIronMg === null ? null : bodyIronMg / (angelucciSlopeMgPerKgPerMgPerGDry * weightKg),
+    });
+  };
+  for (let index = 0; index < dayCount; index += 1) {
+    const date = addDaysIso(firstDay, index);
+    if (!open || monthKey(date) !== open.month) {
+      closeMonth(index - 1);
+      open = { month: monthKey(date), firstDay: date, days: 0, transfusedInMg: 0, removedWithBloodMg: 0, chelationOutMg: 0, basalLossMg: 0, measuredLic: [] };
+    }
+    const net = daily.transfusedInMg[index]! - daily.removedWithBloodMg[index]! - daily.chelationOutMg[index]! - daily.basalLossMg[index]!;
+    open = {
+      ...open,
+      days: open.days + 1,
+      transfusedInMg: open.transfusedInMg + daily.transfusedInMg[index]!,
+      removedWithBloodMg: open.removedWithBloodMg + daily.removedWithBloodMg[index]!,
+      chelationOutMg: open.chelationOutMg + daily.chelationOutMg[index]!,
+      basalLossMg: open.basalLossMg + daily.basalLossMg[index]!,
+    };
+    if (bodyIronMg !== null) bodyIronMg = Math.max(0, bodyIronMg + net);
+    const measured = anchors.get(index);
+    if (measured) {
+      const meanLic = measured.reduce((sum, value) => sum + value, 0) / measured.length;
+      // The measurement describes the end of its day: it replaces the running estimate.
+      bodyIronMg = angelucciSlopeMgPerKgPerMgPerGDry * meanLic * daily.weightKg[index]!;
+      for (const value of measured) open.measuredLic.push({ date, licMgPerGDry: value });
+    }
+  }
+  closeMonth(dayCount - 1);
+  const weightAtAsOf = daily.weightKg[dayCount - 1]!;
+  return {
+    firstDay,
+    lastDay: input.asOf,
+    months,
+    bodyIronAtAsOfMg: bodyIronMg,
+    licAtAsOfMgPerGDry: bodyIronMg === null ? null : bodyIronMg / (angelucciSlopeMgPerKgPerMgPerGDry * weightAtAsOf),
+    daily,
+  };
+}
+
+function earliestDate(input: LedgerInput): IsoDate {
+  const candidates = [
+    ...input.movements.map((it) => it.date),
+    ...input.chelation.map((it) => it.start),
+    ...input.licMeasurements.map((it) => it.date),
+  ].filter((date) => date <= input.asOf);
+  if (candidates.length === 0) return input.asOf;
+  return candidates.reduce((earliest, date) => (date < earliest ? date : earliest));
+}
+
+/** Sum of a daily series over [fromIndex, toIndex], clamped to the series. */
+export function sumDaily(series: Float64Array, fromIndex: number, toIndex: number): number {
+  let total = 0;
+  for (let index = Math.max(0, fromIndex); index <= Math.min(series.length - 1, toIndex); index += 1) total += series[index]!;
+  return total;
+}

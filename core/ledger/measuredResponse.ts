@@ -1,0 +1,126 @@
+import { daysBetween, type IsoDate } from '../dates/isoDate';
+import { angelucciSlopeMgPerKgPerMgPerGDry } from '../iron/bodyIron';
+import { sumDaily, type IronAccount } from './ironAccount';
+import type { ChelationSpan, LicMeasurement } from './ledgerInput';
+
+/**
+ * An interval between two LIC results shorter than this is called short:
+ * MRI LIC repeatability is of the order of 10–15 %, so over a few months the
+ * change in LIC is mostly measurement noise. 180 days is common practice
+ * (MRI liver iron is usually repeated every 6–12 months), not a published cut-off.
+ */
+export const shortIntervalDays = 180;
+
+export type ResponseCaveat = 'short-interval' | 'method-changed' | 'regimen-changed' | 'no-chelation';
+
+export interface MeasuredResponse {
+  readonly fromDate: IsoDate;
+  readonly toDate: IsoDate;
+  readonly days: number;
+  readonly fromLicMgPerGDry: number;
+  readonly toLicMgPerGDry: number;
+  readonly meanWeightKg: number;
+  /** Net iron brought in by transfusions minus blood removed, mg. */
+  readonly intakeMg: number;
+  /** Change of body iron stores, mg (Angelucci relation at each date's weight). */
+  readonly storesChangeMg: number;
+  /** Iron that left the body: intake − change of stores, mg. */
+  readonly totalExcretionMg: number;
+  /** Of which attributed to chelation: total − basal loss, mg. */
+  readonly measuredChelationMg: number;
+  /** Expected chelation removal for the regimens on record in the interval, mg. */
+  readonly expectedChelationMg: number;
+  readonly measuredChelationMgPerKgPerDay: number;
+  readonly expectedChelationMgPerKgPerDay: number;
+  readonly intakeMgPerKgPerDay: number;
+  /** measured ÷ expected; null when no chelation was expected. */
+  readonly measuredToExpectedRatio: number | null;
+  readonly caveats: readonly ResponseCaveat[];
+  readonly caveatText: readonly string[];
+}
+
+/**
+ * The chelation response actually achieved between consecutive LIC results.
+ *
+ * excretion (mg) = intake (mg) − Δ body iron stores (mg), with stores =
+ * 10.6 × LIC × weight (Angelucci et al., N Engl J Med 2000;343:327); the
+ * chelation share is excretion minus basal loss. This is the balance method
+ * of the deferasirox phase-III analyses (Cappellini 2006; Cohen, Glimm &
+ * Porter, Blood 2008;111:583 — the exact method from memory), written with
+ * each date's own weight so that growth is not read as iron removed.
+ *
+ * @param account - the iron account (daily series)
+ * @param measurements - LIC results, any order
+ * @param chelation - regimens on record, to flag changes inside an interval
+ * @returns one entry per consecutive pair of LIC results, oldest first
+ */
+export function measuredResponses(
+  account: IronAccount,
+  measurements: readonly LicMeasurement[],
+  chelation: readonly ChelationSpan[],
+): MeasuredResponse[] {
+  const sorted = [...measurements].sort((a, b) => a.date.localeCompare(b.date));
+  const responses: MeasuredResponse[] = [];
+  for (let index = 1; index < sorted.length; index += 1) {
+    const from = sorted[index - 1]!;
+    const to = sorted[index]!;
+    const days = daysBetween(from.date, to.date);
+    if (days <= 0) continue;
+    const fromIndex = daysBetween(account.daily.firstDay, from.date);
+    const toIndex = daysBetween(account.daily.firstDay, to.date);
+    // Flows after the first measurement's day up to and including the second's.
+    const window = [fromIndex + 1, toIndex] as const;
+    const intakeMg = sumDaily(account.daily.transfusedInMg, ...window) - sumDaily(account.daily.removedWithBloodMg, ...window);
+    const expectedChelationMg = sumDaily(account.daily.chelationOutMg, ...window);
+    const basalMg = sumDaily(account.daily.basalLossMg, ...window);
+    const meanWeightKg = sumDaily(account.daily.weightKg, ...window) / days;
+    const weightFrom = account.daily.weightKg[fromIndex]!;
+    const weightTo = account.daily.weightKg[toIndex]!;
+    const storesChangeMg =
+      angelucciSlopeMgPerKgPerMgPerGDry * (to.licMgPerGDry * weightTo - from.licMgPerGDry * weightFrom);
+    const totalExcretionMg = intakeMg - storesChangeMg;
+    const measuredChelationMg = totalExcretionMg - basalMg;
+    const perKgPerDay = (mg: number) => mg / meanWeightKg / days;
+    const caveats: ResponseCaveat[] = [];
+    const caveatText: string[] = [];
+    if (days < shortIntervalDays) {
+      caveats.push('short-interval');
+      caveatText.push(`The interval is ${days} days, under ${shortIntervalDays}: the LIC change is within measurement noise, so the measured removal is uncertain.`);
+    }
+    if (from.method !== to.method) {
+      caveats.push('method-changed');
+      caveatText.push(`The two LIC results come from different methods (${from.method}; ${to.method}): part of the change may be the method.`);
+    }
+    const changed = chelation.filter(
+      (span) => (span.start > from.date && span.start <= to.date) || (span.end !== null && span.end >= from.date && span.end < to.date),
+    );
+    if (changed.length > 0) {
+      caveats.push('regimen-changed');
+      caveatText.push(`The regimen changed inside the interval (${changed.map((it) => it.label).join('; ')}): the measured removal mixes regimens.`);
+    }
+    if (expectedChelationMg <= 0) {
+      caveats.push('no-chelation');
+      caveatText.push('No chelation is on record in the interval: the removal shown is basal loss and measurement noise.');
+    }
+    responses.push({
+      fromDate: from.date,
+      toDate: to.date,
+      days,
+      fromLicMgPerGDry: from.licMgPerGDry,
+      toLicMgPerGDry: to.licMgPerGDry,
+      meanWeightKg,
+      intakeMg,
+      storesChangeMg,
+      totalExcretionMg,
+      measuredChelationMg,
+      expectedChelationMg,
+      measuredChelationMgPerKgPerDay: perKgPerDay(measuredChelationMg),
+      expectedChelationMgPerKgPerDay: perKgPerDay(expectedChelationMg),
+      intakeMgPerKgPerDay: perKgPerDay(intakeMg),
+      measuredToExpectedRatio: expectedChelationMg > 0 ? measuredChelationMg / expectedChelationMg : null,
+      caveats,
+      caveatText,
+    });
+  }
+  return responses;
+}
