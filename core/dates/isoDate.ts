@@ -73,3 +73,19 @@ export function earlierDate(first: IsoDate, second: IsoDate): IsoDate {
 export function laterDate(first: IsoDate, second: IsoDate): IsoDate {
   return first >= second ? first : second;
 }
+
+const millisecondsInDay = 86_400_000;
+
+/**
+ * Days since 1970-01-01 (UTC) for an ISO date: a fast integer form for loops
+ * over thousands of days. Validate the date at the edge first.
+ * @example epochDayFromIso('1970-01-02') === 1
+ */
+export function epochDayFromIso(date: IsoDate): number {
+  return Date.UTC(Number(date.slice(0, 4)), Number(date.slice(5, 7)) - 1, Number(date.slice(8, 10))) / millisecondsInDay;
+}
+
+/** The ISO date of a day number from {@link epochDayFromIso}. @example isoFromEpochDay(1) === '1970-01-02' */
+export function isoFromEpochDay(day: number): IsoDate {
+  return new Date(day * millisecondsInDay).toISOString().slice(0, 10);
+}

@@ -1,4 +1,4 @@
-import { addDaysIso, daysBetween, monthKey, type IsoDate } from '../dates/isoDate';
+import { daysBetween, epochDayFromIso, isoFromEpochDay, monthKey, type IsoDate } from '../dates/isoDate';
 import { angelucciSlopeMgPerKgPerMgPerGDry } from '../iron/bodyIron';
 import type { LedgerInput } from './ledgerInput';
 import { weightKgAt } from './weightAt';
@@ -90,8 +90,10 @@ export function computeIronAccount(input: LedgerInput): IronAccount {
   const sortedWeights = [...input.weights].sort((a, b) => a.date.localeCompare(b.date));
   let weightIndex = 0;
   let currentWeight = weightKgAt(input.weights, firstDay);
+  const firstEpochDay = epochDayFromIso(firstDay);
+  const dates = Array.from({ length: dayCount }, (_, index) => isoFromEpochDay(firstEpochDay + index));
   for (let index = 0; index < dayCount; index += 1) {
-    const date = addDaysIso(firstDay, index);
+    const date = dates[index]!;
     while (weightIndex < sortedWeights.length && sortedWeights[weightIndex]!.date <= date) {
       currentWeight = sortedWeights[weightIndex]!.weightKg;
       weightIndex += 1;
@@ -124,7 +126,7 @@ export function computeIronAccount(input: LedgerInput): IronAccount {
     const weightKg = daily.weightKg[lastIndex]!;
     months.push({
       ...open,
-      lastDay: addDaysIso(firstDay, lastIndex),
+      lastDay: dates[lastIndex]!,
       netMg: open.transfusedInMg - open.removedWithBloodMg - open.chelationOutMg - open.basalLossMg,
       weightKg,
       bodyIronMg,
@@ -132,7 +134,7 @@ export function computeIronAccount(input: LedgerInput): IronAccount {
     });
   };
   for (let index = 0; index < dayCount; index += 1) {
-    const date = addDaysIso(firstDay, index);
+    const date = dates[index]!;
     if (!open || monthKey(date) !== open.month) {
       closeMonth(index - 1);
       open = { month: monthKey(date), firstDay: date, days: 0, transfusedInMg: 0, removedWithBloodMg: 0, chelationOutMg: 0, basalLossMg: 0, measuredLic: [] };

@@ -49,3 +49,15 @@ describe('ISO calendar dates', () => {
     }
   });
 });
+
+describe('epoch days', () => {
+  it('round-trips every day of a leap year and matches daysBetween', async () => {
+    const { epochDayFromIso, isoFromEpochDay, addDaysIso, daysBetween } = await import('../../../core/dates');
+    const start = epochDayFromIso('2024-01-01');
+    for (let offset = 0; offset < 366; offset += 1) {
+      const iso = addDaysIso('2024-01-01', offset);
+      expect(isoFromEpochDay(start + offset)).toBe(iso);
+      expect(epochDayFromIso(iso) - start).toBe(daysBetween('2024-01-01', iso));
+    }
+  });
+});
