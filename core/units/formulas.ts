@@ -113,7 +113,7 @@ export type CreatinineUnit = (typeof creatinineUnits)[number];
 /**
  * Serum creatinine. Plausible from a small child's (about 0.1–0.2 mg/dL) to
  * untreated kidney failure (about 20 mg/dL): common practice. The µmol/L range
- * is the mg/dL range × 88.4 rounded outward to whole µmol/L (8.84 → 8, 1768 → 1770).
+ * is the mg/dL range × 88.4 rounded outward (8.84 → 8, 1768 → 1770).
  */
 export const serumCreatinine: LabQuantity<CreatinineUnit> = {
   name: 'serumCreatinine',
