@@ -22,6 +22,8 @@ export const issueCodes = [
   'unsupported_version',
   'inconsistent',
   'not_applicable',
+  /** An iterative method (the chemistry speciation solver) stopped without meeting its convergence test. */
+  'not_converged',
 ] as const;
 
 export type IssueCode = (typeof issueCodes)[number];
