@@ -9,7 +9,6 @@ export * from './formulas';
 export * from './intakeBand';
 export * from './ironIntakeRate';
 export * from './ironPerMlFromMchc';
-export * from './isoDate';
 export * from './licBand';
 export * from './licChange';
 export * from './licFromR2Star';

@@ -1,7 +1,7 @@
+import { daysBetween, isIsoDate, type IsoDate } from '../dates/isoDate';
 import { fail, issue, ok, type Issue, type Result } from '../result';
 import type { Days, Fraction, Kilograms, MgPerKgPerDay, MgPerMl, Milligrams, Millilitres } from '../units/quantity';
 import { ironIntakeRateMgPerKgPerDay } from './ironIntakeRate';
-import { inclusiveDays, parseIsoDate, type IsoDate } from './isoDate';
 import { transfusionIronMg } from './transfusionIron';
 
 /** One transfusion of the record, with its date and its own unit haematocrit. */
@@ -56,15 +56,14 @@ export function transfusionIronOverWindow(
   weightKg: Kilograms,
   ironPerMlRedCells: MgPerMl,
 ): Result<WindowIron> {
-  const issues: Issue[] = [];
-  const first = parseIsoDate(window.firstDate, ['window', 'firstDate']);
-  const last = parseIsoDate(window.lastDate, ['window', 'lastDate']);
-  if (!first.ok) issues.push(...first.issues);
-  if (!last.ok) issues.push(...last.issues);
-  const dates = transfusions.map((transfusion, index) => parseIsoDate(transfusion.date, ['transfusions', index, 'date']));
-  for (const date of dates) if (!date.ok) issues.push(...date.issues);
-  if (!first.ok || !last.ok || issues.length > 0) return fail(...issues);
-  const windowDays = inclusiveDays(first.value, last.value);
+  const issues: Issue[] = [
+    ...dateIssue(window.firstDate, ['window', 'firstDate'], 'first date'),
+    ...dateIssue(window.lastDate, ['window', 'lastDate'], 'last date'),
+    ...transfusions.flatMap((transfusion, index) => dateIssue(transfusion.date, ['transfusions', index, 'date'], 'transfusion date')),
+  ];
+  if (issues.length > 0) return fail(...issues);
+  // Both ends count: 2026-01-01 to 2026-12-31 is 365 days.
+  const windowDays = (daysBetween(window.firstDate, window.lastDate) + 1) as Days;
   if (windowDays < 1) {
     return fail(
       issue('inconsistent', ['window', 'lastDate'], `Last date ${window.lastDate} is before first date ${window.firstDate}; the window must run forward in time.`),
@@ -72,13 +71,12 @@ export function transfusionIronOverWindow(
   }
   let ironMg = 0;
   let transfusionCount = 0;
-  transfusions.forEach((transfusion, index) => {
-    const date = dates[index];
-    if (!date?.ok) return;
-    if (date.value < first.value || date.value > last.value) return;
+  for (const transfusion of transfusions) {
+    // ISO calendar dates compare correctly as strings.
+    if (transfusion.date < window.firstDate || transfusion.date > window.lastDate) continue;
     ironMg += transfusionIronMg(transfusion.volumeMl, transfusion.unitHaematocrit, ironPerMlRedCells);
     transfusionCount += 1;
-  });
+  }
   const totalIronMg = ironMg as Milligrams;
   return ok({
     ironMg: totalIronMg,
@@ -86,4 +84,10 @@ export function transfusionIronOverWindow(
     windowDays,
     intakeMgPerKgPerDay: ironIntakeRateMgPerKgPerDay(totalIronMg, weightKg, windowDays),
   });
+}
+
+function dateIssue(text: IsoDate, path: readonly (string | number)[], field: string): Issue[] {
+  return isIsoDate(text)
+    ? []
+    : [issue('invalid_date', path, `The ${field} "${text}" is not a calendar date written YYYY-MM-DD (for example 2026-03-14).`)];
 }
