@@ -27,7 +27,7 @@ export const bindingCapacity = defineFormula({
   notes: [
     'A ceiling: every ligand molecule bound to the metal. What is excreted is a fraction of it (expected-excretion).',
     'Enter the dose as the form it is stated in: deferoxamine strengths are labelled as the mesylate.',
-    'Give the dose in mg, or in mg/kg with the body weight.',
+    'Enter the dose in mg, or in mg/kg with the body weight.',
   ],
   inputs: {
     chelatorForm: { kind: 'choice', label: 'chelator as dosed', choices: chelatingFormIds, meaning: 'the chelator and the form (salt or base) the dose is stated as' },
@@ -44,7 +44,7 @@ export const bindingCapacity = defineFormula({
   compute: ({ chelatorForm, metal, doseMg, doseMgPerKg, weightKg }) => {
     const refused: Issue[] = [];
     if (doseMg !== undefined && doseMgPerKg !== undefined) {
-      refused.push(issue('inconsistent', ['doseMgPerKg'], `Give the dose either in mg (${doseMg} mg given) or in mg/kg with the weight, not both.`));
+      refused.push(issue('inconsistent', ['doseMgPerKg'], `Enter the dose either in mg (${doseMg} mg given) or in mg/kg with the weight, not both.`));
     } else if (doseMg === undefined && doseMgPerKg === undefined) {
       refused.push(issue('required', ['doseMg'], 'Dose is required: in mg (1–20000 mg), or in mg/kg (0.1–200 mg/kg) with the body weight.'));
     } else if (doseMgPerKg !== undefined && weightKg === undefined) {
