@@ -33,10 +33,16 @@ export function licFromR2Star(r2Star: PerSecond, scanFieldStrength: Tesla, calib
       issue(
         'field_strength_mismatch',
         ['calibration'],
-        `The calibration ${calibration.label} was derived at ${calibration.fieldStrengthTesla} T and cannot convert an R2* measured at ${scanFieldStrength} T: ` +
+        `The calibration ${calibration.label} ${derivedAt(calibration)} and cannot convert an R2* measured at ${scanFieldStrength} T: ` +
           `R2* rises with field strength. Choose a calibration derived at ${scanFieldStrength} T, or use the liver iron the MRI report gives with its own calibration.`,
       ),
     );
   }
   return ok((calibration.interceptMgPerGDry + calibration.slopeMgPerGDryPerPerS * r2Star) as MgPerGDry);
+}
+
+function derivedAt(calibration: R2StarCalibration): string {
+  return calibration.fieldStrengthConfirmed
+    ? `was derived at ${calibration.fieldStrengthTesla} T`
+    : `is taken as a ${calibration.fieldStrengthTesla} T calibration (its field strength is not confirmed)`;
 }
