@@ -147,9 +147,9 @@ describe('plausible ranges per unit', () => {
     it(`${name}: every unit's range contains the same span, rounded outward by at most ${allowance * 100} %`, () => {
       const [first, ...others] = quantity.units;
       for (const other of others) {
-        const low = conversion(quantity.ranges[first!].min, first!, other);
-        const high = conversion(quantity.ranges[first!].max, first!, other);
-        const { min, max } = quantity.ranges[other];
+        const low = conversion(quantity.ranges[first!]!.min, first!, other);
+        const high = conversion(quantity.ranges[first!]!.max, first!, other);
+        const { min, max } = quantity.ranges[other]!;
         expect(min, `${other} min`).toBeLessThanOrEqual(low * (1 + 1e-12));
         expect(max, `${other} max`).toBeGreaterThanOrEqual(high * (1 - 1e-12));
         expect(Math.abs(min / low - 1)).toBeLessThanOrEqual(allowance);
