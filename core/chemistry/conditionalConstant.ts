@@ -101,7 +101,7 @@ export function checkSetApplies(set: LigandConstantSet, metal: MetalId, pH: Ph):
     return fail(
       issue(
         'not_applicable',
-        ['pH'],
+        ['ph'],
         `Constant set ${set.id} holds conditional constants valid only at pH ${set.conditionalAtPh}; pH ${pH} cannot be computed with it.`,
       ),
     );

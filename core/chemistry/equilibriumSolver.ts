@@ -74,7 +74,7 @@ const maxLogStep = 2;
  * @param options - iteration limit and warm start
  * @returns free concentrations and every species, or a 'not_converged' / 'out_of_range' issue
  * @example 1:1 complex, log K 6, 1 µM metal, 10 µM ligand, no side reactions:
- *   free metal = 2·Tm / (b + √(b² + 4K·Tm)), b = K(Tl − Tm) + 1 → 1.0989e-7 mol/L
+ *   free metal = 2·Tm / (b + √(b² + 4K·Tm)), b = K(Tl − Tm) + 1 = 10 → 9.902e-8 mol/L
  */
 export function solveEquilibrium(
   system: EquilibriumSystem,

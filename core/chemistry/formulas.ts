@@ -1,4 +1,268 @@
-import type { AnyFormula } from '../formulas/types';
+import { findSource } from '../references';
+import { issue, type Issue } from '../result';
+import { defineFormula, type AnyFormula, type Refusal } from '../formulas/types';
+import { conditionalConstant } from './conditionalConstant';
+import { logLigandFraction } from './ligandFraction';
+import { constantSetIds, findConstantSet } from './sets';
+import { speciate } from './speciation';
+import { metalIds, molarFromMicromolar, ph, type LigandConstantSet, type MetalId } from './types';
+
+/** Method sources shared by the chemistry calculators (each set's own sources are named in its text output). */
+const methodSourceIds = ['harris-qca', 'ringbom-side-reactions', 'stefansson-2007', 'baes-mesmer-1976'] as const;
+const solverSourceIds = [...methodSourceIds, 'pm-convention', 'boyd-vandenberghe-2004'] as const;
+
+const constantSetInput = {
+  kind: 'choice',
+  label: 'constant set',
+  choices: constantSetIds,
+  meaning: 'one named constant set of a ligand (protonation and metal constants from one source, never mixed)',
+} as const;
+
+const metalInput = (label: string, defaultMetal?: MetalId) =>
+  ({
+    kind: 'choice',
+    label,
+    choices: metalIds,
+    meaning: 'metal ion, e.g. Fe3+, Pb2+, Ca2+',
+    ...(defaultMetal ? { default: defaultMetal } : {}),
+  }) as const;
+
+const phInput = {
+  kind: 'number',
+  label: 'pH',
+  unit: '[pH]',
+  min: 0,
+  max: 14,
+  default: 7.4,
+  meaning: 'pH of the solution (7.4 for plasma)',
+} as const;
+
+const totalInput = (label: string, meaning: string, defaultValue?: number) =>
+  ({
+    kind: 'number',
+    label,
+    unit: 'umol/L',
+    min: 0.000001,
+    max: 100000,
+    meaning,
+    ...(defaultValue !== undefined ? { default: defaultValue } : {}),
+  }) as const;
+
+const constantSetOutput = {
+  label: 'constant set used',
+  unit: '',
+  kind: 'text',
+  meaning: 'the named constant set, its conditions, status and sources',
+} as const;
+
+/**
+ * The text naming the constant set a result used: id, label, conditions, status and sources.
+ *
+ * @param set - the constant set
+ * @returns one line of text
+ * @example describeConstantSet(edta 25 °C set) starts 'edta-textbook-25c: EDTA, textbook protonation set'
+ */
+export function describeConstantSet(set: LigandConstantSet): string {
+  const sources = set.sourceIds.map((id) => {
+    const source = findSource(id);
+    if (!source) throw new Error(`Constant set ${set.id} cites unknown source ${id}`);
+    return `${source.authors}${source.year ? ` ${source.year}` : ''} [${source.status}]`;
+  });
+  return `${set.id}: ${set.label} (${set.temperatureC} °C, I = ${set.ionicStrengthMolPerL} mol/L, ${set.medium}; status ${set.status}); sources: ${sources.join('; ')}`;
+}
+
+function setOrThrow(id: string): LigandConstantSet {
+  const set = findConstantSet(id);
+  // The choice list is built from the same catalogue, so an unknown id here is a bug.
+  if (!set) throw new Error(`Unknown constant set ${id}`);
+  return set;
+}
+
+function refuse(issues: readonly Issue[], rename: Readonly<Record<string, string>> = {}): Refusal {
+  return {
+    refused: issues.map((it) => {
+      const last = it.path[it.path.length - 1];
+      const input = typeof last === 'string' ? (rename[last] ?? last) : 'constantSet';
+      return { ...it, path: [input] };
+    }),
+  };
+}
+
+export const ligandFractionFormula = defineFormula({
+  id: 'ligand-fraction',
+  title: 'Fraction of a ligand fully deprotonated at a given pH',
+  expression: 'α_L = 1 / (1 + Σₙ 10^(Σᵢ≤ₙ log Kᵢᴴ − n·pH))',
+  sourceIds: ['harris-qca'],
+  notes: [
+    'Uses the protonation constants of one named set only.',
+    'Not defined for sets of conditional constants (transferrin), whose protonation is already inside the constants.',
+  ],
+  inputs: { constantSet: constantSetInput, ph: phInput },
+  outputs: {
+    fraction: { label: 'fraction fully deprotonated (α_L)', unit: '1', meaning: '[L] / total unbound ligand', decimals: 4 },
+    log10Fraction: { label: 'log₁₀ α_L', unit: '1', meaning: 'decimal logarithm of α_L', decimals: 3 },
+    constantSet: constantSetOutput,
+  },
+  compute: ({ constantSet, ph: phValue }) => {
+    const set = setOrThrow(constantSet);
+    if (set.conditionalAtPh !== undefined) {
+      return refuse([
+        issue(
+          'not_applicable',
+          ['constantSet'],
+          `Constant set ${set.id} holds conditional constants at pH ${set.conditionalAtPh}: it has no protonation constants to give a fraction.`,
+        ),
+      ]);
+    }
+    const logFraction = logLigandFraction(set.protonationLogK, ph(phValue));
+    return { fraction: 10 ** logFraction, log10Fraction: logFraction, constantSet: describeConstantSet(set) };
+  },
+});
+
+export const conditionalConstantFormula = defineFormula({
+  id: 'conditional-constant',
+  title: 'Conditional formation constant of a ligand with a metal at a given pH',
+  expression: "log K′ = log K + q·log α_L + log α_M + log α_ML (principal complex ML_q; α as fractions)",
+  sourceIds: [...methodSourceIds],
+  notes: [
+    'Principal complex: the mononuclear complex with the most ligands (ML for EDTA, FeL3 for deferiprone); its protonated and hydroxo forms are included.',
+    'α_M counts mononuclear hydrolysis only (Fe3+: Stefánsson 2007; other metals from memory of Baes & Mesmer 1976).',
+  ],
+  inputs: { constantSet: constantSetInput, metal: metalInput('metal', 'Fe3+'), ph: phInput },
+  outputs: {
+    logConditionalConstant: { label: 'log K′ (conditional)', unit: '1', meaning: 'conditional constant of the principal complex', decimals: 2 },
+    logStabilityConstant: { label: 'log K (as entered)', unit: '1', meaning: 'overall formation constant of the principal complex', decimals: 2 },
+    log10AlphaLigand: { label: 'log₁₀ α_L', unit: '1', meaning: 'fraction of ligand fully deprotonated', decimals: 3 },
+    log10AlphaMetal: { label: 'log₁₀ α_M', unit: '1', meaning: 'fraction of unbound metal present as the aqua ion', decimals: 3 },
+    complex: { label: 'principal complex', unit: '', kind: 'text', meaning: 'the complex the constant describes' },
+    constantSet: constantSetOutput,
+  },
+  compute: ({ constantSet, metal, ph: phValue }) => {
+    const set = setOrThrow(constantSet);
+    const result = conditionalConstant(set, metal, ph(phValue));
+    if (!result.ok) return refuse(result.issues);
+    return {
+      logConditionalConstant: result.value.logConditional,
+      logStabilityConstant: result.value.logBeta,
+      log10AlphaLigand: result.value.logAlphaLigand,
+      log10AlphaMetal: result.value.logAlphaMetal,
+      complex: result.value.complexName,
+      constantSet: describeConstantSet(set),
+    };
+  },
+});
+
+export const pmFormula = defineFormula({
+  id: 'pm',
+  title: 'pM: free metal left by a ligand at a given pH (speciation)',
+  expression: 'pM = −log₁₀[M free aqua ion], from the mass balances of metal and ligand at fixed pH',
+  sourceIds: [...solverSourceIds],
+  notes: [
+    'Standard convention for comparing chelators: pH 7.4, 1 µM total metal, 10 µM total ligand, no precipitation.',
+    'Higher pM means less free metal: a firmer hold at that pH. It says nothing about how much metal a dose removes in a patient.',
+    'Solid hydroxides are excluded; soluble hydroxo species (Fe2(OH)2 included) are counted.',
+  ],
+  inputs: {
+    constantSet: constantSetInput,
+    metal: metalInput('metal', 'Fe3+'),
+    ph: phInput,
+    totalMetalUmolPerL: totalInput('total metal', 'total metal concentration', 1),
+    totalLigandUmolPerL: totalInput('total ligand', 'total ligand concentration (molecules)', 10),
+  },
+  outputs: {
+    pM: { label: 'pM', unit: '1', meaning: '−log₁₀ of the free metal aqua ion (mol/L)', decimals: 2 },
+    boundFraction: { label: 'share of metal bound', unit: '1', meaning: 'share of the metal held by the ligand', decimals: 4 },
+    unboundFraction: { label: 'share of metal not bound', unit: '1', meaning: 'aqua ion plus hydroxo species, as a share of the metal', decimals: 4 },
+    dominantComplex: { label: 'main complex', unit: '', kind: 'text', meaning: 'the complex holding most of the metal' },
+    constantSet: constantSetOutput,
+  },
+  compute: ({ constantSet, metal, ph: phValue, totalMetalUmolPerL, totalLigandUmolPerL }) => {
+    const set = setOrThrow(constantSet);
+    const result = speciate(
+      set,
+      [{ metal, totalMolar: molarFromMicromolar(totalMetalUmolPerL) }],
+      molarFromMicromolar(totalLigandUmolPerL),
+      ph(phValue),
+    );
+    if (!result.ok) return refuse(result.issues, { speciation: 'constantSet' });
+    const metalResult = result.value.metals[0]!;
+    return {
+      pM: metalResult.pM,
+      boundFraction: metalResult.boundFraction,
+      unboundFraction: metalResult.unboundFraction,
+      dominantComplex: metalResult.dominantComplex || 'none',
+      constantSet: describeConstantSet(set),
+    };
+  },
+});
+
+export const metalCompetitionFormula = defineFormula({
+  id: 'metal-competition',
+  title: 'Two metals competing for one ligand at a given pH',
+  expression: 'mass balances of both metals and the ligand solved together; pM = −log₁₀[M free] for each',
+  sourceIds: [...solverSourceIds],
+  notes: [
+    'Example: lead against plasma calcium (about 1.2 mM) for edetate; the totals are totals, not free concentrations.',
+    'Both metals must have constants in the chosen set.',
+  ],
+  inputs: {
+    constantSet: constantSetInput,
+    firstMetal: metalInput('first metal'),
+    firstMetalTotalUmolPerL: totalInput('total of the first metal', 'total concentration of the first metal'),
+    secondMetal: metalInput('second metal'),
+    secondMetalTotalUmolPerL: totalInput('total of the second metal', 'total concentration of the second metal'),
+    totalLigandUmolPerL: totalInput('total ligand', 'total ligand concentration (molecules)', 10),
+    ph: phInput,
+  },
+  outputs: {
+    firstMetalPm: { label: 'pM of the first metal', unit: '1', meaning: '−log₁₀ free first metal', decimals: 2 },
+    firstMetalBoundFraction: { label: 'share of the first metal bound', unit: '1', meaning: 'share of the first metal held by the ligand', decimals: 4 },
+    secondMetalPm: { label: 'pM of the second metal', unit: '1', meaning: '−log₁₀ free second metal', decimals: 2 },
+    secondMetalBoundFraction: { label: 'share of the second metal bound', unit: '1', meaning: 'share of the second metal held by the ligand', decimals: 4 },
+    ligandShareFirstMetal: { label: 'share of ligand on the first metal', unit: '1', meaning: 'share of all ligand in complexes of the first metal', decimals: 4 },
+    ligandShareSecondMetal: { label: 'share of ligand on the second metal', unit: '1', meaning: 'share of all ligand in complexes of the second metal', decimals: 4 },
+    constantSet: constantSetOutput,
+  },
+  compute: (inputs) => {
+    const set = setOrThrow(inputs.constantSet);
+    if (inputs.firstMetal === inputs.secondMetal) {
+      return refuse([issue('inconsistent', ['secondMetal'], `Second metal ${inputs.secondMetal} is the same as the first; choose two different metals.`)]);
+    }
+    const result = speciate(
+      set,
+      [
+        { metal: inputs.firstMetal, totalMolar: molarFromMicromolar(inputs.firstMetalTotalUmolPerL) },
+        { metal: inputs.secondMetal, totalMolar: molarFromMicromolar(inputs.secondMetalTotalUmolPerL) },
+      ],
+      molarFromMicromolar(inputs.totalLigandUmolPerL),
+      ph(inputs.ph),
+    );
+    if (!result.ok) {
+      return {
+        refused: result.issues.map((it) => {
+          const input = it.path[0] === 'metals' ? (it.path[1] === 0 ? 'firstMetal' : 'secondMetal') : 'constantSet';
+          const last = it.path[it.path.length - 1];
+          return { ...it, path: [last === 'ph' ? 'ph' : input] };
+        }),
+      };
+    }
+    const [first, second] = result.value.metals;
+    return {
+      firstMetalPm: first!.pM,
+      firstMetalBoundFraction: first!.boundFraction,
+      secondMetalPm: second!.pM,
+      secondMetalBoundFraction: second!.boundFraction,
+      ligandShareFirstMetal: first!.ligandShare,
+      ligandShareSecondMetal: second!.ligandShare,
+      constantSet: describeConstantSet(set),
+    };
+  },
+});
 
 /** Every chemistry formula, in the order `calc --list` shows them. */
-export const chemistryFormulas: readonly AnyFormula[] = [];
+export const chemistryFormulas: readonly AnyFormula[] = [
+  ligandFractionFormula,
+  conditionalConstantFormula,
+  pmFormula,
+  metalCompetitionFormula,
+];

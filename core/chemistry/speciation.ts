@@ -21,6 +21,12 @@ export interface MetalSpeciation {
   readonly boundFraction: number;
   /** Share of the metal in its own hydroxo species (no ligand), 0–1. */
   readonly hydrolysedFraction: number;
+  /** Share of the metal not held by the ligand (aqua ion plus hydroxo species), 0–1, summed directly (no 1 − x cancellation). */
+  readonly unboundFraction: number;
+  /** Share of the total ligand held in this metal's complexes, 0–1. */
+  readonly ligandShare: number;
+  /** The complex holding most of this metal, e.g. 'FeL3'; '' when no complex. */
+  readonly dominantComplex: string;
 }
 
 export interface Speciation {
@@ -145,11 +151,23 @@ export function speciate(
   const metalResults: MetalSpeciation[] = metals.map((entry, metalIndex) => {
     let bound = 0;
     let hydrolysed = 0;
+    let free = 0;
+    let dominantComplex = '';
+    let dominantAtoms = 0;
+    let ligandHeld = 0;
     species.forEach((it, index) => {
       if (it.metalIndex !== metalIndex) return;
       const metalAtoms = it.stoichiometry[metalIndex]! * concentrationOf(index);
-      if (it.role === 'complex') bound += metalAtoms;
+      if (it.role === 'free') free += metalAtoms;
       if (it.role === 'hydroxo') hydrolysed += metalAtoms;
+      if (it.role === 'complex') {
+        bound += metalAtoms;
+        ligandHeld += it.stoichiometry[ligandIndex]! * concentrationOf(index);
+        if (metalAtoms > dominantAtoms) {
+          dominantAtoms = metalAtoms;
+          dominantComplex = it.name;
+        }
+      }
     });
     const logFree = solution.logFree[metalIndex]!;
     return {
@@ -159,6 +177,9 @@ export function speciate(
       pM: -logFree,
       boundFraction: bound / entry.totalMolar,
       hydrolysedFraction: hydrolysed / entry.totalMolar,
+      unboundFraction: (free + hydrolysed) / entry.totalMolar,
+      ligandShare: ligandHeld / totalLigandMolar,
+      dominantComplex,
     };
   });
   let unboundLigand = 0;
