@@ -96,6 +96,19 @@ export const assumptionCatalogue = [
     max: 0.6,
   },
   {
+    id: 'unit-haematocrit-red-cells',
+    label: 'haematocrit of a red-cell unit when the transfusion record does not give it',
+    unit: '1',
+    // 0.60: common practice for red cells in additive solution (blood-component guides quote
+    // about 0.50–0.70; from memory). Range as the transfusion-iron calculator's unit haematocrit.
+    value: 0.6,
+    sourceIds: ['common-practice'],
+    alternatives: [],
+    min: 0.4,
+    max: 0.85,
+    note: 'Used by core/model for a transfusion entered with unitHaematocrit null; shown as assumed.',
+  },
+  {
     id: 'basal-iron-loss-mg-per-day',
     label: 'basal iron loss',
     unit: 'mg/d',

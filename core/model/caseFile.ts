@@ -1,0 +1,67 @@
+import { z } from 'zod';
+import { assumptionOverridesSchema } from './assumptionOverrides';
+import type { CheckLevel } from './bounds';
+import { chelationPeriodSchemaAt } from './chelationPeriod';
+import { coMedicationSchemaAt } from './coMedication';
+import { entryIdSchema, requiredTextSchema } from './fields';
+import { patientSchemaAt } from './patient';
+import { resultEntrySchemaAt } from './resultEntry';
+import { reviewSchema } from './review';
+import { transfusionSchemaAt } from './transfusion';
+
+/** The `format` every case file carries at its top. */
+export const caseFileFormat = 'chelation-ledger.case';
+/** The version this code writes; older versions are migrated forward on open (migrate.ts). */
+export const currentCaseFileVersion = 1;
+/** What-if regimens a case may hold beside the current one. */
+export const maxProposedRegimens = 3;
+
+/**
+ * Schema of a version 1 case file at one check level ('refuse' or 'warn',
+ * see bounds.ts). Lists may be omitted and default to empty.
+ *
+ * A proposed regimen is a what-if: a name and the chelation periods it would
+ * run, starting at the review date; the ledger projects it beside the current
+ * regimen.
+ */
+export function caseSchemaAt(level: CheckLevel) {
+  const chelationPeriod = chelationPeriodSchemaAt(level);
+  return z.strictObject({
+    format: z.literal(caseFileFormat),
+    version: z.literal(currentCaseFileVersion),
+    patient: patientSchemaAt(level),
+    transfusions: z.array(transfusionSchemaAt(level)).default([]),
+    results: z.array(resultEntrySchemaAt(level)).default([]),
+    chelationPeriods: z.array(chelationPeriod).default([]),
+    coMedications: z.array(coMedicationSchemaAt(level)).default([]),
+    assumptionOverrides: assumptionOverridesSchema.default({}),
+    proposedRegimens: z
+      .array(z.strictObject({ id: entryIdSchema, name: requiredTextSchema(80), periods: z.array(chelationPeriod).min(1) }))
+      .max(maxProposedRegimens)
+      .default([]),
+    review: reviewSchema.default({ reviewDate: null, notes: [], signOff: null }),
+  });
+}
+
+/** The two levels, built once. */
+export const caseSchemas = { refuse: caseSchemaAt('refuse'), warn: caseSchemaAt('warn') } as const;
+
+type DeepReadonly<T> = T extends string | number | boolean | null | undefined
+  ? T
+  : T extends readonly (infer Item)[]
+    ? readonly DeepReadonly<Item>[]
+    : { readonly [Key in keyof T]: DeepReadonly<T[Key]> };
+
+/** A parsed, valid case file. Read-only all the way down: core never changes what the user typed. */
+export type Case = DeepReadonly<z.output<typeof caseSchemas.refuse>>;
+export type Patient = Case['patient'];
+export type WeightEntry = Patient['weights'][number];
+export type HeightEntry = Patient['heights'][number];
+export type Transfusion = Case['transfusions'][number];
+export type ResultEntry = Case['results'][number];
+export type ResultKind = ResultEntry['kind'];
+export type ChelationPeriod = Case['chelationPeriods'][number];
+export type CoMedication = Case['coMedications'][number];
+export type ProposedRegimen = Case['proposedRegimens'][number];
+export type CaseAssumptionOverrides = Case['assumptionOverrides'];
+export type Review = Case['review'];

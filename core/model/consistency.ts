@@ -1,0 +1,187 @@
+import { issue, type Issue } from '../result';
+import type { Case, ChelationPeriod } from './caseFile';
+import type { IsoDate } from '../dates';
+import { r2StarCalibrations } from '../iron/r2StarCalibrations';
+import { plausibleRangeText } from './bounds';
+import { weightBounds } from './plausibleRanges';
+import { pathText } from './zodIssues';
+
+type Path = readonly (string | number)[];
+
+interface DatedAt {
+  readonly path: Path;
+  readonly date: IsoDate;
+}
+
+/** Every date that records something that happened to the patient (not review or sign-off dates). */
+function eventDates(theCase: Case): DatedAt[] {
+  const dates: DatedAt[] = [];
+  theCase.patient.weights.forEach((it, index) => dates.push({ path: ['patient', 'weights', index, 'date'], date: it.date }));
+  theCase.patient.heights.forEach((it, index) => dates.push({ path: ['patient', 'heights', index, 'date'], date: it.date }));
+  theCase.transfusions.forEach((it, index) => dates.push({ path: ['transfusions', index, 'date'], date: it.date }));
+  theCase.results.forEach((it, index) => dates.push({ path: ['results', index, 'date'], date: it.date }));
+  theCase.chelationPeriods.forEach((it, index) => dates.push({ path: ['chelationPeriods', index, 'startDate'], date: it.startDate }));
+  theCase.coMedications.forEach((it, index) => dates.push({ path: ['coMedications', index, 'startDate'], date: it.startDate }));
+  return dates;
+}
+
+function periodsWithPaths(theCase: Case): { path: Path; period: { readonly startDate: IsoDate; readonly endDate: IsoDate | null } }[] {
+  return [
+    ...theCase.chelationPeriods.map((period, index) => ({ path: ['chelationPeriods', index] as Path, period })),
+    ...theCase.coMedications.map((period, index) => ({ path: ['coMedications', index] as Path, period })),
+    ...theCase.proposedRegimens.flatMap((regimen, regimenIndex) =>
+      regimen.periods.map((period, index) => ({ path: ['proposedRegimens', regimenIndex, 'periods', index] as Path, period })),
+    ),
+  ];
+}
+
+function duplicateIds(theCase: Case): Issue[] {
+  const seen = new Map<string, Path>();
+  const found: Issue[] = [];
+  const entries: { path: Path; id: string }[] = [
+    ...theCase.transfusions.map((it, index) => ({ path: ['transfusions', index, 'id'], id: it.id })),
+    ...theCase.results.map((it, index) => ({ path: ['results', index, 'id'], id: it.id })),
+    ...theCase.chelationPeriods.map((it, index) => ({ path: ['chelationPeriods', index, 'id'], id: it.id })),
+    ...theCase.coMedications.map((it, index) => ({ path: ['coMedications', index, 'id'], id: it.id })),
+    ...theCase.proposedRegimens.map((it, index) => ({ path: ['proposedRegimens', index, 'id'], id: it.id })),
+  ];
+  for (const { path, id } of entries) {
+    const first = seen.get(id);
+    if (first) {
+      found.push(issue('inconsistent', path, `${pathText(path)} "${id}" is already used by ${pathText(first)}; each entry needs its own id.`));
+    } else {
+      seen.set(id, path);
+    }
+  }
+  return found;
+}
+
+/** Two periods of one drug that share days: usually a regimen change typed without ending the old period. */
+function overlappingSameDrug(periods: readonly ChelationPeriod[]): Issue[] {
+  const found: Issue[] = [];
+  periods.forEach((later, laterIndex) => {
+    periods.slice(0, laterIndex).forEach((earlier, earlierIndex) => {
+      if (earlier.drug !== later.drug) return;
+      const earlierEnds = earlier.endDate ?? '9999-12-31';
+      const laterEnds = later.endDate ?? '9999-12-31';
+      if (later.startDate > earlierEnds || earlier.startDate > laterEnds) return;
+      const path = ['chelationPeriods', laterIndex];
+      found.push(
+        issue(
+          'inconsistent',
+          path,
+          `${pathText(path)} (${later.drug} from ${later.startDate}) overlaps chelationPeriods[${earlierIndex}] of the same drug; end the earlier period if the regimen changed.`,
+          'warning',
+        ),
+      );
+    });
+  });
+  return found;
+}
+
+/**
+ * A raw R2* or T2* is turned into liver iron by a calibration core/iron knows,
+ * at the field strength it was derived at; anything else cannot be converted.
+ * The file still opens (the other results stand); core/iron refuses the conversion.
+ */
+function calibrationProblems(theCase: Case): Issue[] {
+  const found: Issue[] = [];
+  theCase.results.forEach((result, index) => {
+    if (result.kind !== 'liver-iron' || (result.method !== 'mri-r2star' && result.method !== 'mri-t2star')) return;
+    const path = ['results', index, 'calibrationId'];
+    const calibration = r2StarCalibrations.find((it) => it.id === result.calibrationId);
+    if (!calibration) {
+      const known = r2StarCalibrations.map((it) => it.id).join(', ');
+      found.push(issue('unknown_choice', path, `${pathText(path)} "${result.calibrationId}" is not a known R2* calibration (${known}); this result cannot be converted to liver iron.`, 'warning'));
+    } else if (calibration.fieldStrengthTesla !== result.fieldStrengthT) {
+      found.push(
+        issue(
+          'field_strength_mismatch',
+          path,
+          `${pathText(path)} "${calibration.id}" was derived at ${calibration.fieldStrengthTesla} T but the result was measured at ${result.fieldStrengthT} T; choose a calibration for ${result.fieldStrengthT} T.`,
+          'warning',
+        ),
+      );
+    }
+  });
+  return found;
+}
+
+/**
+ * Initials (JS) and local codes (TH-0417) are what a label should be; two or
+ * more words of letters ("Jane Smith", "Smith, J") or one capitalised word
+ * ("Smith") look like a name.
+ */
+function labelLooksLikeName(label: string): boolean {
+  return /^[\p{L}'’.-]+(?:[\s,]+[\p{L}'’.-]+)+$/u.test(label.trim()) || /^\p{Lu}\p{Ll}{2,}$/u.test(label.trim());
+}
+
+/**
+ * Checks that need more than one field: unique ids, periods that end before
+ * they start, events before birth (refused); events after the review date,
+ * proposed periods starting before it, overlapping periods of one drug,
+ * pregnancy recorded with male sex at birth, a label that looks like a name,
+ * no weight on record, a raw R2* or T2* with an unknown calibration or one of
+ * another field strength (warnings).
+ *
+ * @param theCase - a case that passed the schema
+ * @returns errors and warnings, each with its path; empty when all is consistent
+ * @example consistencyIssues(caseWithEndBeforeStart)[0].code === 'inconsistent'
+ */
+export function consistencyIssues(theCase: Case): Issue[] {
+  const found: Issue[] = [...duplicateIds(theCase)];
+
+  for (const { path, period } of periodsWithPaths(theCase)) {
+    if (period.endDate !== null && period.endDate < period.startDate) {
+      const where = [...path, 'endDate'];
+      found.push(issue('inconsistent', where, `${pathText(where)} ${period.endDate} is before its start date ${period.startDate}.`));
+    }
+  }
+
+  const { age } = theCase.patient;
+  if (age.kind === 'birth-date') {
+    for (const { path, date } of eventDates(theCase)) {
+      if (date < age.birthDate) {
+        found.push(issue('inconsistent', path, `${pathText(path)} ${date} is before the birth date ${age.birthDate}.`));
+      }
+    }
+  }
+
+  const { reviewDate } = theCase.review;
+  if (reviewDate !== null) {
+    for (const { path, date } of eventDates(theCase)) {
+      if (date > reviewDate) {
+        found.push(issue('inconsistent', path, `${pathText(path)} ${date} is after the review date ${reviewDate}; check the date.`, 'warning'));
+      }
+    }
+    theCase.proposedRegimens.forEach((regimen, regimenIndex) =>
+      regimen.periods.forEach((period, index) => {
+        if (period.startDate >= reviewDate) return;
+        const path = ['proposedRegimens', regimenIndex, 'periods', index, 'startDate'];
+        found.push(
+          issue('inconsistent', path, `${pathText(path)} ${period.startDate} is before the review date ${reviewDate}; a proposed regimen starts at the review.`, 'warning'),
+        );
+      }),
+    );
+  }
+
+  found.push(...overlappingSameDrug(theCase.chelationPeriods));
+  found.push(...calibrationProblems(theCase));
+
+  const { pregnancy, sexAtBirth, label, weights } = theCase.patient;
+  if (pregnancy.status !== 'not-pregnant' && sexAtBirth === 'male') {
+    const path = ['patient', 'pregnancy', 'status'];
+    found.push(issue('inconsistent', path, `${pathText(path)} "${pregnancy.status}" is recorded with sex at birth male; check both fields.`, 'warning'));
+  }
+  if (labelLooksLikeName(label)) {
+    const path = ['patient', 'label'];
+    found.push(
+      issue('inconsistent', path, `${pathText(path)} "${label}" looks like a name; use a local code such as TH-0417 so the file carries no name.`, 'warning'),
+    );
+  }
+  if (weights.length === 0) {
+    const path = ['patient', 'weights'];
+    found.push(issue('required', path, `${pathText(path)} is empty; doses in mg/kg and intake per kg need a weight (plausible ${plausibleRangeText(weightBounds)}).`, 'warning'));
+  }
+  return found;
+}

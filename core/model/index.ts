@@ -1,0 +1,27 @@
+/**
+ * The case file: its zod schema (version 1), parsing with issues in the
+ * trade's words, migration of older versions, and the small date queries the
+ * ledger needs. Values keep the units the user entered.
+ */
+export { describeCaseDateProblem, earliestCaseDate, isCaseDate, latestCaseDate } from './caseDate';
+export { displayUnit, plausibleRangeText, type Bounds, type CheckLevel } from './bounds';
+export * from './plausibleRanges';
+export { diagnosisGroups, pregnancyStatuses, sexesAtBirth } from './patient';
+export { exchangeMethods, unitHaematocritAssumptionId } from './transfusion';
+export { fieldStrengthsT, liverIronMethods } from './resultEntry';
+export {
+  chelatorDrugs,
+  deferasiroxFormulations,
+  deferiproneFormulations,
+  deferoxamineFormulations,
+  deferoxamineRoutes,
+} from './chelationPeriod';
+export { coMedicationTimings } from './coMedication';
+export * from './caseFile';
+export { migrateCase } from './migrate';
+export { parseCase } from './parseCase';
+export { pathText } from './zodIssues';
+export { sortedByDate } from './sortedByDate';
+export { latestWeightOnOrBefore } from './latestWeight';
+export { periodsActiveOn, type DatedPeriod } from './periodsActiveOn';
+export { resultsOfKindBetween } from './resultsOfKindBetween';
