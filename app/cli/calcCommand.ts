@@ -87,6 +87,8 @@ function originText(origin: Origin): string {
       return origin.overridden
         ? `assumption ${origin.assumptionId}, overridden${origin.reason ? `: ${origin.reason}` : ''}`
         : `assumption ${origin.assumptionId}, published default`;
+    case 'record':
+      return `from the record: ${origin.description}`;
     case 'computed':
       return `computed by ${origin.derivation.formulaId}`;
   }

@@ -1,6 +1,7 @@
 import { chelatorsFormulas } from '../chelators/formulas';
 import { chemistryFormulas } from '../chemistry/formulas';
 import { ironFormulas } from '../iron/formulas';
+import { ledgerFormulas } from '../ledger/formulas';
 import { patientFormulas } from '../patient/formulas';
 import { unitFormulas } from '../units/formulas';
 import type { AnyFormula } from './types';
@@ -12,6 +13,7 @@ import type { AnyFormula } from './types';
  */
 export const formulaCatalogue: readonly AnyFormula[] = [
   ...ironFormulas,
+  ...ledgerFormulas,
   ...chelatorsFormulas,
   ...patientFormulas,
   ...unitFormulas,

@@ -19,6 +19,8 @@ export type Origin =
       readonly by?: string;
       readonly at?: string;
     }
+  /** A total or a pick from the case record (e.g. the sum of the transfusions in a window), with the entries it used. */
+  | { readonly kind: 'record'; readonly description: string; readonly refs: readonly string[] }
   /** The output of another formula. */
   | { readonly kind: 'computed'; readonly derivation: Derivation };
 

@@ -25,7 +25,9 @@ export interface MonthOfAccount {
   /**
    * Estimated body iron stores at the end of the month, mg: anchored to the
    * latest measured LIC (Angelucci relation) and carried forward by the net
-   * balance; null before the first LIC on record.
+   * balance; null before the first LIC on record. Not clamped at zero: a
+   * negative estimate means the expected removal exceeds what the record
+   * supports, and the caller says so.
    */
   readonly bodyIronMg: number | null;
   /** Estimated LIC at the end of the month, mg/g dry; null before the first LIC. */
@@ -148,7 +150,7 @@ export function computeIronAccount(input: LedgerInput): IronAccount {
       chelationOutMg: open.chelationOutMg + daily.chelationOutMg[index]!,
       basalLossMg: open.basalLossMg + daily.basalLossMg[index]!,
     };
-    if (bodyIronMg !== null) bodyIronMg = Math.max(0, bodyIronMg + net);
+    if (bodyIronMg !== null) bodyIronMg += net;
     const measured = anchors.get(index);
     if (measured) {
       const meanLic = measured.reduce((sum, value) => sum + value, 0) / measured.length;

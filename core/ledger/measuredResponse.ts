@@ -1,5 +1,5 @@
 import { daysBetween, type IsoDate } from '../dates/isoDate';
-import { angelucciSlopeMgPerKgPerMgPerGDry } from '../iron/bodyIron';
+import { measuredChelationMg as balanceMethod } from './balance';
 import { sumDaily, type IronAccount } from './ironAccount';
 import type { ChelationSpan, LicMeasurement } from './ledgerInput';
 
@@ -76,10 +76,14 @@ export function measuredResponses(
     const meanWeightKg = sumDaily(account.daily.weightKg, ...window) / days;
     const weightFrom = account.daily.weightKg[fromIndex]!;
     const weightTo = account.daily.weightKg[toIndex]!;
-    const storesChangeMg =
-      angelucciSlopeMgPerKgPerMgPerGDry * (to.licMgPerGDry * weightTo - from.licMgPerGDry * weightFrom);
-    const totalExcretionMg = intakeMg - storesChangeMg;
-    const measuredChelationMg = totalExcretionMg - basalMg;
+    const { storesChangeMg, totalExcretionMg, chelationMg: measuredChelationMg } = balanceMethod({
+      intakeMg,
+      fromLic: from.licMgPerGDry,
+      toLic: to.licMgPerGDry,
+      fromWeightKg: weightFrom,
+      toWeightKg: weightTo,
+      basalLossMg: basalMg,
+    });
     const perKgPerDay = (mg: number) => mg / meanWeightKg / days;
     const caveats: ResponseCaveat[] = [];
     const caveatText: string[] = [];

@@ -1,5 +1,6 @@
 import { addMonthsIso, daysBetween, type IsoDate } from '../dates/isoDate';
 import { angelucciSlopeMgPerKgPerMgPerGDry } from '../iron/bodyIron';
+import { projectedLic } from './balance';
 import { quantileOfSorted } from './quantile';
 import { createRandom } from './random';
 
@@ -106,8 +107,7 @@ export function projectScenarios(input: ProjectionInput): ScenarioProjection[] {
     const removalMgPerDay = scenario.removalMgPerDay(input.weightKg) * scenario.efficiencyScale;
     const netMgPerDay = input.intakeMgPerDay - removalMgPerDay - input.basalLossMgPerDay;
     const licAt = (days: number, intakeFactor: number, removalFactor: number): number =>
-      Math.max(0, input.startBodyIronMg + days * (input.intakeMgPerDay * intakeFactor - removalMgPerDay * removalFactor - input.basalLossMgPerDay)) /
-      storesPerLic;
+      projectedLic(input.startBodyIronMg, input.weightKg, days, input.intakeMgPerDay * intakeFactor, removalMgPerDay * removalFactor, input.basalLossMgPerDay);
     // One stream per scenario, derived from the seed, so adding a scenario does not shift another's band.
     const random = createRandom(input.seed * 1009 + scenarioIndex);
     const sigma = scenario.efficiencyBasis === 'measured' ? projectionSpread.removalSigmaMeasured : projectionSpread.removalSigmaPublished;

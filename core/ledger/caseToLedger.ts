@@ -1,0 +1,175 @@
+import { resolveAssumption, type ResolvedAssumption } from '../assumptions';
+import { expectedIronExcretionMgPerDay } from '../chelators/expectedExcretion';
+import type { ChelatorId } from '../chelators/catalogue';
+import { licFromR2Star } from '../iron/licFromR2Star';
+import { r2StarCalibration, r2StarCalibrationIds, type R2StarCalibrationId } from '../iron/r2StarCalibrations';
+import { licMgPerGDryFromUmolPerGDry } from '../units/liverIron';
+import { fraction, mg, perSecond, tesla, type UmolPerGDry } from '../units/quantity';
+import type { Case, ChelationPeriod } from '../model/caseFile';
+import type { ChelationSpan, IronMovement, LedgerInput, LicMeasurement } from './ledgerInput';
+
+/** Something the conversion assumed or left out, said in the trade's words. */
+export interface LedgerNotice {
+  readonly severity: 'information' | 'review';
+  readonly text: string;
+  readonly ref?: string;
+}
+
+export interface NormalisedCase {
+  readonly input: LedgerInput;
+  readonly notices: readonly LedgerNotice[];
+  /** Every assumption the conversion used, with its value and origin. */
+  readonly assumptions: readonly ResolvedAssumption[];
+}
+
+/** The catalogue product for a chelation period as recorded. */
+export function chelatorIdOf(period: Pick<ChelationPeriod, 'drug' | 'formulation'>): ChelatorId {
+  if (period.drug === 'deferasirox') {
+    return period.formulation === 'film-coated-tablet' ? 'deferasirox-film-coated' : 'deferasirox-dispersible';
+  }
+  return period.drug;
+}
+
+/** 'deferasirox film-coated-tablet 21 mg/kg × 1/day, 7 days/week, adherence 0.9'. */
+export function describePeriod(period: ChelationPeriod): string {
+  const adherence = period.adherence < 1 ? `, adherence ${period.adherence}` : '';
+  return `${period.drug} ${period.formulation} ${period.dose.value} ${period.dose.unit} × ${period.administrationsPerDay}/day, ${period.daysPerWeek} days/week${adherence}`;
+}
+
+/**
+ * Expected removal of one chelation period, mg/day averaged over the week, at a weight.
+ * A dose entered in mg/kg follows the weight; one entered in mg does not.
+ */
+export function periodRemovalMgPerDay(
+  period: ChelationPeriod,
+  weightKg: number,
+  efficiency: number,
+  filmCoatedFactor: number,
+): number {
+  const perAdministrationMg = period.dose.unit === 'mg/kg' ? period.dose.value * weightKg : period.dose.value;
+  return expectedIronExcretionMgPerDay({
+    chelatorId: chelatorIdOf(period),
+    doseMgPerDosingDay: mg(perAdministrationMg * period.administrationsPerDay),
+    daysPerWeek: period.daysPerWeek,
+    adherence: fraction(period.adherence),
+    efficiency: fraction(efficiency),
+    efficiencyDoseFactor: fraction(filmCoatedFactor),
+  });
+}
+
+export const efficiencyAssumptionOf = {
+  deferoxamine: 'efficiency-deferoxamine',
+  deferiprone: 'efficiency-deferiprone',
+  deferasirox: 'efficiency-deferasirox',
+} as const;
+
+/**
+ * Turns a case into the iron account's flows: transfusions into mg of iron in
+ * and out (volume × haematocrit × iron per mL of red cells), chelation periods
+ * into daily expected removal, LIC results (biopsy, MRI in mg/g, or raw R2* or T2*
+ * through the named calibration) into anchors. What had to be assumed or left
+ * out is returned as notices.
+ */
+export function caseToLedgerInput(caseFile: Case, asOf: string): NormalisedCase {
+  const overrides = caseFile.assumptionOverrides;
+  const ironPerMl = resolveAssumption('iron-per-ml-red-cells', overrides);
+  const defaultHaematocrit = resolveAssumption('unit-haematocrit-red-cells', overrides);
+  const basalLoss = resolveAssumption('basal-iron-loss-mg-per-day', overrides);
+  const filmCoated = resolveAssumption('deferasirox-film-coated-factor', overrides);
+  const efficiencies = {
+    deferoxamine: resolveAssumption(efficiencyAssumptionOf.deferoxamine, overrides),
+    deferiprone: resolveAssumption(efficiencyAssumptionOf.deferiprone, overrides),
+    deferasirox: resolveAssumption(efficiencyAssumptionOf.deferasirox, overrides),
+  };
+  const notices: LedgerNotice[] = [];
+  const used = new Map<string, ResolvedAssumption>([
+    [ironPerMl.id, ironPerMl],
+    [basalLoss.id, basalLoss],
+  ]);
+
+  let assumedHaematocritCount = 0;
+  const movements: IronMovement[] = [];
+  caseFile.transfusions.forEach((entry, index) => {
+    if (entry.date > asOf) return;
+    const ref = `transfusions[${index}] ${entry.date}`;
+    if (entry.kind === 'venesection') {
+      movements.push({ date: entry.date, ironInMg: 0, ironOutMg: entry.volumeRemoved.value * entry.patientHaematocrit * ironPerMl.value, ref });
+      return;
+    }
+    const haematocrit = entry.unitHaematocrit ?? defaultHaematocrit.value;
+    if (entry.unitHaematocrit === null) assumedHaematocritCount += 1;
+    const volumeInMl = entry.kind === 'simple' ? entry.volume.value : entry.volumeIn.value;
+    const ironInMg = volumeInMl * haematocrit * ironPerMl.value;
+    const ironOutMg = entry.kind === 'exchange' ? entry.volumeRemoved.value * entry.patientHaematocrit * ironPerMl.value : 0;
+    movements.push({ date: entry.date, ironInMg, ironOutMg, ref });
+  });
+  if (assumedHaematocritCount > 0) {
+    used.set(defaultHaematocrit.id, defaultHaematocrit);
+    notices.push({
+      severity: 'information',
+      text: `Unit haematocrit not entered for ${assumedHaematocritCount} transfusion(s): ${defaultHaematocrit.value} assumed (${defaultHaematocrit.origin.overridden ? 'overridden' : 'product default'}).`,
+    });
+  }
+  if (caseFile.transfusions.some((it) => it.kind === 'exchange')) {
+    notices.push({
+      severity: 'information',
+      text: 'Iron removed by exchange uses the pre-procedure patient haematocrit; the haematocrit of the removed blood drifts during the procedure, so it is an approximation.',
+    });
+  }
+
+  const chelation: ChelationSpan[] = caseFile.chelationPeriods
+    .filter((period) => period.startDate <= asOf)
+    .map((period) => {
+      const efficiency = efficiencies[period.drug];
+      used.set(efficiency.id, efficiency);
+      if (period.drug === 'deferasirox' && period.formulation === 'film-coated-tablet') used.set(filmCoated.id, filmCoated);
+      return {
+        id: period.id,
+        label: describePeriod(period),
+        drug: period.drug,
+        start: period.startDate,
+        end: period.endDate,
+        expectedRemovalMgPerDay: (weightKg: number) => periodRemovalMgPerDay(period, weightKg, efficiency.value, filmCoated.value),
+      };
+    });
+
+  const licMeasurements: LicMeasurement[] = [];
+  caseFile.results.forEach((result, index) => {
+    if (result.kind !== 'liver-iron' || result.date > asOf) return;
+    const ref = `results[${index}] ${result.date}`;
+    if (result.method === 'biopsy' || result.method === 'mri') {
+      const value = result.measured.value;
+      const licMgPerGDry =
+        result.measured.unit === 'mg/g{dry}'
+          ? value
+          : result.measured.unit === 'umol/g{dry}'
+            ? licMgPerGDryFromUmolPerGDry(value as UmolPerGDry)
+            : value / 1000;
+      const method = result.method === 'biopsy' ? 'biopsy' : `MRI ${result.fieldStrengthT} T (${result.calibrationId})`;
+      licMeasurements.push({ date: result.date, licMgPerGDry, method, ref });
+      return;
+    }
+    if (result.method === 'mri-r2') {
+      notices.push({ severity: 'review', ref, text: `Liver R2 result of ${result.date} not converted: no R2 calibration is catalogued yet; enter the LIC from the MRI report.` });
+      return;
+    }
+    if (!(r2StarCalibrationIds as readonly string[]).includes(result.calibrationId)) {
+      notices.push({ severity: 'review', ref, text: `Liver ${result.method} result of ${result.date}: calibration "${result.calibrationId}" is not catalogued (${r2StarCalibrationIds.join(', ')}); not converted.` });
+      return;
+    }
+    const r2Star = result.method === 'mri-r2star' ? result.measured.value : 1000 / result.measured.value;
+    const converted = licFromR2Star(perSecond(r2Star), tesla(result.fieldStrengthT), r2StarCalibration(result.calibrationId as R2StarCalibrationId));
+    if (!converted.ok) {
+      notices.push({ severity: 'review', ref, text: `Liver iron of ${result.date} not converted. ${converted.issues.map((it) => it.message).join(' ')}` });
+      return;
+    }
+    licMeasurements.push({ date: result.date, licMgPerGDry: converted.value, method: `MRI R2* ${result.fieldStrengthT} T (${result.calibrationId})`, ref });
+  });
+
+  const weights = caseFile.patient.weights.map((it) => ({ date: it.date, weightKg: it.weight.value }));
+  return {
+    input: { asOf, movements, chelation, weights, licMeasurements, basalLossMgPerDay: basalLoss.value },
+    notices,
+    assumptions: [...used.values()],
+  };
+}

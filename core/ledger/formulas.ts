@@ -1,0 +1,96 @@
+import { defineFormula, type AnyFormula } from '../formulas/types';
+import { carriedForwardStores, measuredChelationMg, projectedLic } from './balance';
+
+const lic = (label: string) =>
+  ({ kind: 'number', label, unit: 'mg/g{dry}', min: 0, max: 60, meaning: `${label}, mg Fe per g dry liver` }) as const;
+const weight = (label: string) => ({ kind: 'number', label, unit: 'kg', min: 1, max: 250, meaning: label }) as const;
+
+export const bodyIronCarriedForward = defineFormula({
+  id: 'body-iron-carried-forward',
+  title: 'Body iron and LIC carried forward from the last measured LIC',
+  expression: 'stores (mg) = 10.6 × LIC at the anchor × weight at the anchor + net balance since; LIC now = stores ÷ (10.6 × weight now)',
+  sourceIds: ['angelucci-2000'],
+  notes: ['The net balance is transfused iron minus iron in removed blood, expected chelation removal and basal loss since the measurement.'],
+  inputs: {
+    anchorLicMgPerGDry: lic('measured LIC at the anchor'),
+    anchorWeightKg: weight('weight on the day of the measurement'),
+    netSinceMg: { kind: 'number', label: 'net iron balance since the measurement', unit: 'mg', min: -100000, max: 100000, meaning: 'iron in minus iron out since the measurement' },
+    weightNowKg: weight('weight now'),
+  },
+  outputs: {
+    bodyIronMg: { label: 'estimated body iron stores', unit: 'mg', meaning: 'stores carried forward', decimals: 0 },
+    licMgPerGDry: { label: 'estimated LIC', unit: 'mg/g{dry}', meaning: 'LIC estimate carried forward', decimals: 1 },
+  },
+  compute: ({ anchorLicMgPerGDry, anchorWeightKg, netSinceMg, weightNowKg }) =>
+    carriedForwardStores(anchorLicMgPerGDry, anchorWeightKg, netSinceMg, weightNowKg),
+});
+
+export const measuredChelation = defineFormula({
+  id: 'measured-chelation',
+  title: 'Chelation removal achieved between two LIC results (balance method)',
+  expression:
+    'Δstores = 10.6 × (LIC₂ × weight₂ − LIC₁ × weight₁); removal (mg) = intake − Δstores − basal loss; per kg per day = removal ÷ mean weight ÷ days; ratio = removal ÷ expected removal',
+  sourceIds: ['angelucci-2000', 'cohen-2008'],
+  notes: ['Intervals under 180 days, a change of LIC method or of regimen inside the interval make the result uncertain; the ledger says which applies.'],
+  inputs: {
+    intakeMg: { kind: 'number', label: 'net transfusional intake in the interval', unit: 'mg', min: -100000, max: 200000, meaning: 'transfused iron minus iron in removed blood' },
+    fromLicMgPerGDry: lic('first LIC'),
+    toLicMgPerGDry: lic('second LIC'),
+    fromWeightKg: weight('weight at the first LIC'),
+    toWeightKg: weight('weight at the second LIC'),
+    basalLossMg: { kind: 'number', label: 'basal loss in the interval', unit: 'mg', min: 0, max: 20000, meaning: 'basal iron loss over the interval' },
+    days: { kind: 'number', label: 'interval', unit: 'd', min: 1, max: 7300, meaning: 'days between the two LIC results' },
+    meanWeightKg: weight('mean weight over the interval'),
+    expectedMg: { kind: 'number', label: 'expected chelation removal in the interval', unit: 'mg', min: 0, max: 200000, meaning: 'sum of the regimens’ expected removal' },
+  },
+  outputs: {
+    storesChangeMg: { label: 'change of body iron stores', unit: 'mg', meaning: 'Angelucci relation at each date’s weight', decimals: 0 },
+    measuredMg: { label: 'measured chelation removal', unit: 'mg', meaning: 'intake − Δstores − basal loss', decimals: 0 },
+    measuredMgPerKgPerDay: { label: 'measured chelation removal', unit: 'mg/kg/d', meaning: 'per kg per day', decimals: 3 },
+    expectedMgPerKgPerDay: { label: 'expected chelation removal', unit: 'mg/kg/d', meaning: 'per kg per day', decimals: 3 },
+    measuredToExpected: { label: 'measured ÷ expected', unit: '1', meaning: 'share of the expected removal achieved (0 when none was expected)', decimals: 2 },
+  },
+  compute: (inputs) => {
+    const balance = measuredChelationMg({
+      intakeMg: inputs.intakeMg,
+      fromLic: inputs.fromLicMgPerGDry,
+      toLic: inputs.toLicMgPerGDry,
+      fromWeightKg: inputs.fromWeightKg,
+      toWeightKg: inputs.toWeightKg,
+      basalLossMg: inputs.basalLossMg,
+    });
+    const perKgPerDay = (mg: number) => mg / inputs.meanWeightKg / inputs.days;
+    return {
+      storesChangeMg: balance.storesChangeMg,
+      measuredMg: balance.chelationMg,
+      measuredMgPerKgPerDay: perKgPerDay(balance.chelationMg),
+      expectedMgPerKgPerDay: perKgPerDay(inputs.expectedMg),
+      measuredToExpected: inputs.expectedMg > 0 ? balance.chelationMg / inputs.expectedMg : 0,
+    };
+  },
+});
+
+export const projectedLicFormula = defineFormula({
+  id: 'projected-lic',
+  title: 'Projected LIC at constant rates',
+  expression: 'LIC (mg/g dry) = max(0, stores + days × (intake − removal − basal loss)) ÷ (10.6 × weight)',
+  sourceIds: ['angelucci-2000'],
+  notes: ['Removal is held constant; real chelators remove less as iron falls, so projections far below LIC 3 overstate the fall. Weight is held at its latest value.'],
+  inputs: {
+    startBodyIronMg: { kind: 'number', label: 'body iron stores at the review date', unit: 'mg', min: 0, max: 100000, meaning: 'estimated stores at the start' },
+    weightKg: weight('weight'),
+    days: { kind: 'number', label: 'days ahead', unit: 'd', min: 0, max: 3660, meaning: 'days from the review date' },
+    intakeMgPerDay: { kind: 'number', label: 'future intake', unit: 'mg/d', min: -500, max: 500, meaning: 'transfusional iron net of blood removed, per day' },
+    removalMgPerDay: { kind: 'number', label: 'chelation removal', unit: 'mg/d', min: 0, max: 500, meaning: 'expected removal of the regimen, per day' },
+    basalLossMgPerDay: { kind: 'number', label: 'basal loss', unit: 'mg/d', min: 0, max: 3, assumption: 'basal-iron-loss-mg-per-day', meaning: 'basal iron loss per day' },
+  },
+  outputs: {
+    licMgPerGDry: { label: 'projected LIC', unit: 'mg/g{dry}', meaning: 'central projection', decimals: 1 },
+  },
+  compute: (inputs) => ({
+    licMgPerGDry: projectedLic(inputs.startBodyIronMg, inputs.weightKg, inputs.days, inputs.intakeMgPerDay, inputs.removalMgPerDay, inputs.basalLossMgPerDay),
+  }),
+});
+
+/** Ledger formulas, in the order `calc --list` shows them. */
+export const ledgerFormulas: readonly AnyFormula[] = [bodyIronCarriedForward, measuredChelation, projectedLicFormula];
