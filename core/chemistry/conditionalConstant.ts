@@ -29,7 +29,7 @@ export interface ConditionalConstant {
  * @param metal - the metal ion
  * @param pH - pH, 0–14
  * @returns log₁₀ α_M, ≤ 0
- * @example logMetalFraction('Fe3+', ph(7.4)) ≈ −7.0 (Stefánsson 2007 constants)
+ * @example logMetalFraction('Fe3+', ph(7.4)) ≈ −9.10 (Stefánsson 2007 constants; Fe(OH)2+ dominates)
  */
 export function logMetalFraction(metal: MetalId, pH: Ph): number {
   const exponents = [0];
@@ -82,6 +82,12 @@ export function conditionalConstant(set: LigandConstantSet, metal: MetalId, pH: 
  * Whether a constant set may be used for a metal at a pH: it must hold a
  * confirmed constant for the metal, and a conditional set only at its own pH.
  * Issues name the set, the metal and what the set does cover.
+ *
+ * @param set - the constant set
+ * @param metal - the metal ion
+ * @param pH - pH, 0–14
+ * @returns ok(true), or a 'not_applicable' issue on 'constantSet', 'ph' or 'metal'
+ * @example checkSetApplies(deferiprone set, 'Pb2+', ph(7.4)) → issue "… has no constant for Pb2+; it covers Fe3+."
  */
 export function checkSetApplies(set: LigandConstantSet, metal: MetalId, pH: Ph): Result<true> {
   if (set.metalConstantsUnconfirmed) {

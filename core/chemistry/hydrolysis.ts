@@ -79,7 +79,13 @@ function memorySet(metal: MetalId, steps: readonly (readonly [number, number])[]
   };
 }
 
-/** The hydrolysis set of a metal (every metal in metalIds has one). */
+/**
+ * The hydrolysis set of a metal (every metal in metalIds has one; a missing one is a bug).
+ *
+ * @param metal - the metal ion
+ * @returns its hydrolysis constants with source
+ * @example hydrolysisOf('Fe3+').species[0].logBetaStar === −2.19
+ */
 export function hydrolysisOf(metal: MetalId): MetalHydrolysisSet {
   const found = metalHydrolysisSets.find((it) => it.metal === metal);
   if (!found) throw new Error(`No hydrolysis set for ${metal}`);

@@ -33,7 +33,7 @@ export function phGrid(fromPh: number, toPh: number, stepPh: number): Ph[] {
  * @param totalLigandMolar - total ligand, mol/L (1e-12 to 0.1)
  * @param pHs - the grid (default phGrid(2, 12, 0.5))
  * @returns one point per pH: pM, or the issue at that pH
- * @example pmSweep(deferoxamine set, 'Fe3+', 1e-6, 1e-5)[11] → { pH: 7.5, value ≈ 27 }
+ * @example pmSweep(deferoxamine set, 'Fe3+', 1e-6, 1e-5)[11] → { pH: 7.5, ok: true, value ≈ 26.94 }
  */
 export function pmSweep(
   set: LigandConstantSet,
@@ -59,7 +59,7 @@ export function pmSweep(
  * @param metal - the metal
  * @param pHs - the grid (default phGrid(2, 12, 0.5))
  * @returns one point per pH: log K′, or the issue at that pH
- * @example conditionalConstantSweep(edta 25 °C set, 'Ca2+')[0] → { pH: 2, value ≈ 10.7 − 13.59 }
+ * @example conditionalConstantSweep(edta 25 °C set, 'Ca2+')[0] → { pH: 2, ok: true, value ≈ 10.7 − 13.59 = −2.89 }
  */
 export function conditionalConstantSweep(
   set: LigandConstantSet,

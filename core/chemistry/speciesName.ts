@@ -1,6 +1,11 @@
 import type { MetalId } from './types';
 
-/** The element symbol of a metal id: 'Fe3+' → 'Fe'. */
+/**
+ * The element symbol of a metal id.
+ * @param metal - the metal ion
+ * @returns its element symbol
+ * @example elementOf('Fe3+') === 'Fe'
+ */
 export function elementOf(metal: MetalId): string {
   return metal.replace(/\d*[+-]$/, '');
 }

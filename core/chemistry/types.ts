@@ -11,7 +11,9 @@ import type { SourceStatus } from '../references/source';
 export type Molar = Quantity<'mol/L'>;
 export type Ph = Quantity<'[pH]'>;
 
+/** Attach mol/L to a number. @example molar(1e-6) is 1 µmol/L */
 export const molar = (value: number): Molar => value as Molar;
+/** Attach the pH unit to a number. @example ph(7.4) */
 export const ph = (value: number): Ph => value as Ph;
 /** µmol/L → mol/L (× 1e-6). @example molarFromMicromolar(1) === 1e-6 */
 export const molarFromMicromolar = (micromolar: number): Molar => (micromolar * 1e-6) as Molar;

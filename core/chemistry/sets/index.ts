@@ -27,12 +27,22 @@ for (const set of ligandConstantSets) {
 /** Ids of every constant set, for choice inputs. */
 export const constantSetIds: readonly string[] = ligandConstantSets.map((it) => it.id);
 
-/** The constant set with this id, or undefined. */
+/**
+ * The constant set with this id, or undefined.
+ * @param id - a constant set id
+ * @returns the set, or undefined for an unknown id
+ * @example findConstantSet('edta-textbook-25c')?.protonationLogK[0] === 10.37
+ */
 export function findConstantSet(id: string): LigandConstantSet | undefined {
   return byId.get(id);
 }
 
-/** The default set of a ligand (exactly one per ligand; checked by a test). */
+/**
+ * The default set of a ligand (exactly one per ligand; checked by a test).
+ * @param ligand - the ligand
+ * @returns its default constant set
+ * @example defaultSetOf('deferiprone').id === 'deferiprone-remeasured-2019'
+ */
 export function defaultSetOf(ligand: LigandId): LigandConstantSet {
   const found = ligandConstantSets.find((it) => it.ligand === ligand && it.isDefault);
   if (!found) throw new Error(`No default constant set for ${ligand}`);
