@@ -1,5 +1,6 @@
 import { fail, issue, ok, type Result } from '../result';
 import { caseFileFormat, currentCaseFileVersion } from './caseFile';
+import { describeValue } from './zodIssues';
 
 /**
  * One step forward: takes a file of version n (already checked for format and
@@ -30,7 +31,7 @@ function isPlainObject(value: unknown): value is Readonly<Record<string, unknown
  */
 export function migrateCase(json: unknown): Result<unknown> {
   if (!isPlainObject(json)) {
-    return fail(issue('invalid_file', [], `The file is not a chelation-ledger case: expected a JSON object with format "${caseFileFormat}".`));
+    return fail(issue('invalid_file', [], `The case file is ${describeValue(json)}; expected a JSON object with format "${caseFileFormat}".`));
   }
   if (json['format'] !== caseFileFormat) {
     const given = json['format'] === undefined ? 'missing' : JSON.stringify(json['format']);

@@ -19,7 +19,8 @@ export function pathText(path: Path): string {
   return path.map((part, index) => (typeof part === 'number' ? `[${part}]` : index === 0 ? part : `.${part}`)).join('');
 }
 
-function describeValue(value: unknown): string {
+/** A value as a message shows it: text quoted and cut at 40 characters, containers by kind. */
+export function describeValue(value: unknown): string {
   if (value === undefined) return 'missing';
   if (value === null) return 'null';
   if (Array.isArray(value)) return 'a list';

@@ -1,14 +1,10 @@
-import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { latestWeightOnOrBefore, parseCase, periodsActiveOn, resultsOfKindBetween, type Case } from '../../../core/model';
 import { unitHaematocritAssumptionId } from '../../../core/model';
 import { daysBetween } from '../../../core/dates';
+import { readDemo } from './caseFixtures';
 
-function readDemo(name: string): unknown {
-  return JSON.parse(readFileSync(new URL(`../../../assets/demo/${name}.json`, import.meta.url), 'utf8'));
-}
-
-function parsedDemo(name: string): Case {
+function parsedDemo(name: 'th-0417' | 'th-0093'): Case {
   const result = parseCase(readDemo(name));
   if (!result.ok) throw new Error(`${name} does not parse:\n${result.issues.map((it) => it.message).join('\n')}`);
   return result.value;
