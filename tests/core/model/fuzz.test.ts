@@ -28,10 +28,15 @@ function check(json: unknown): void {
   }
 }
 
+// Each run parses a whole case twice; on the shared two-core machine 600 runs
+// can pass vitest's 5 s default, so these tests get a 60 s limit. It only
+// bounds a hang; nothing here measures speed.
+const fuzzTimeoutMs = 60_000;
+
 describe('parseCase on arbitrary input', () => {
   it('never throws on any value fast-check can make', () => {
     fc.assert(fc.property(fc.anything({ withNullPrototype: true, withObjectString: true }), check), { seed: 417, numRuns: 500 });
-  });
+  }, fuzzTimeoutMs);
 
   it('never throws on JSON values carrying the case-file header', () => {
     const header = fc.record({ format: fc.constant('chelation-ledger.case'), version: fc.constant(1) });
@@ -40,7 +45,7 @@ describe('parseCase on arbitrary input', () => {
       fc.jsonValue(),
     );
     fc.assert(fc.property(header, body, (head, rest) => check({ ...rest, ...head })), { seed: 93, numRuns: 300 });
-  });
+  }, fuzzTimeoutMs);
 
   it('never throws when any one value inside a real case file is replaced by random JSON', () => {
     const demo = readDemo('th-0417');
@@ -57,5 +62,5 @@ describe('parseCase on arbitrary input', () => {
       fc.property(fc.constantFrom(...leafPaths), fc.jsonValue(), (path, value) => check(withChange(demo, path, value))),
       { seed: 2026, numRuns: 600 },
     );
-  });
+  }, fuzzTimeoutMs);
 });
