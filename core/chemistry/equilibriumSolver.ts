@@ -105,8 +105,12 @@ export function solveEquilibrium(
   }
   const maxIterations = options.maxIterations ?? 200;
   let u = options.initialLogFree ? [...options.initialLogFree] : boundedStart(system, pH);
-
   let state = evaluate(system, pH, u);
+  if (!state && options.initialLogFree) {
+    // A warm start that overflows is discarded for the bounded start, which never overflows.
+    u = boundedStart(system, pH);
+    state = evaluate(system, pH, u);
+  }
   if (!state) return overflow();
   let iterations = 0;
   let polishing = 0;
@@ -209,16 +213,24 @@ function evaluate(system: EquilibriumSystem, pH: number, u: readonly number[]): 
 /**
  * Solve H·d = −r with symmetric diagonal scaling (H is positive definite but its
  * entries span many decades) and Gaussian elimination with partial pivoting.
+ * When one complex holds nearly all of two components, H is singular to working
+ * precision; a tiny ridge (1e-10 on the unit diagonal) then keeps a descent
+ * direction, and the step cap and line search keep the iteration safe.
  */
 function newtonStep(hessian: readonly (readonly number[])[], residual: readonly number[]): number[] | undefined {
+  return solveScaled(hessian, residual, 0) ?? solveScaled(hessian, residual, 1e-10);
+}
+
+function solveScaled(hessian: readonly (readonly number[])[], residual: readonly number[], ridge: number): number[] | undefined {
   const n = residual.length;
   const scale = hessian.map((row, k) => 1 / Math.sqrt(row[k]!));
-  const a = hessian.map((row, k) => row.map((value, l) => value * scale[k]! * scale[l]!));
+  const a = hessian.map((row, k) => row.map((value, l) => value * scale[k]! * scale[l]! + (k === l ? ridge : 0)));
   const b = residual.map((r, k) => -r * scale[k]!);
   for (let col = 0; col < n; col += 1) {
     let pivot = col;
     for (let row = col + 1; row < n; row += 1) if (Math.abs(a[row]![col]!) > Math.abs(a[pivot]![col]!)) pivot = row;
-    if (!(Math.abs(a[pivot]![col]!) > 1e-300)) return undefined;
+    // The scaled matrix has a unit diagonal: a pivot below 1e-13 means singular to working precision.
+    if (!(Math.abs(a[pivot]![col]!) > 1e-13)) return undefined;
     [a[col], a[pivot]] = [a[pivot]!, a[col]!];
     [b[col], b[pivot]] = [b[pivot]!, b[col]!];
     for (let row = col + 1; row < n; row += 1) {
@@ -239,29 +251,24 @@ function newtonStep(hessian: readonly (readonly number[])[], residual: readonly 
 
 /**
  * A start where no species exceeds the smallest total it draws on: free = total,
- * then each component is lowered until its largest species fits. Keeps the first
- * evaluation finite even for log β near 100.
+ * then, for each species that would exceed that total, the limiting component
+ * (the one with the smallest total, as in a titration's limiting reagent) is
+ * lowered until the species fits. No species can overflow at this start.
  */
 function boundedStart(system: EquilibriumSystem, pH: number): number[] {
-  const u = system.components.map((it) => Math.log10(it.totalMolar));
+  const logTotals = system.components.map((it) => Math.log10(it.totalMolar));
+  const u = [...logTotals];
   for (let pass = 0; pass < 3; pass += 1) {
     for (const species of system.species) {
       let logC = species.logBeta - species.protonCount * pH;
-      let involved = 0;
-      let limit = Infinity;
+      let limiting = -1;
       species.stoichiometry.forEach((nu, k) => {
         logC += nu * u[k]!;
-        if (nu > 0) {
-          involved += nu;
-          limit = Math.min(limit, Math.log10(system.components[k]!.totalMolar));
-        }
+        if (nu > 0 && (limiting < 0 || logTotals[k]! < logTotals[limiting]!)) limiting = k;
       });
-      const excess = logC - limit;
-      if (excess > 0 && involved > 0) {
-        species.stoichiometry.forEach((nu, k) => {
-          if (nu > 0) u[k]! -= excess / involved;
-        });
-      }
+      if (limiting < 0) continue;
+      const excess = logC - logTotals[limiting]!;
+      if (excess > 0) u[limiting]! -= excess / species.stoichiometry[limiting]!;
     }
   }
   return u;

@@ -264,3 +264,33 @@ describe('refusals: no number without constants to back it', () => {
     if (!result.ok) expect(result.issues[0]!.code).toBe('inconsistent');
   });
 });
+
+describe('solver robustness over every set, metal, pH and ratio', () => {
+  it('converges (mass balances to 1e-10) for every computable set and metal, pH 0–14, ligand : metal 0.3–100', () => {
+    // Invariant, not an outside value: the convergence argument (strictly convex objective, damped
+    // Newton) promises an answer for every positive totals; this walks the whole catalogue cold
+    // (no warm start), including equal totals where one complex holds nearly everything.
+    let solved = 0;
+    for (const ligandSet of [
+      'edta-textbook-25c',
+      'dtpa-nist46',
+      'dtpa-dojindo',
+      'deferoxamine-schwarzenbach-1963',
+      'deferiprone-remeasured-2019',
+      'deferiprone-motekaitis-martell-1991',
+    ].map(set)) {
+      const metals = [...new Set(ligandSet.complexes.map((it) => it.metal))];
+      for (const metal of metals) {
+        for (let pHValue = 0; pHValue <= 14; pHValue += 1) {
+          for (const [metalUmol, ligandUmol] of [[1, 10], [10, 10], [10, 3], [1, 100], [1000, 1000]] as const) {
+            const result = speciate(ligandSet, [{ metal, totalMolar: molarFromMicromolar(metalUmol) }], molarFromMicromolar(ligandUmol), ph(pHValue));
+            expect(result.ok, `${ligandSet.id} ${metal} pH ${pHValue} ${metalUmol}/${ligandUmol}`).toBe(true);
+            if (result.ok) expect(result.value.solution.maxRelativeResidual).toBeLessThan(1e-10);
+            solved += 1;
+          }
+        }
+      }
+    }
+    expect(solved).toBeGreaterThan(1000);
+  });
+});
