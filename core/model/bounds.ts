@@ -63,7 +63,13 @@ function withUnit(text: string, ucumCode: string): string {
   return shown === '' ? text : `${text} ${shown}`;
 }
 
-/** "2–200 kg", "0.40–0.85": the plausible range as every message states it. */
+/**
+ * The plausible range as every message states it, with the bounds' decimals and display unit.
+ *
+ * @param bounds - the ranges of one field
+ * @returns text such as "2–200 kg" or "0.40–0.85"
+ * @example plausibleRangeText(weightBounds) === '2–200 kg'
+ */
 export function plausibleRangeText(bounds: Bounds): string {
   const { min, max } = bounds.plausible;
   return withUnit(`${min.toFixed(bounds.decimals)}–${max.toFixed(bounds.decimals)}`, bounds.unit);
@@ -144,7 +150,7 @@ function addFinding(ctx: z.RefinementCtx, finding: BoundsFinding | undefined, pa
  *
  * @param bounds - possible and plausible ranges
  * @param level - which range this schema checks
- * @example boundedNumber(weeklyDaysBounds, 'refuse').safeParse(8).success === false
+ * @example boundedNumber(daysPerWeekBounds, 'refuse').safeParse(8).success === false
  */
 export function boundedNumber(bounds: Bounds, level: CheckLevel) {
   return numberSchema(plausibleRangeText(bounds)).superRefine((value, ctx) => addFinding(ctx, checkBounds(value, bounds, level)));

@@ -3,8 +3,8 @@
  * trade's words, migration of older versions, and the small date queries the
  * ledger needs. Values keep the units the user entered.
  */
-export { describeCaseDateProblem, earliestCaseDate, isCaseDate, latestCaseDate } from './caseDate';
-export { displayUnit, plausibleRangeText, type Bounds, type CheckLevel } from './bounds';
+export { earliestCaseDate, isCaseDate, latestCaseDate } from './caseDate';
+export { checkBounds, displayUnit, plausibleRangeText, type Bounds, type CheckLevel } from './bounds';
 export * from './plausibleRanges';
 export { diagnosisGroups, pregnancyStatuses, sexesAtBirth } from './patient';
 export { exchangeMethods, unitHaematocritAssumptionId } from './transfusion';

@@ -13,13 +13,23 @@ import { issue, issueCodes, type Issue, type IssueCode } from '../result';
 
 type Path = readonly (string | number)[];
 
-/** "transfusions[3].unitHaematocrit"; the root is "the case file". */
+/**
+ * A path into the case file as a reader writes it; every message starts with it.
+ *
+ * @param path - keys and list indexes from the root
+ * @returns e.g. "transfusions[3].unitHaematocrit"; "The case file" for the root
+ * @example pathText(['transfusions', 3, 'unitHaematocrit']) === 'transfusions[3].unitHaematocrit'
+ */
 export function pathText(path: Path): string {
   if (path.length === 0) return 'The case file';
   return path.map((part, index) => (typeof part === 'number' ? `[${part}]` : index === 0 ? part : `.${part}`)).join('');
 }
 
-/** A value as a message shows it: text quoted and cut at 40 characters, containers by kind. */
+/**
+ * A value as a message shows it: text quoted and cut at 40 characters, containers by kind.
+ *
+ * @example describeValue('60%') === '"60%"'; describeValue([1]) === 'a list'
+ */
 export function describeValue(value: unknown): string {
   if (value === undefined) return 'missing';
   if (value === null) return 'null';
