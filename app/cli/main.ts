@@ -1,7 +1,8 @@
 import { parseArgs } from './args';
 import { calcCommand, calcUsage } from './calcCommand';
+import { checkCommand, computeCommand, type CaseIo } from './caseCommands';
 import { decisionSupportCaution } from './format';
-import { exitCodes, type CliIo } from './io';
+import { exitCodes } from './io';
 
 const switches = ['--json', '--list', '--help'] as const;
 
@@ -10,6 +11,9 @@ export const usage = `chelation-ledger — decision support for chelation therap
 Commands:
   calc --list [--json]                      every calculator: inputs, units, ranges, sources
   calc <calculator> --<input> <value> ...   run one calculator [--json]
+  check <case.json>                         validate a case file and list its issues
+  compute <case.json> [--as-of YYYY-MM-DD] [--horizon-months N] [--seed N] [--json]
+                                            the iron review: intake, body iron, response, projections
 
 ${calcUsage}
 
@@ -19,7 +23,7 @@ ${decisionSupportCaution}`;
  * Run the command line. Pure apart from the io it is handed, so tests call it
  * directly; app/cli/bin.cjs passes the process streams and exits with the code.
  */
-export function runCli(argv: readonly string[], io: CliIo): number {
+export function runCli(argv: readonly string[], io: CaseIo): number {
   const [command, ...rest] = argv;
   if (command === undefined || command === '--help' || command === 'help') {
     io.out(usage);
@@ -29,6 +33,10 @@ export function runCli(argv: readonly string[], io: CliIo): number {
   switch (command) {
     case 'calc':
       return calcCommand(args, io);
+    case 'check':
+      return checkCommand(args, io);
+    case 'compute':
+      return computeCommand(args, io);
     default:
       io.err(`Unknown command "${command}".\n\n${usage}`);
       return exitCodes.usage;

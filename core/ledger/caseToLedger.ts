@@ -57,6 +57,15 @@ export function periodRemovalMgPerDay(
   });
 }
 
+/**
+ * The method label used to compare two LIC results: an MRI LIC converted here
+ * from R2* and one the MRI report gives are the same method when the field
+ * strength and the calibration are the same.
+ */
+function mriMethod(fieldStrengthT: number, calibrationId: string): string {
+  return `MRI ${fieldStrengthT} T, calibration ${calibrationId}`;
+}
+
 export const efficiencyAssumptionOf = {
   deferoxamine: 'efficiency-deferoxamine',
   deferiprone: 'efficiency-deferiprone',
@@ -145,7 +154,7 @@ export function caseToLedgerInput(caseFile: Case, asOf: string): NormalisedCase 
           : result.measured.unit === 'umol/g{dry}'
             ? licMgPerGDryFromUmolPerGDry(value as UmolPerGDry)
             : value / 1000;
-      const method = result.method === 'biopsy' ? 'biopsy' : `MRI ${result.fieldStrengthT} T (${result.calibrationId})`;
+      const method = result.method === 'biopsy' ? 'biopsy' : mriMethod(result.fieldStrengthT, result.calibrationId);
       licMeasurements.push({ date: result.date, licMgPerGDry, method, ref });
       return;
     }
@@ -163,7 +172,7 @@ export function caseToLedgerInput(caseFile: Case, asOf: string): NormalisedCase 
       notices.push({ severity: 'review', ref, text: `Liver iron of ${result.date} not converted. ${converted.issues.map((it) => it.message).join(' ')}` });
       return;
     }
-    licMeasurements.push({ date: result.date, licMgPerGDry: converted.value, method: `MRI R2* ${result.fieldStrengthT} T (${result.calibrationId})`, ref });
+    licMeasurements.push({ date: result.date, licMgPerGDry: converted.value, method: mriMethod(result.fieldStrengthT, result.calibrationId), ref });
   });
 
   const weights = caseFile.patient.weights.map((it) => ({ date: it.date, weightKg: it.weight.value }));

@@ -5,6 +5,7 @@ import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { parseArgs } from '../../../app/cli/args';
 import { runCli } from '../../../app/cli/main';
+import { readCaseFile } from '../../../app/host/caseFiles';
 import { formulaCatalogue } from '../../../core/formulas/catalogue';
 import { describeFormula, flagForInput } from '../../../core/formulas/describe';
 // @ts-expect-error plain ESM build script without type declarations
@@ -13,7 +14,7 @@ import { buildCli } from '../../../app/build/build-cli.mjs';
 function cli(...argv: string[]) {
   const out: string[] = [];
   const err: string[] = [];
-  const code = runCli(argv, { out: (text) => out.push(text), err: (text) => err.push(text) });
+  const code = runCli(argv, { out: (text) => out.push(text), err: (text) => err.push(text), readCase: readCaseFile, today: () => '2026-12-01' });
   return { code, out: out.join('\n'), err: err.join('\n') };
 }
 

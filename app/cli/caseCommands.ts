@@ -1,0 +1,169 @@
+import { computeCase, type CaseResults } from '../../core/ledger/computeCase';
+import { isIsoDate } from '../../core/dates/isoDate';
+import type { Case } from '../../core/model/caseFile';
+import { formatIssues, type Issue, type Result } from '../../core/result';
+import type { ParsedArgs } from './args';
+import { decisionSupportCaution, formatNumber } from './format';
+import { exitCodes, type CliIo } from './io';
+
+export interface CaseIo extends CliIo {
+  readonly readCase: (path: string) => Result<Case>;
+  /** Today's date 'YYYY-MM-DD', the default review date when the case has none. */
+  readonly today: () => string;
+}
+
+function loadCase(args: ParsedArgs, io: CaseIo, command: string): { path: string; result: Result<Case> } | null {
+  const path = args.positionals[0];
+  if (path === undefined) {
+    io.err(`Usage: chelation-ledger ${command} <case.json>`);
+    return null;
+  }
+  return { path, result: io.readCase(path) };
+}
+
+function printWarnings(warnings: readonly Issue[] | undefined, io: CliIo): void {
+  if (warnings && warnings.length > 0) io.err(formatIssues(warnings));
+}
+
+/** `check <case.json>`: validate and list issues; exit 1 on errors. */
+export function checkCommand(args: ParsedArgs, io: CaseIo): number {
+  const loaded = loadCase(args, io, 'check');
+  if (!loaded) return exitCodes.usage;
+  const { path, result } = loaded;
+  if (!result.ok) {
+    io.err(`${path}: ${result.issues.filter((it) => it.severity === 'error').length} error(s)`);
+    io.err(formatIssues(result.issues));
+    return exitCodes.invalidInput;
+  }
+  const warnings = result.warnings ?? [];
+  io.out(`${path}: valid case file (${result.value.patient.label}), ${warnings.length} warning(s).`);
+  printWarnings(warnings, io);
+  return exitCodes.ok;
+}
+
+function integerOption(args: ParsedArgs, flag: string, min: number, max: number, problems: string[]): number | undefined {
+  const raw = args.options[flag];
+  if (raw === undefined) return undefined;
+  const value = Number(raw);
+  if (!Number.isInteger(value) || value < min || value > max) {
+    problems.push(`${flag}: "${raw}" is not a whole number in ${min}–${max}.`);
+    return undefined;
+  }
+  return value;
+}
+
+/** `compute <case.json> [--as-of DATE] [--horizon-months N] [--seed N] [--json]`. */
+export function computeCommand(args: ParsedArgs, io: CaseIo): number {
+  const loaded = loadCase(args, io, 'compute');
+  if (!loaded) return exitCodes.usage;
+  const { path, result } = loaded;
+  if (!result.ok) {
+    io.err(`${path}: the case file has errors; nothing was computed.`);
+    io.err(formatIssues(result.issues));
+    return exitCodes.invalidInput;
+  }
+  const problems: string[] = [];
+  const known = new Set(['--as-of', '--horizon-months', '--seed']);
+  for (const flag of Object.keys(args.options)) if (!known.has(flag)) problems.push(`${flag}: not an option of compute (--as-of, --horizon-months, --seed, --json).`);
+  for (const flag of args.missingValues) problems.push(`${flag}: a value is missing after the flag.`);
+  const asOf = args.options['--as-of'] ?? result.value.review.reviewDate ?? io.today();
+  if (!isIsoDate(asOf)) problems.push(`--as-of: "${asOf}" is not a calendar date written YYYY-MM-DD.`);
+  const horizonMonths = integerOption(args, '--horizon-months', 1, 120, problems);
+  const seed = integerOption(args, '--seed', 0, 2 ** 31 - 1, problems);
+  if (problems.length > 0) {
+    io.err(problems.join('\n'));
+    return exitCodes.invalidInput;
+  }
+  const computed = computeCase(result.value, asOf, {
+    ...(horizonMonths !== undefined ? { horizonMonths } : {}),
+    ...(seed !== undefined ? { seed } : {}),
+  });
+  if (!computed.ok) {
+    io.err(formatIssues(computed.issues));
+    return exitCodes.invalidInput;
+  }
+  printWarnings(result.warnings, io);
+  io.out(args.switches.has('--json') ? JSON.stringify({ caution: decisionSupportCaution, results: computed.value }, null, 2) : formatResults(computed.value));
+  return exitCodes.ok;
+}
+
+const fmt = (value: number, decimals = 1) => formatNumber(value, decimals);
+
+/** The readable summary of a computed case. */
+export function formatResults(results: CaseResults): string {
+  const lines: string[] = [];
+  const age = results.patient.ageYears === null ? 'age unknown' : `${Math.floor(results.patient.ageYears)} years`;
+  lines.push(`Iron review for ${results.patient.label} (${age}, ${fmt(results.patient.weightKg, 0)} kg, ${results.patient.diagnosisGroup}) as of ${results.asOf}`);
+  lines.push(`  ${decisionSupportCaution}`);
+  lines.push('');
+  const intake = results.intake;
+  lines.push(`Transfusional iron, ${intake.windowFrom} to ${results.asOf} (${intake.windowDays} days):`);
+  lines.push(`  in ${fmt(intake.transfusedMg, 0)} mg, out with removed blood ${fmt(intake.removedWithBloodMg, 0)} mg, net ${fmt(intake.netMg, 0)} mg`);
+  lines.push(`  ${fmt(intake.mgPerKgPerDay, 2)} mg/kg/day — ${intake.band} (Brittenham 2011, Table 2)`);
+  lines.push(`  cumulative net since ${intake.cumulativeSince}: ${fmt(intake.cumulativeNetMg / 1000, 1)} g`);
+  lines.push('');
+  const body = results.bodyIron;
+  if (body.lastMeasured && body.bodyIronMg !== null && body.licMgPerGDry !== null) {
+    lines.push('Body iron:');
+    lines.push(`  last measured LIC ${fmt(body.lastMeasured.licMgPerGDry)} mg/g dry on ${body.lastMeasured.date} (${body.lastMeasured.method})`);
+    lines.push(`  estimated now: LIC ${fmt(body.licMgPerGDry)} mg/g dry, body iron stores ${fmt(body.bodyIronMg / 1000, 2)} g (Angelucci relation, carried forward by the balance)`);
+    lines.push('');
+  }
+  if (results.currentRegimens.length > 0) {
+    lines.push('Current chelation, expected removal at the published efficiency:');
+    for (const regimen of results.currentRegimens) {
+      lines.push(`  ${regimen.label}: ${fmt(regimen.doseMgPerKgPerDay)} mg/kg/day → ${fmt(regimen.expectedRemovalMgPerDay)} mg/day (${fmt(regimen.expectedRemovalMgPerKgPerDay, 2)} mg/kg/day)`);
+    }
+    lines.push('');
+  }
+  if (results.responses.length > 0) {
+    lines.push('Measured response between LIC results (balance method):');
+    for (const response of results.responses) {
+      const ratio = response.measuredToExpectedRatio === null ? 'no chelation expected' : `${fmt(response.measuredToExpectedRatio * 100, 0)} % of expected`;
+      lines.push(
+        `  ${response.fromDate} → ${response.toDate} (${response.days} days): LIC ${fmt(response.fromLicMgPerGDry)} → ${fmt(response.toLicMgPerGDry)}; intake ${fmt(response.intakeMgPerKgPerDay, 2)} mg/kg/day; chelation removal measured ${fmt(response.measuredChelationMgPerKgPerDay, 2)} vs expected ${fmt(response.expectedChelationMgPerKgPerDay, 2)} mg/kg/day (${ratio})`,
+      );
+      for (const caveat of response.caveatText) lines.push(`    caution: ${caveat}`);
+    }
+    lines.push('');
+  }
+  const trend = results.ferritin.trend;
+  if (results.ferritin.latest) {
+    const trendText = trend
+      ? `${trend.direction} ${fmt(Math.abs(trend.changePerYear) * 100, 0)} %/year over ${trend.points} results${trend.doublingDays ? `, doubling in ${fmt(trend.doublingDays / 30.44, 0)} months` : ''}${trend.halvingDays ? `, halving in ${fmt(trend.halvingDays / 30.44, 0)} months` : ''}`
+      : 'too few results in the window for a trend';
+    lines.push(`Ferritin: latest ${fmt(results.ferritin.latest.valueUgPerL, 0)} µg/L on ${results.ferritin.latest.date}; ${trendText}.`);
+    if (results.ferritin.note) lines.push(`  ${results.ferritin.note}`);
+    lines.push('');
+  }
+  if (results.projection) {
+    const projection = results.projection;
+    lines.push(`Projected LIC (mg/g dry; central, 10th–90th percentile band from ${projection.samples} seeded samples, seed ${projection.seed}; future intake ${fmt(projection.intakeMgPerDay)} mg/day):`);
+    for (const scenario of projection.scenarios) {
+      const points = [6, 12, 24, projection.horizonMonths]
+        .filter((months, index, all) => months <= projection.horizonMonths && all.indexOf(months) === index)
+        .map((months) => {
+          const month = scenario.months[months]!;
+          return `${months} mo ${fmt(month.licMgPerGDry)} (${fmt(month.licP10)}–${fmt(month.licP90)})`;
+        });
+      lines.push(`  ${scenario.name} [${scenario.efficiencyBasis} efficiency; net ${fmt(scenario.netMgPerKgPerDay, 2)} mg/kg/day]: ${points.join('; ')}`);
+      for (const crossing of scenario.crossings) {
+        if (crossing.monthsAhead !== null) {
+          lines.push(`    at this regimen the projected LIC ${crossing.direction} ${crossing.thresholdMgPerGDry} at about ${crossing.monthsAhead} months (${crossing.date}); band ${crossing.bandEarliestMonths ?? '–'} to ${crossing.bandLatestMonths ?? `beyond ${projection.horizonMonths}`} months`);
+        }
+      }
+    }
+    lines.push('');
+  }
+  if (results.notices.length > 0) {
+    lines.push('Notes:');
+    for (const notice of results.notices) lines.push(`  ${notice.severity === 'review' ? 'review: ' : ''}${notice.text}`);
+    lines.push('');
+  }
+  lines.push('Assumptions used:');
+  for (const assumption of results.assumptions) {
+    const origin = assumption.origin.overridden ? `overridden: ${assumption.origin.reason}` : 'published default';
+    lines.push(`  ${assumption.label}: ${assumption.value}${assumption.unit === '1' ? '' : ` ${assumption.unit}`} (${origin})`);
+  }
+  return lines.join('\n');
+}
