@@ -34,7 +34,11 @@ let skipped = 0;
 if (existsSync(jsonPath)) {
   const report = JSON.parse(readFileSync(jsonPath, 'utf8'));
   passed = report.numPassedTests ?? 0;
-  failed = (report.numFailedTests ?? 0) + (report.numFailedTestSuites ?? 0);
+  // A file that fails to load has no test results of its own: count it once.
+  const brokenFiles = (report.testResults ?? []).filter(
+    (file) => file.status === 'failed' && (file.assertionResults ?? []).length === 0,
+  ).length;
+  failed = (report.numFailedTests ?? 0) + brokenFiles;
   skipped = (report.numPendingTests ?? 0) + (report.numTodoTests ?? 0);
 } else {
   failed += 1;

@@ -1,6 +1,7 @@
 import { spawnSync } from 'node:child_process';
-import { mkdtempSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { mkdirSync, mkdtempSync, rmSync } from 'node:fs';
+import { dirname } from 'node:path';
+import { fileURLToPath } from 'node:url';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { parseArgs } from '../../../app/cli/args';
@@ -10,6 +11,9 @@ import { formulaCatalogue } from '../../../core/formulas/catalogue';
 import { describeFormula, flagForInput } from '../../../core/formulas/describe';
 // @ts-expect-error plain ESM build script without type declarations
 import { buildCli } from '../../../app/build/build-cli.mjs';
+
+const projectRoot = fileURLToPath(new URL('../../..', import.meta.url));
+mkdirSync(join(projectRoot, 'dist'), { recursive: true });
 
 function cli(...argv: string[]) {
   const out: string[] = [];
@@ -115,7 +119,8 @@ describe('calc <calculator>', () => {
 
 describe('the built command line', () => {
   it('runs from the single-file bundle that npm install builds', async () => {
-    const outfile = join(mkdtempSync(join(tmpdir(), 'cl-cli-')), 'cli.cjs');
+    // Inside the project, so the bundle finds its external runtime dependencies in node_modules.
+    const outfile = join(mkdtempSync(join(projectRoot, 'dist', 'test-cli-')), 'cli.cjs');
     await buildCli(outfile);
     const run = spawnSync(process.execPath, [outfile, 'calc', 'transfusion-iron', '--volume-ml', '300', '--unit-haematocrit', '0.65'], {
       encoding: 'utf8',
@@ -129,5 +134,6 @@ describe('the built command line', () => {
     expect(bad.status).toBe(1);
     expect(bad.stdout).toBe('');
     expect(bad.stderr).toContain('--volume-ml: Volume transfused -5 mL is outside the plausible range 1–10000 mL.');
+    rmSync(dirname(outfile), { recursive: true, force: true });
   });
 });
