@@ -130,7 +130,7 @@ function formatDescription(description: FormulaDescription): string {
         : `${input.unit === '1' ? 'fraction' : input.unit}, ${formatPlain(input.min!)}–${formatPlain(input.max!)}`;
     const fallback =
       input.default !== undefined ? `; default ${input.default}${input.defaultFrom ? ` (${input.defaultFrom})` : ''}` : '';
-    const needed = input.required ? '' : input.default === undefined ? '; optional' : '';
+    const needed = input.usedWhen ? `; used only with ${input.usedWhen}` : input.required ? '' : input.default === undefined ? '; optional' : '';
     return `    ${input.flag} <${domain}>  ${input.meaning}${fallback}${needed}`;
   });
   const outputs = description.outputs.map((it) => `    ${it.name} (${it.unit === '' ? 'text' : it.unit})  ${it.meaning}`);

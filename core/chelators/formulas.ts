@@ -70,7 +70,7 @@ const filmCoatedFactorInput = {
   meaning: 'film-coated dose as a fraction of the dispersible-tablet dose',
 } as const;
 
-const efficiencyInput = (ligand: string, assumption: string) =>
+const efficiencyInput = (ligand: string, assumption: string, products: readonly string[]) =>
   ({
     kind: 'number',
     label: `chelation efficiency of ${ligand}`,
@@ -78,7 +78,8 @@ const efficiencyInput = (ligand: string, assumption: string) =>
     min: 0.01,
     max: 0.6,
     assumption,
-    meaning: `share of a ${ligand} dose excreted as iron complex; used only when ${ligand} is the chelator`,
+    usedWhen: { input: 'chelator', oneOf: products },
+    meaning: `share of a ${ligand} dose excreted as iron complex`,
   }) as const;
 
 export const expectedExcretion = defineFormula({
@@ -98,10 +99,10 @@ export const expectedExcretion = defineFormula({
     weightKg: weightKgInput,
     daysPerWeek: { kind: 'number', label: 'dosing days per week', unit: 'd/wk', min: 1, max: 7, integer: true, default: 7, meaning: 'days a week the chelator is given' },
     adherence: { kind: 'number', label: 'adherence', unit: '1', min: 0, max: 1, default: 1, meaning: 'share of prescribed doses taken, as a fraction' },
-    efficiencyDeferoxamine: efficiencyInput('deferoxamine', 'efficiency-deferoxamine'),
-    efficiencyDeferiprone: efficiencyInput('deferiprone', 'efficiency-deferiprone'),
-    efficiencyDeferasirox: efficiencyInput('deferasirox', 'efficiency-deferasirox'),
-    filmCoatedFactor: { ...filmCoatedFactorInput, meaning: `${filmCoatedFactorInput.meaning}; used only for film-coated deferasirox` },
+    efficiencyDeferoxamine: efficiencyInput('deferoxamine', 'efficiency-deferoxamine', ['deferoxamine']),
+    efficiencyDeferiprone: efficiencyInput('deferiprone', 'efficiency-deferiprone', ['deferiprone']),
+    efficiencyDeferasirox: efficiencyInput('deferasirox', 'efficiency-deferasirox', ['deferasirox-dispersible', 'deferasirox-film-coated']),
+    filmCoatedFactor: { ...filmCoatedFactorInput, usedWhen: { input: 'chelator', oneOf: ['deferasirox-film-coated'] } },
   },
   outputs: {
     excretionMgPerDay: { label: 'expected iron excretion', unit: 'mg/d', meaning: 'mean over the week', decimals: 1 },
@@ -121,19 +122,22 @@ export const expectedExcretion = defineFormula({
       deferiprone: inputs.efficiencyDeferiprone,
       deferasirox: inputs.efficiencyDeferasirox,
     } as const;
-    const efficiency = efficiencyByLigand[chelator.ligandId];
+    // usedWhen guarantees the chosen chelator's efficiency (and, for film-coated
+    // deferasirox, the factor) is present; the others are undefined and unused.
+    const efficiency = efficiencyByLigand[chelator.ligandId]!;
+    const filmCoatedFactor = inputs.filmCoatedFactor ?? 1;
     const excretionMgPerDay = expectedIronExcretionMgPerDay({
       chelatorId: chelator.id,
       doseMgPerDosingDay: mg(inputs.doseMgPerKgPerDosingDay * inputs.weightKg),
       daysPerWeek: inputs.daysPerWeek,
       adherence: fraction(inputs.adherence),
       efficiency: fraction(efficiency),
-      efficiencyDoseFactor: fraction(inputs.filmCoatedFactor),
+      efficiencyDoseFactor: fraction(filmCoatedFactor),
     });
     const basisDose =
       chelator.efficiencyDoseFactorAssumptionId === undefined
         ? inputs.doseMgPerKgPerDosingDay
-        : inputs.doseMgPerKgPerDosingDay / inputs.filmCoatedFactor;
+        : inputs.doseMgPerKgPerDosingDay / filmCoatedFactor;
     return {
       excretionMgPerDay,
       excretionMgPerKgPerDay: excretionMgPerDay / inputs.weightKg,

@@ -16,6 +16,8 @@ export interface InputDescription {
   readonly required: boolean;
   readonly default?: number | string;
   readonly defaultFrom?: string;
+  /** When the input applies only for some values of a choice. */
+  readonly usedWhen?: string;
 }
 
 export interface FormulaDescription {
@@ -55,8 +57,9 @@ function describeInput(name: string, spec: InputSpec): InputDescription {
     unit: spec.unit,
     min: spec.min,
     max: spec.max,
-    required: fallback === undefined && !spec.optional,
+    required: fallback === undefined && !spec.optional && spec.usedWhen === undefined,
     ...(fallback !== undefined ? { default: fallback } : {}),
+    ...(spec.usedWhen ? { usedWhen: `${flagForInput(spec.usedWhen.input)} ${spec.usedWhen.oneOf.join(' | ')}` } : {}),
     ...(assumption ? { defaultFrom: `assumption ${assumption.id}` } : {}),
   };
 }

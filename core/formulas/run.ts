@@ -39,7 +39,12 @@ export function runFormula<Inputs extends InputSpecs, Outputs extends OutputSpec
       name,
       label: spec.label,
       value: validated.value.values[name]!,
-      unit: spec.kind === 'number' ? spec.unit : '',
+      unit:
+        spec.kind !== 'number'
+          ? ''
+          : spec.unitFrom !== undefined && typeof validated.value.values[spec.unitFrom] === 'string'
+            ? (validated.value.values[spec.unitFrom] as string)
+            : spec.unit,
       origin: validated.value.origins[name]!,
     }));
   const outputs: DerivedValue[] = Object.entries(formula.outputs).map(([name, spec]) => ({

@@ -23,6 +23,17 @@ export interface NumberInputSpec {
   readonly assumption?: string;
   /** Optional inputs may be absent; compute receives undefined. */
   readonly optional?: boolean;
+  /**
+   * The name of a choice input that says the unit this number was entered in
+   * (creatinine in mg/dL or µmol/L). Derivations then show the chosen unit.
+   */
+  readonly unitFrom?: string;
+  /**
+   * The input only applies when another (choice) input has one of these values
+   * (the efficiency of the chosen chelator). Otherwise it is not read, not
+   * defaulted and not listed in the derivation; compute receives undefined.
+   */
+  readonly usedWhen?: { readonly input: string; readonly oneOf: readonly string[] };
 }
 
 export interface ChoiceInputSpec<Choice extends string = string> {
@@ -52,7 +63,7 @@ export type OutputSpecs = Readonly<Record<string, OutputSpec>>;
 type ValueOf<Spec extends InputSpec> = Spec extends ChoiceInputSpec<infer Choice> ? Choice : number;
 
 export type InputValues<Specs extends InputSpecs> = {
-  readonly [Name in keyof Specs]: Specs[Name] extends { optional: true }
+  readonly [Name in keyof Specs]: Specs[Name] extends { optional: true } | { usedWhen: object }
     ? ValueOf<Specs[Name]> | undefined
     : ValueOf<Specs[Name]>;
 };

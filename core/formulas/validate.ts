@@ -62,6 +62,17 @@ function checkChoice(name: string, raw: unknown, spec: ChoiceInputSpec): Issue[]
   return [];
 }
 
+/** Whether a conditional input applies, judged on the raw (or default) value of the choice it depends on. */
+function isUsed(
+  usedWhen: NonNullable<NumberInputSpec['usedWhen']>,
+  raw: Readonly<Record<string, unknown>>,
+  specs: InputSpecs,
+): boolean {
+  const choice = specs[usedWhen.input];
+  const value = raw[usedWhen.input] ?? (choice?.kind === 'choice' ? choice.default : undefined);
+  return typeof value === 'string' && usedWhen.oneOf.includes(value);
+}
+
 function toNumber(raw: unknown): number {
   if (typeof raw === 'number') return raw;
   if (typeof raw === 'string' && raw.trim() !== '') return Number(raw.trim());
@@ -91,6 +102,15 @@ export function validateInputs(
   const issues: Issue[] = [];
   for (const [name, spec] of Object.entries(specs)) {
     const supplied = raw[name];
+    if (spec.kind === 'number' && spec.usedWhen && !isUsed(spec.usedWhen, raw, specs)) {
+      if (supplied !== undefined && supplied !== null && supplied !== '') {
+        const condition = specs[spec.usedWhen.input]?.label ?? spec.usedWhen.input;
+        issues.push(
+          issue('not_applicable', [name], `${capitalise(spec.label)} applies only when ${condition} is ${spec.usedWhen.oneOf.join(' or ')}.`),
+        );
+      }
+      continue;
+    }
     const present = supplied !== undefined && supplied !== null && supplied !== '';
     if (spec.kind === 'choice') {
       if (present) {

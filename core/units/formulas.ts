@@ -86,6 +86,7 @@ export function labValueInput<Unit extends string>(quantity: LabQuantity<Unit>):
     unit: quantity.units.join(' or '),
     min: Math.min(...mins),
     max: Math.max(...maxes),
+    unitFrom: quantity.unitName,
     meaning: `${quantity.label} in the unit chosen with ${quantity.label} unit: ${rangesText(quantity)}`,
   };
 }

@@ -97,7 +97,10 @@ describe('calc <calculator>', () => {
     for (const input of describeFormula(formula).inputs.filter((it) => it.kind === 'number')) {
       it(`${formula.id} refuses ${input.flag} above its range`, () => {
         const tooHigh = input.max! * 10 + 1000;
-        const { code, out, err } = cli('calc', formula.id, input.flag, String(tooHigh));
+        // A conditional input is only read when its choice enables it: pass that choice.
+        const spec = formula.inputs[input.name];
+        const enabling = spec?.kind === 'number' && spec.usedWhen ? [flagForInput(spec.usedWhen.input), spec.usedWhen.oneOf[0]!] : [];
+        const { code, out, err } = cli('calc', formula.id, ...enabling, input.flag, String(tooHigh));
         expect(code).toBe(1);
         expect(out).toBe('');
         expect(err).toContain(`${input.flag}: `);
