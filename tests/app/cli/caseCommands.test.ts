@@ -1,0 +1,76 @@
+import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { runCli } from '../../../app/cli/main';
+import { readCaseFile } from '../../../app/host/caseFiles';
+
+const demo = (name: string) => new URL(`../../../assets/demo/${name}.json`, import.meta.url).pathname;
+
+function cli(...argv: string[]) {
+  const out: string[] = [];
+  const err: string[] = [];
+  const code = runCli(argv, { out: (text) => out.push(text), err: (text) => err.push(text), readCase: readCaseFile, today: () => '2026-12-01' });
+  return { code, out: out.join('\n'), err: err.join('\n') };
+}
+
+describe('check', () => {
+  it('accepts the demo cases', () => {
+    for (const name of ['th-0417', 'th-0093']) {
+      const { code, out } = cli('check', demo(name));
+      expect(code).toBe(0);
+      expect(out).toContain('valid case file');
+    }
+  });
+
+  it('lists the issues of a broken file and exits 1, naming the field, the value and the range', () => {
+    const broken = JSON.parse(readFileSync(demo('th-0417'), 'utf8'));
+    broken.transfusions[3].unitHaematocrit = 60;
+    const dir = mkdtempSync(join(tmpdir(), 'cl-case-'));
+    const path = join(dir, 'broken.json');
+    writeFileSync(path, JSON.stringify(broken));
+    const { code, err } = cli('check', path);
+    expect(code).toBe(1);
+    expect(err).toContain('transfusions[3].unitHaematocrit 60 is outside 0.40–0.85; enter it as a fraction (0.60).');
+  });
+
+  it('says what is wrong with a missing file or bad JSON', () => {
+    expect(cli('check', '/nonexistent/case.json').err).toContain('no such file');
+    const dir = mkdtempSync(join(tmpdir(), 'cl-case-'));
+    writeFileSync(join(dir, 'bad.json'), '{ "format": ');
+    const bad = cli('check', join(dir, 'bad.json'));
+    expect(bad.code).toBe(1);
+    expect(bad.err).toContain('is not valid JSON');
+  });
+});
+
+describe('compute', () => {
+  it('prints the readable review of TH-0417 on its review date', () => {
+    const { code, out } = cli('compute', demo('th-0417'));
+    expect(code).toBe(0);
+    expect(out).toContain('Iron review for TH-0417');
+    expect(out).toContain('as of 2026-11-20');
+    expect(out).toContain('for review by the prescriber');
+    expect(out).toContain('Measured response between LIC results');
+    expect(out).toContain('Projected LIC');
+  });
+
+  it('gives the full results as JSON with the same seed repeating exactly', () => {
+    const first = cli('compute', demo('th-0093'), '--json', '--seed', '7', '--horizon-months', '12');
+    const second = cli('compute', demo('th-0093'), '--json', '--seed', '7', '--horizon-months', '12');
+    expect(first.code).toBe(0);
+    expect(second.out).toBe(first.out);
+    const parsed = JSON.parse(first.out);
+    expect(parsed.results.projection.horizonMonths).toBe(12);
+    expect(parsed.results.projection.seed).toBe(7);
+    expect(parsed.results.intake.derivation.formulaId).toBe('iron-intake-rate');
+  });
+
+  it('refuses bad options with the flag and the accepted range, and computes nothing', () => {
+    const { code, out, err } = cli('compute', demo('th-0093'), '--as-of', '2026-02-30', '--horizon-months', '500');
+    expect(code).toBe(1);
+    expect(out).toBe('');
+    expect(err).toContain('--as-of: "2026-02-30" is not a calendar date');
+    expect(err).toContain('--horizon-months: "500" is not a whole number in 1–120.');
+  });
+});
