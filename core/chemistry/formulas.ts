@@ -1,6 +1,9 @@
+import { chelatorIds } from '../chelators/catalogue';
 import { findSource } from '../references';
 import { issue, type Issue } from '../result';
 import { defineFormula, type AnyFormula, type Refusal } from '../formulas/types';
+import { kg, mg, mgPerKgPerDay } from '../units/quantity';
+import { capacityComparisonRow, capacityMetalIds } from './capacityComparison';
 import { conditionalConstant } from './conditionalConstant';
 import { logLigandFraction } from './ligandFraction';
 import { constantSetIds, findConstantSet } from './sets';
@@ -259,10 +262,78 @@ export const metalCompetitionFormula = defineFormula({
   },
 });
 
+export const capacityAndPmFormula = defineFormula({
+  id: 'capacity-and-pm',
+  title: 'Metal a day\'s chelator dose can bind, beside the ligand\'s pM at pH 7.4',
+  expression:
+    'metal bound (mg) = dose (mg) / M(chelator as dosed) / (chelator : metal ratio) × Ar(metal); pM = −log₁₀[M free] at pH 7.4, 1 µM metal, 10 µM ligand',
+  sourceIds: ['poggiali-2012', 'ciaaw-2021', 'deferoxamine-aluminium-memory', ...solverSourceIds, 'nurchi-2015'],
+  notes: [
+    'Two different questions side by side: how much metal the dose could hold at full stoichiometry (a ceiling; excretion is a fraction of it), and how firmly the ligand holds the metal at plasma pH.',
+    'pM of deferasirox is the published value (22.5, Nurchi et al. 2015), marked "literature value, not computed": its iron constants are unconfirmed.',
+    'Enter the dose on a dosing day in mg/kg/day with the body weight, or in mg.',
+  ],
+  inputs: {
+    chelator: { kind: 'choice', label: 'chelator', choices: chelatorIds, meaning: 'the product as dosed' },
+    metal: { kind: 'choice', label: 'metal', choices: capacityMetalIds, default: 'Fe3+', meaning: 'Fe3+, or Al3+ (catalogued for deferoxamine)' },
+    doseMgPerKgPerDay: { kind: 'number', label: 'dose on a dosing day', unit: 'mg/kg/d', min: 0.5, max: 150, optional: true, meaning: 'mg/kg of the form the product is dosed as' },
+    weightKg: { kind: 'number', label: 'body weight', unit: 'kg', min: 1, max: 250, optional: true, meaning: 'body weight for the mg/kg dose' },
+    doseMg: { kind: 'number', label: 'dose', unit: 'mg', min: 1, max: 20000, optional: true, meaning: 'dose on a dosing day, mg of the form the product is dosed as' },
+    constantSet: { ...constantSetInput, optional: true, meaning: "the ligand's constant set (default: its default set)" },
+  },
+  outputs: {
+    doseMg: { label: 'dose', unit: 'mg', meaning: 'dose used, mg (mg/kg/day × weight when given that way)', decimals: 0 },
+    metalBoundMg: { label: 'metal bound at full stoichiometry', unit: 'mg', meaning: 'theoretical ceiling of metal held by the dose', decimals: 1 },
+    capacityMgPerG: { label: 'binding capacity', unit: 'mg/g', meaning: 'mg of metal per g of chelator as dosed', decimals: 1 },
+    pM: { label: 'pM at pH 7.4', unit: '1', meaning: '−log₁₀ free metal under the standard convention', decimals: 2 },
+    pmBasis: { label: 'pM basis', unit: '', kind: 'text', meaning: 'computed from the named set, or a literature value not computed' },
+    constantSet: constantSetOutput,
+  },
+  compute: (inputs) => {
+    const refused: Issue[] = [];
+    if (inputs.doseMg !== undefined && inputs.doseMgPerKgPerDay !== undefined) {
+      refused.push(issue('inconsistent', ['doseMgPerKgPerDay'], `Enter the dose either in mg (${inputs.doseMg} mg given) or in mg/kg/day with the weight, not both.`));
+    } else if (inputs.doseMg === undefined && inputs.doseMgPerKgPerDay === undefined) {
+      refused.push(issue('required', ['doseMgPerKgPerDay'], 'Dose is required: in mg/kg/day (0.5–150) with the body weight, or in mg (1–20000).'));
+    } else if (inputs.doseMgPerKgPerDay !== undefined && inputs.weightKg === undefined) {
+      refused.push(issue('required', ['weightKg'], `Body weight is required with a dose of ${inputs.doseMgPerKgPerDay} mg/kg/day (1–250 kg).`));
+    }
+    if (refused.length > 0) return { refused };
+    const set = inputs.constantSet === undefined ? undefined : setOrThrow(inputs.constantSet);
+    const row = capacityComparisonRow(
+      {
+        chelatorId: inputs.chelator,
+        ...(inputs.doseMg !== undefined ? { doseMg: mg(inputs.doseMg) } : {}),
+        ...(inputs.doseMgPerKgPerDay !== undefined ? { doseMgPerKgPerDay: mgPerKgPerDay(inputs.doseMgPerKgPerDay), weightKg: kg(inputs.weightKg!) } : {}),
+        doseBasis: 'entered',
+      },
+      inputs.metal,
+      set,
+    );
+    if (!row.ok) return { refused: row.issues };
+    const { capacityMgPerG, metalBoundMg, doseMg, pm } = row.value;
+    if (capacityMgPerG === null || metalBoundMg === null || doseMg === null) {
+      return { refused: [issue('not_applicable', ['metal'], row.value.capacityNote)] };
+    }
+    if (pm.pM === undefined) {
+      return { refused: [issue('not_applicable', ['metal'], `No pM for ${inputs.metal} with ${pm.setId}: ${pm.note}`)] };
+    }
+    return {
+      doseMg,
+      metalBoundMg,
+      capacityMgPerG,
+      pM: pm.pM,
+      pmBasis: pm.basis === 'computed' ? 'computed at pH 7.4, 1 µM metal, 10 µM ligand' : `literature value, not computed (${pm.sourceIds.join(', ')})`,
+      constantSet: describeConstantSet(findConstantSet(pm.setId)!),
+    };
+  },
+});
+
 /** Every chemistry formula, in the order `calc --list` shows them. */
 export const chemistryFormulas: readonly AnyFormula[] = [
   ligandFractionFormula,
   conditionalConstantFormula,
   pmFormula,
   metalCompetitionFormula,
+  capacityAndPmFormula,
 ];

@@ -16,5 +16,23 @@ export {
 export { speciate, type Speciation, type MetalSpeciation, type MetalTotal } from './speciation';
 export { pmSweep, conditionalConstantSweep, phGrid, type SweepPoint } from './phSweep';
 export { pmComparisonAtPhysiologicalPh, type PmComparisonRow } from './pmComparison';
+export {
+  capacityComparison,
+  capacityComparisonRow,
+  usualDailyDoseOf,
+  capacityMetalIds,
+  type CapacityMetalId,
+  type CapacityComparisonRow,
+  type ChelatorDailyDose,
+  type CapacityPm,
+} from './capacityComparison';
+export {
+  leadCalciumCompetition,
+  plasmaIonizedCalciumUmolPerL,
+  illustrativeEdetateUmolPerL,
+  type LeadCalciumCompetition,
+  type LeadCalciumState,
+  type LeadCalciumOptions,
+} from './calciumCompetition';
 export { speciesName, elementOf } from './speciesName';
-export { chemistryFormulas, describeConstantSet } from './formulas';
+export { chemistryFormulas, describeConstantSet, capacityAndPmFormula } from './formulas';

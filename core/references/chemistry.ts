@@ -167,4 +167,23 @@ export const chemistrySources = [
     status: 'memory',
     note: 'Section number from memory. Used for the convergence argument of the speciation solver.',
   },
+  {
+    id: 'ionized-calcium-interval-2004',
+    authors: 'authors of the SciELO abstract (not recorded here)',
+    title: 'Serum ionized calcium: reference interval estimation and blood collection conditions',
+    publication: 'J Bras Patol Med Lab (SciELO, scielo.br/j/jbpml)',
+    year: null,
+    locator: 'abstract: central 95 % of 11,320 consecutive determinations (2000–2002, ion-selective electrode), 1.11 to 1.40 mmol/L',
+    status: 'confirmed',
+    note: 'Abstract seen; authors, volume and year not recorded. The illustration uses 1.2 mmol/L, inside this interval; about half of the total plasma calcium (about 2.5 mmol/L) is ionized (common practice).',
+  },
+  {
+    id: 'mmwr-2006-edetate',
+    authors: 'Centers for Disease Control and Prevention',
+    title: 'Deaths associated with hypocalcemia from chelation therapy — Texas, Pennsylvania, and Oregon, 2003–2005',
+    publication: 'MMWR Morb Mortal Wkly Rep 2006;55:204-207',
+    year: 2006,
+    status: 'confirmed',
+    note: 'Fatal hypocalcaemia when edetate disodium was given in place of calcium disodium edetate (references.md §7, confirmed); title as recalled (from memory).',
+  },
 ] as const satisfies readonly Source[];
