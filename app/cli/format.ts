@@ -1,3 +1,5 @@
+import { displayUnit } from '../../core/units/displayUnit';
+
 /**
  * Format a number for a reader: fixed decimals for ordinary magnitudes,
  * three significant figures for small ones (so 0.0123 does not print as 0.01),
@@ -22,10 +24,19 @@ export function formatPlain(value: number): string {
   return String(Number(value.toPrecision(10)));
 }
 
-/** "280 mL", "0.6" for a fraction, "positive" for text. */
+/** "280 mL", "0.6" for a fraction, "positive" for text; UCUM codes shown as a reader writes them. */
 export function withUnit(value: number | string, unit: string, decimals?: number): string {
   const text = typeof value === 'number' ? formatNumber(value, decimals) : value;
-  return unit === '' || unit === '1' ? text : `${text} ${unit}`;
+  const shown = displayUnit(unit);
+  return shown === '' ? text : `${text} ${shown}`;
+}
+
+/**
+ * Six significant figures: enough to check a number by hand, without binary noise.
+ * @example formatReadable(-97.49891528) === '-97.4989'
+ */
+export function formatReadable(value: number): string {
+  return String(Number(value.toPrecision(6)));
 }
 
 export const decisionSupportCaution =

@@ -1,6 +1,7 @@
 import { parseArgs } from './args';
 import { calcCommand, calcUsage } from './calcCommand';
 import { checkCommand, computeCommand, type CaseIo } from './caseCommands';
+import { explainCommand } from './explainCommand';
 import { decisionSupportCaution } from './format';
 import { exitCodes } from './io';
 
@@ -14,6 +15,7 @@ Commands:
   check <case.json>                         validate a case file and list its issues
   compute <case.json> [--as-of YYYY-MM-DD] [--horizon-months N] [--seed N] [--json]
                                             the iron review: intake, body iron, response, projections
+  explain <case.json> [<result>] [--json]   how one result was computed: inputs, formula, sources
 
 ${calcUsage}
 
@@ -37,6 +39,8 @@ export function runCli(argv: readonly string[], io: CaseIo): number {
       return checkCommand(args, io);
     case 'compute':
       return computeCommand(args, io);
+    case 'explain':
+      return explainCommand(args, io);
     default:
       io.err(`Unknown command "${command}".\n\n${usage}`);
       return exitCodes.usage;

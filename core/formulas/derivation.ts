@@ -19,10 +19,27 @@ export type Origin =
       readonly by?: string;
       readonly at?: string;
     }
-  /** A total or a pick from the case record (e.g. the sum of the transfusions in a window), with the entries it used. */
-  | { readonly kind: 'record'; readonly description: string; readonly refs: readonly string[] }
+  /**
+   * A total or a pick from the case record (e.g. the sum of the transfusions in a window),
+   * with the entries it used and the published assumptions that went into it.
+   */
+  | {
+      readonly kind: 'record';
+      readonly description: string;
+      readonly refs: readonly string[];
+      readonly assumptions?: readonly AssumptionUse[];
+    }
   /** The output of another formula. */
   | { readonly kind: 'computed'; readonly derivation: Derivation };
+
+/** An assumption as used inside a record total: its value and whether it was overridden. */
+export interface AssumptionUse {
+  readonly assumptionId: string;
+  readonly value: number;
+  readonly overridden: boolean;
+  readonly reason?: string;
+  readonly by?: string;
+}
 
 export interface DerivedValue {
   readonly name: string;

@@ -72,3 +72,38 @@ export function projectedLic(
   const stores = Math.max(0, startBodyIronMg + days * (intakeMgPerDay - removalMgPerDay - basalLossMgPerDay));
   return stores / (angelucciSlopeMgPerKgPerMgPerGDry * weightKg);
 }
+
+/**
+ * Iron in the red cells transfused and removed over a window.
+ *
+ * iron in (mg) = Σ volume × unit haematocrit (mL of pure red cells) × iron per mL of pure red cells
+ * iron out (mg) = Σ volume removed × patient haematocrit × iron per mL (exchange, venesection)
+ *
+ * Source: the standard method (references.md §1); iron per mL of pure red
+ * cells is the assumption 'iron-per-ml-red-cells' (1.08 mg/mL, Cohen, Glimm &
+ * Porter, Blood 2008;111:583).
+ *
+ * @example netTransfusionalIron(336, 0, 1.08) → { ironInMg: 362.88, ironOutMg: 0, netMg: 362.88 }
+ */
+export function netTransfusionalIron(
+  redCellsInMl: number,
+  redCellsOutMl: number,
+  ironPerMlRedCellsMg: number,
+): { readonly ironInMg: number; readonly ironOutMg: number; readonly netMg: number } {
+  const ironInMg = redCellsInMl * ironPerMlRedCellsMg;
+  const ironOutMg = redCellsOutMl * ironPerMlRedCellsMg;
+  return { ironInMg, ironOutMg, netMg: ironInMg - ironOutMg };
+}
+
+/**
+ * Net iron balance over a number of days.
+ *
+ * net (mg) = transfusional net (mg) − chelation removal (mg) − basal loss (mg/day) × days
+ *
+ * Source: mass balance; basal loss about 1 mg/day (Hunt et al., Am J Clin Nutr 2009).
+ *
+ * @example netIronBalanceMg(1000, 600, 1, 100) === 300
+ */
+export function netIronBalanceMg(transfusionalNetMg: number, chelationRemovalMg: number, basalLossMgPerDay: number, days: number): number {
+  return transfusionalNetMg - chelationRemovalMg - basalLossMgPerDay * days;
+}

@@ -102,15 +102,16 @@ export function caseToLedgerInput(caseFile: Case, asOf: string): NormalisedCase 
     if (entry.date > asOf) return;
     const ref = `transfusions[${index}] ${entry.date}`;
     if (entry.kind === 'venesection') {
-      movements.push({ date: entry.date, ironInMg: 0, ironOutMg: entry.volumeRemoved.value * entry.patientHaematocrit * ironPerMl.value, ref });
+      const redCellsOutMl = entry.volumeRemoved.value * entry.patientHaematocrit;
+      movements.push({ date: entry.date, ironInMg: 0, ironOutMg: redCellsOutMl * ironPerMl.value, ref, redCellsInMl: 0, redCellsOutMl });
       return;
     }
     const haematocrit = entry.unitHaematocrit ?? defaultHaematocrit.value;
     if (entry.unitHaematocrit === null) assumedHaematocritCount += 1;
     const volumeInMl = entry.kind === 'simple' ? entry.volume.value : entry.volumeIn.value;
-    const ironInMg = volumeInMl * haematocrit * ironPerMl.value;
-    const ironOutMg = entry.kind === 'exchange' ? entry.volumeRemoved.value * entry.patientHaematocrit * ironPerMl.value : 0;
-    movements.push({ date: entry.date, ironInMg, ironOutMg, ref });
+    const redCellsInMl = volumeInMl * haematocrit;
+    const redCellsOutMl = entry.kind === 'exchange' ? entry.volumeRemoved.value * entry.patientHaematocrit : 0;
+    movements.push({ date: entry.date, ironInMg: redCellsInMl * ironPerMl.value, ironOutMg: redCellsOutMl * ironPerMl.value, ref, redCellsInMl, redCellsOutMl });
   });
   if (assumedHaematocritCount > 0) {
     used.set(defaultHaematocrit.id, defaultHaematocrit);

@@ -2,7 +2,7 @@ import { resolveAssumption, type ResolvedAssumption } from '../assumptions';
 import { chelatorIdOf, describePeriod, efficiencyAssumptionOf, caseToLedgerInput, periodRemovalMgPerDay, type LedgerNotice } from './caseToLedger';
 import { expectedExcretion } from '../chelators/formulas';
 import { addDaysIso, daysBetween, type IsoDate } from '../dates/isoDate';
-import type { Derivation } from '../formulas/derivation';
+import type { AssumptionUse, Derivation } from '../formulas/derivation';
 import { runTrusted } from '../formulas/run';
 import { ironIntakeRate } from '../iron/formulas';
 import { intakeBand } from '../iron/intakeBand';
@@ -10,7 +10,7 @@ import type { Case, ChelationPeriod } from '../model/caseFile';
 import { ageInDecimalYears } from '../patient/age';
 import { fail, issue, ok, type Result } from '../result';
 import type { MgPerKgPerDay } from '../units/quantity';
-import { bodyIronCarriedForward, measuredChelation, projectedLicFormula } from './formulas';
+import { bodyIronCarriedForward, measuredChelation, netIronBalance, netTransfusionalIronFormula, projectedLicFormula } from './formulas';
 import { computeIronAccount, sumDaily, type MonthOfAccount } from './ironAccount';
 import { logLinearTrend, type LogLinearTrend } from './logLinearTrend';
 import { measuredResponses, type MeasuredResponse } from './measuredResponse';
@@ -86,6 +86,16 @@ export interface CaseResults {
 
 const trailingDays = 365;
 
+function assumptionUse(assumption: ResolvedAssumption): AssumptionUse {
+  return {
+    assumptionId: assumption.id,
+    value: assumption.value,
+    overridden: assumption.origin.overridden,
+    ...(assumption.origin.reason !== undefined ? { reason: assumption.origin.reason } : {}),
+    ...(assumption.origin.by !== undefined ? { by: assumption.origin.by } : {}),
+  };
+}
+
 /**
  * The whole iron review of one case on a review date: intake over the
  * trailing year, the month-by-month account, the body iron estimate, the
@@ -108,13 +118,41 @@ export function computeCase(caseFile: Case, asOf: IsoDate, options: ComputeOptio
   if (!Number.isInteger(horizonMonths) || horizonMonths < 1 || horizonMonths > 120) {
     return fail(issue('out_of_range', ['horizonMonths'], `Projection horizon ${horizonMonths} months is outside 1–120 months.`));
   }
+  const overrides = caseFile.assumptionOverrides;
   const normalised = caseToLedgerInput(caseFile, asOf);
   const notices: LedgerNotice[] = [...normalised.notices];
   const account = computeIronAccount(normalised.input);
-  const overrides = caseFile.assumptionOverrides;
-  const dayCount = account.daily.transfusedInMg.length;
+    const dayCount = account.daily.transfusedInMg.length;
   const lastIndex = dayCount - 1;
   const weightKg = account.daily.weightKg[lastIndex]!;
+  const efficiencyUsesOf = (periods: readonly ChelationPeriod[]): AssumptionUse[] => {
+    const ids = new Set(periods.map((period) => efficiencyAssumptionOf[period.drug] as string));
+    if (periods.some((period) => period.drug === 'deferasirox' && period.formulation === 'film-coated-tablet')) ids.add('deferasirox-film-coated-factor');
+    return [...ids].map((id) => assumptionUse(resolveAssumption(id, overrides)));
+  };
+  /** The assumptions behind the expected removal of the periods on record after `afterDate` up to `toDate`. */
+  const chelationAssumptionsBetween = (afterDate: IsoDate, toDate: IsoDate) =>
+    efficiencyUsesOf(caseFile.chelationPeriods.filter((period) => period.startDate <= toDate && (period.endDate === null || period.endDate > afterDate)));
+  const basalAssumption = assumptionUse(resolveAssumption('basal-iron-loss-mg-per-day', overrides));
+
+  /** Net transfusional iron of the records dated after `afterDate` up to `toDate`, with its derivation. */
+  const transfusionalIron = (afterDate: IsoDate, toDate: IsoDate) => {
+    const inWindow = normalised.input.movements.filter((it) => it.date > afterDate && it.date <= toDate);
+    return runTrusted(
+      netTransfusionalIronFormula,
+      {
+        redCellsInMl: inWindow.reduce((sum, it) => sum + (it.redCellsInMl ?? 0), 0),
+        redCellsOutMl: inWindow.reduce((sum, it) => sum + (it.redCellsOutMl ?? 0), 0),
+      },
+      {
+        overrides,
+        origins: {
+          redCellsInMl: { kind: 'record', description: `Σ volume × haematocrit of ${inWindow.length} record(s) ${addDaysIso(afterDate, 1)} to ${toDate}`, refs: inWindow.map((it) => it.ref) },
+          redCellsOutMl: { kind: 'record', description: `Σ volume removed × patient haematocrit, ${addDaysIso(afterDate, 1)} to ${toDate}`, refs: inWindow.filter((it) => (it.redCellsOutMl ?? 0) > 0).map((it) => it.ref) },
+        },
+      },
+    );
+  };
 
   // Intake over the trailing year (or the record, if shorter).
   const windowDays = Math.min(trailingDays, dayCount);
@@ -122,17 +160,17 @@ export function computeCase(caseFile: Case, asOf: IsoDate, options: ComputeOptio
   const transfusedMg = sumDaily(account.daily.transfusedInMg, fromIndex, lastIndex);
   const removedWithBloodMg = sumDaily(account.daily.removedWithBloodMg, fromIndex, lastIndex);
   const windowFrom = addDaysIso(account.firstDay, fromIndex);
-  const windowRefs = normalised.input.movements.filter((it) => it.date >= windowFrom && it.date <= asOf).map((it) => it.ref);
   const netInWindow = transfusedMg - removedWithBloodMg;
   if (windowDays < trailingDays) {
     notices.push({ severity: 'information', text: `The record covers only ${windowDays} days before the review date: the intake is averaged over those days.` });
   }
+  const windowIron = transfusionalIron(addDaysIso(windowFrom, -1), asOf);
   const intakeRun = runTrusted(
     ironIntakeRate,
-    { totalIronMg: Math.max(0, netInWindow), weightKg, windowDays },
+    { totalIronMg: Math.max(0, windowIron.outputs.netMg), weightKg, windowDays },
     {
       origins: {
-        totalIronMg: { kind: 'record', description: `net iron of ${windowRefs.length} transfusion record(s) ${windowFrom} to ${asOf}`, refs: windowRefs },
+        totalIronMg: { kind: 'computed', derivation: windowIron.derivation },
         weightKg: { kind: 'record', description: `latest weight on or before ${asOf}`, refs: [] },
         windowDays: { kind: 'record', description: `days ${windowFrom} to ${asOf}`, refs: [] },
       },
@@ -153,19 +191,36 @@ export function computeCase(caseFile: Case, asOf: IsoDate, options: ComputeOptio
     const anchorWeight = account.daily.weightKg[anchorIndex]!;
     const sameDay = sortedLics.filter((it) => it.date === lastLic.date);
     const anchorLic = sameDay.reduce((sum, it) => sum + it.licMgPerGDry, 0) / sameDay.length;
-    const netSince =
-      sumDaily(account.daily.transfusedInMg, anchorIndex + 1, lastIndex) -
-      sumDaily(account.daily.removedWithBloodMg, anchorIndex + 1, lastIndex) -
-      sumDaily(account.daily.chelationOutMg, anchorIndex + 1, lastIndex) -
-      sumDaily(account.daily.basalLossMg, anchorIndex + 1, lastIndex);
+    const sinceIron = transfusionalIron(lastLic.date, asOf);
+    const netSince = runTrusted(
+      netIronBalance,
+      {
+        transfusionalNetMg: sinceIron.outputs.netMg,
+        chelationRemovalMg: sumDaily(account.daily.chelationOutMg, anchorIndex + 1, lastIndex),
+        days: lastIndex - anchorIndex,
+      },
+      {
+        overrides,
+        origins: {
+          transfusionalNetMg: { kind: 'computed', derivation: sinceIron.derivation },
+          chelationRemovalMg: {
+            kind: 'record',
+            description: `expected removal of the regimens on record ${addDaysIso(lastLic.date, 1)} to ${asOf}`,
+            refs: normalised.input.chelation.filter((it) => it.start <= asOf && (it.end === null || it.end > lastLic.date)).map((it) => it.id),
+            assumptions: chelationAssumptionsBetween(lastLic.date, asOf),
+          },
+          days: { kind: 'record', description: `days ${addDaysIso(lastLic.date, 1)} to ${asOf}`, refs: [] },
+        },
+      },
+    );
     const carried = runTrusted(
       bodyIronCarriedForward,
-      { anchorLicMgPerGDry: anchorLic, anchorWeightKg: anchorWeight, netSinceMg: netSince, weightNowKg: weightKg },
+      { anchorLicMgPerGDry: anchorLic, anchorWeightKg: anchorWeight, netSinceMg: netSince.outputs.netMg, weightNowKg: weightKg },
       {
         origins: {
           anchorLicMgPerGDry: { kind: 'record', description: `LIC ${lastLic.date} (${lastLic.method})`, refs: sameDay.map((it) => it.ref) },
           anchorWeightKg: { kind: 'record', description: `weight on ${lastLic.date}`, refs: [] },
-          netSinceMg: { kind: 'record', description: `transfusions, removed blood, expected chelation and basal loss ${addDaysIso(lastLic.date, 1)} to ${asOf}`, refs: [] },
+          netSinceMg: { kind: 'computed', derivation: netSince.derivation },
           weightNowKg: { kind: 'record', description: `latest weight on or before ${asOf}`, refs: [] },
         },
       },
@@ -190,8 +245,9 @@ export function computeCase(caseFile: Case, asOf: IsoDate, options: ComputeOptio
 
   // Measured response between consecutive LIC results.
   const responses = measuredResponses(account, normalised.input.licMeasurements, normalised.input.chelation).map((response) => {
+    const intervalIron = transfusionalIron(response.fromDate, response.toDate);
     const run = runTrusted(measuredChelation, {
-      intakeMg: response.intakeMg,
+      intakeMg: intervalIron.outputs.netMg,
       fromLicMgPerGDry: response.fromLicMgPerGDry,
       toLicMgPerGDry: response.toLicMgPerGDry,
       fromWeightKg: account.daily.weightKg[daysBetween(account.firstDay, response.fromDate)]!,
@@ -202,10 +258,16 @@ export function computeCase(caseFile: Case, asOf: IsoDate, options: ComputeOptio
       expectedMg: response.expectedChelationMg,
     }, {
       origins: {
-        intakeMg: { kind: 'record', description: `transfusions and removed blood ${addDaysIso(response.fromDate, 1)} to ${response.toDate}`, refs: [] },
+        intakeMg: { kind: 'computed', derivation: intervalIron.derivation },
         fromLicMgPerGDry: { kind: 'record', description: `LIC ${response.fromDate}`, refs: [] },
         toLicMgPerGDry: { kind: 'record', description: `LIC ${response.toDate}`, refs: [] },
-        expectedMg: { kind: 'record', description: 'expected removal of the regimens on record in the interval', refs: [] },
+        basalLossMg: { kind: 'record', description: `basal loss × ${response.days} days`, refs: [], assumptions: [basalAssumption] },
+        expectedMg: {
+          kind: 'record',
+          description: 'expected removal of the regimens on record in the interval',
+          refs: [],
+          assumptions: chelationAssumptionsBetween(response.fromDate, response.toDate),
+        },
       },
     });
     return { ...response, derivation: run.derivation };
@@ -274,6 +336,10 @@ export function computeCase(caseFile: Case, asOf: IsoDate, options: ComputeOptio
         efficiencyScale: 1,
       })),
     ];
+    const periodsOfScenario = new Map<string, readonly ChelationPeriod[]>([
+      ['current', currentPeriods],
+      ...caseFile.proposedRegimens.map((regimen) => [regimen.id, regimen.periods] as const),
+    ]);
     if (usableResponse && measuredDrugs.size > 0) {
       notices.push({
         severity: 'information',
@@ -315,14 +381,20 @@ export function computeCase(caseFile: Case, asOf: IsoDate, options: ComputeOptio
                 overrides,
                 origins: {
                   startBodyIronMg: { kind: 'computed', derivation: bodyIron.derivation! },
-                  intakeMgPerDay: { kind: 'record', description: `net transfusional iron ${windowFrom} to ${asOf} ÷ ${windowDays} days`, refs: [] },
+                  intakeMgPerDay: {
+                    kind: 'record',
+                    description: `net transfusional iron ${windowFrom} to ${asOf} ÷ ${windowDays} days`,
+                    refs: [],
+                    assumptions: [assumptionUse(resolveAssumption('iron-per-ml-red-cells', overrides))],
+                  },
                   removalMgPerDay: {
                     kind: 'record',
                     description:
                       scenario.efficiencyBasis === 'measured'
                         ? `expected removal of ${scenario.name}, ${[...measuredDrugs].join(' and ')} × measured ÷ expected ${measuredRatio.toFixed(2)}`
                         : `expected removal of ${scenario.name} at the published efficiencies`,
-                    refs: [],
+                    refs: (periodsOfScenario.get(scenario.id) ?? []).map((period) => period.id),
+                    assumptions: efficiencyUsesOf(periodsOfScenario.get(scenario.id) ?? []),
                   },
                 },
               },

@@ -1,9 +1,55 @@
 import { defineFormula, type AnyFormula } from '../formulas/types';
-import { carriedForwardStores, measuredChelationMg, projectedLic } from './balance';
+import { carriedForwardStores, measuredChelationMg, netIronBalanceMg, netTransfusionalIron, projectedLic } from './balance';
 
 const lic = (label: string) =>
   ({ kind: 'number', label, unit: 'mg/g{dry}', min: 0, max: 60, meaning: `${label}, mg Fe per g dry liver` }) as const;
 const weight = (label: string) => ({ kind: 'number', label, unit: 'kg', min: 1, max: 250, meaning: label }) as const;
+
+export const netTransfusionalIronFormula = defineFormula({
+  id: 'net-transfusional-iron',
+  title: 'Iron in transfused red cells, net of iron in removed blood',
+  expression: 'iron in (mg) = Σ volume × unit haematocrit × iron per mL of pure red cells; iron out = Σ volume removed × patient haematocrit × iron per mL; net = in − out',
+  sourceIds: ['cohen-2008', 'iron-per-hb-derived'],
+  notes: ['Exchange and venesection use the pre-procedure patient haematocrit, an approximation for an automated exchange.'],
+  inputs: {
+    redCellsInMl: { kind: 'number', label: 'pure red cells transfused', unit: 'mL', min: 0, max: 1000000, meaning: 'Σ volume × unit haematocrit' },
+    redCellsOutMl: { kind: 'number', label: 'pure red cells removed', unit: 'mL', min: 0, max: 1000000, meaning: 'Σ volume removed × patient haematocrit' },
+    ironPerMlRedCellsMg: {
+      kind: 'number',
+      label: 'iron per mL of pure red cells',
+      unit: 'mg/mL',
+      min: 0.9,
+      max: 1.25,
+      assumption: 'iron-per-ml-red-cells',
+      meaning: 'mg of iron in 1 mL of pure red cells',
+    },
+  },
+  outputs: {
+    ironInMg: { label: 'iron in', unit: 'mg', meaning: 'iron in transfused red cells', decimals: 0 },
+    ironOutMg: { label: 'iron out with removed blood', unit: 'mg', meaning: 'iron in removed blood', decimals: 0 },
+    netMg: { label: 'net transfusional iron', unit: 'mg', meaning: 'in − out', decimals: 0 },
+  },
+  compute: ({ redCellsInMl, redCellsOutMl, ironPerMlRedCellsMg }) => netTransfusionalIron(redCellsInMl, redCellsOutMl, ironPerMlRedCellsMg),
+});
+
+export const netIronBalance = defineFormula({
+  id: 'net-iron-balance',
+  title: 'Net iron balance over a period',
+  expression: 'net (mg) = net transfusional iron − expected chelation removal − basal loss (mg/day) × days',
+  sourceIds: ['hunt-2009'],
+  inputs: {
+    transfusionalNetMg: { kind: 'number', label: 'net transfusional iron', unit: 'mg', min: -1000000, max: 1000000, meaning: 'iron in transfused red cells minus iron in removed blood' },
+    chelationRemovalMg: { kind: 'number', label: 'expected chelation removal', unit: 'mg', min: 0, max: 1000000, meaning: 'sum of the regimens’ expected removal over the period' },
+    basalLossMgPerDay: { kind: 'number', label: 'basal loss', unit: 'mg/d', min: 0, max: 3, assumption: 'basal-iron-loss-mg-per-day', meaning: 'basal iron loss per day' },
+    days: { kind: 'number', label: 'period', unit: 'd', min: 0, max: 36600, meaning: 'days in the period' },
+  },
+  outputs: {
+    netMg: { label: 'net iron balance', unit: 'mg', meaning: 'iron in minus iron out', decimals: 0 },
+  },
+  compute: ({ transfusionalNetMg, chelationRemovalMg, basalLossMgPerDay, days }) => ({
+    netMg: netIronBalanceMg(transfusionalNetMg, chelationRemovalMg, basalLossMgPerDay, days),
+  }),
+});
 
 export const bodyIronCarriedForward = defineFormula({
   id: 'body-iron-carried-forward',
@@ -93,4 +139,4 @@ export const projectedLicFormula = defineFormula({
 });
 
 /** Ledger formulas, in the order `calc --list` shows them. */
-export const ledgerFormulas: readonly AnyFormula[] = [bodyIronCarriedForward, measuredChelation, projectedLicFormula];
+export const ledgerFormulas: readonly AnyFormula[] = [netTransfusionalIronFormula, netIronBalance, bodyIronCarriedForward, measuredChelation, projectedLicFormula];

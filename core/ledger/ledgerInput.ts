@@ -16,6 +16,9 @@ export interface IronMovement {
   readonly ironOutMg: number;
   /** Where it came from, e.g. 'transfusions[12] 2026-03-04'. */
   readonly ref: string;
+  /** Pure red cells brought in and taken out, mL (volume × haematocrit), when the movement comes from a case record. */
+  readonly redCellsInMl?: number;
+  readonly redCellsOutMl?: number;
 }
 
 /** A chelation regimen over a date range with its expected removal. */

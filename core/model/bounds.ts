@@ -1,3 +1,4 @@
+import { displayUnit } from '../units/displayUnit';
 import { z } from 'zod';
 import type { IssueCode } from '../result';
 
@@ -33,30 +34,7 @@ export interface CustomIssueParams {
   readonly code: IssueCode;
 }
 
-/** UCUM codes as a pharmacist reads them on a lab report. */
-const unitDisplay: Readonly<Record<string, string>> = {
-  'ug/L': 'µg/L',
-  'umol/L': 'µmol/L',
-  'ug/dL': 'µg/dL',
-  '10*9/L': '×10⁹/L',
-  '10*3/uL': '×10³/µL',
-  's-1': 's⁻¹',
-  'mg/g{dry}': 'mg/g dry weight',
-  'ug/g{dry}': 'µg/g dry weight',
-  'umol/g{dry}': 'µmol/g dry weight',
-  'ug/(24.h)': 'µg/24 h',
-  'umol/(24.h)': 'µmol/24 h',
-};
-
-/**
- * A UCUM unit code as shown in messages ('ug/L' → 'µg/L'); '1' shows as nothing.
- *
- * @example displayUnit('10*9/L') === '×10⁹/L'
- */
-export function displayUnit(ucumCode: string): string {
-  if (ucumCode === '1') return '';
-  return unitDisplay[ucumCode] ?? ucumCode;
-}
+export { displayUnit } from '../units/displayUnit';
 
 function withUnit(text: string, ucumCode: string): string {
   const shown = displayUnit(ucumCode);

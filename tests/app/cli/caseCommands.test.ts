@@ -74,3 +74,32 @@ describe('compute', () => {
     expect(err).toContain('--horizon-months: "500" is not a whole number in 1–120.');
   });
 });
+
+describe('explain', () => {
+  it('lists the results that can be explained', () => {
+    const { code, out } = cli('explain', demo('th-0417'));
+    expect(code).toBe(0);
+    expect(out).toContain('intake');
+    expect(out).toContain('body-iron');
+    expect(out).toContain('projection:current:12');
+  });
+
+  it('prints the derivation tree of one result with inputs, origins, formula and sources', () => {
+    const { code, out } = cli('explain', demo('th-0417'), 'intake');
+    expect(code).toBe(0);
+    expect(out).toContain('[iron-intake-rate]');
+    expect(out).toContain('[net-transfusional-iron]');
+    expect(out).toContain('assumption iron-per-ml-red-cells, published default');
+    expect(out).toContain('source Brittenham GM');
+    expect(out).toContain('for review by the prescriber');
+  });
+
+  it('gives the derivation as JSON, and refuses an unknown result naming the known ones', () => {
+    const json = cli('explain', demo('th-0093'), 'body-iron', '--json');
+    expect(JSON.parse(json.out).derivation.formulaId).toBe('body-iron-carried-forward');
+    const unknown = cli('explain', demo('th-0093'), 'iron-magic');
+    expect(unknown.code).toBe(1);
+    expect(unknown.err).toContain('No result "iron-magic"');
+    expect(unknown.err).toContain('intake');
+  });
+});
