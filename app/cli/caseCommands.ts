@@ -1,9 +1,11 @@
 import { computeCase, type CaseResults } from '../../core/ledger/computeCase';
+import { derivationsOf } from '../../core/ledger/derivationIndex';
+import { methodAppendix } from '../../core/report/methodAppendix';
 import { isIsoDate } from '../../core/dates/isoDate';
 import type { Case } from '../../core/model/caseFile';
 import { formatIssues, type Issue, type Result } from '../../core/result';
 import type { ParsedArgs } from './args';
-import { decisionSupportCaution, formatNumber } from './format';
+import { decisionSupportCaution, formatNumber, formatPlain, withUnit } from './format';
 import { exitCodes, type CliIo } from './io';
 
 export interface CaseIo extends CliIo {
@@ -160,10 +162,16 @@ export function formatResults(results: CaseResults): string {
     for (const notice of results.notices) lines.push(`  ${notice.severity === 'review' ? 'review: ' : ''}${notice.text}`);
     lines.push('');
   }
+  lines.push('Methods (the formulas behind the numbers above; `explain` shows each derivation):');
+  for (const formula of methodAppendix(derivationsOf(results)).formulas) {
+    lines.push(`  ${formula.title} [${formula.formulaId}]: ${formula.expression}`);
+    lines.push(`    ${formula.sources.map((source) => `${source.authors}, ${source.publication} [${source.status}]`).join('; ')}`);
+  }
+  lines.push('');
   lines.push('Assumptions used:');
   for (const assumption of results.assumptions) {
     const origin = assumption.origin.overridden ? `overridden: ${assumption.origin.reason}` : 'published default';
-    lines.push(`  ${assumption.label}: ${assumption.value}${assumption.unit === '1' ? '' : ` ${assumption.unit}`} (${origin})`);
+    lines.push(`  ${assumption.label}: ${withUnit(formatPlain(assumption.value), assumption.unit)} (${origin})`);
   }
   return lines.join('\n');
 }

@@ -1,4 +1,5 @@
 import { parseArgs } from './args';
+import { bindingCommand } from './bindingCommand';
 import { calcCommand, calcUsage } from './calcCommand';
 import { checkCommand, computeCommand, type CaseIo } from './caseCommands';
 import { explainCommand } from './explainCommand';
@@ -16,6 +17,10 @@ Commands:
   compute <case.json> [--as-of YYYY-MM-DD] [--horizon-months N] [--seed N] [--json]
                                             the iron review: intake, body iron, response, projections
   explain <case.json> [<result>] [--json]   how one result was computed: inputs, formula, sources
+  binding [--metal Fe3+] [--weight-kg N] [--json]
+                                            metal bound per dose beside pM at pH 7.4; lead and plasma calcium
+  binding --sweep --ligand-set <id> [--metal Fe3+] [--json]
+                                            pM and log K′ of one constant set against pH 2–12
 
 ${calcUsage}
 
@@ -41,6 +46,8 @@ export function runCli(argv: readonly string[], io: CaseIo): number {
       return computeCommand(args, io);
     case 'explain':
       return explainCommand(args, io);
+    case 'binding':
+      return bindingCommand(rest, io);
     default:
       io.err(`Unknown command "${command}".\n\n${usage}`);
       return exitCodes.usage;
