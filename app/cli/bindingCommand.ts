@@ -249,7 +249,7 @@ function sweepCommand(args: ParsedArgs, io: CliIo): number {
   for (const point of [...pm, ...conditional]) {
     if (point.ok) continue;
     for (const it of point.issues) {
-      const key = `${it.code} ${it.path.join('.')}`;
+      const key = `${it.code} ${String(it.path[it.path.length - 1])}`;
       const entry = refusals.get(key) ?? { pHs: [], message: it.message };
       if (!entry.pHs.includes(point.pH)) entry.pHs.push(point.pH);
       refusals.set(key, entry);

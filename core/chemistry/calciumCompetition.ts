@@ -27,6 +27,8 @@ export interface LeadCalciumState {
   readonly pPb: number;
   /** Share of the lead held by edetate, 0–1. */
   readonly leadBoundFraction: number;
+  /** Share of the lead not held by edetate (aqua ion and hydroxo species), 0–1, summed directly. */
+  readonly leadUnboundFraction: number;
   /** Share of all edetate on lead, and on calcium, 0–1. */
   readonly ligandShareLead: number;
   readonly ligandShareCalcium: number;
@@ -96,6 +98,7 @@ export function leadCalciumCompetition(options: LeadCalciumOptions = {}): Result
     return ok({
       pPb: lead.pM,
       leadBoundFraction: lead.boundFraction,
+      leadUnboundFraction: lead.unboundFraction,
       ligandShareLead: lead.ligandShare,
       ligandShareCalcium: calcium?.ligandShare ?? 0,
       freeCalciumMmolPerL: calcium ? calcium.freeMolar * 1000 : 0,
