@@ -1,5 +1,6 @@
 import { chelatorsFormulas } from '../chelators/formulas';
 import { chemistryFormulas } from '../chemistry/formulas';
+import { dosingFormulas } from '../dosing/formulas';
 import { ironFormulas } from '../iron/formulas';
 import { ledgerFormulas } from '../ledger/formulas';
 import { patientFormulas } from '../patient/formulas';
@@ -18,6 +19,7 @@ export const formulaCatalogue: readonly AnyFormula[] = [
   ...patientFormulas,
   ...unitFormulas,
   ...chemistryFormulas,
+  ...dosingFormulas,
 ];
 
 const byId = new Map<string, AnyFormula>();

@@ -1,7 +1,9 @@
 import { chelatorsSources } from './chelators';
 import { chemistrySources } from './chemistry';
+import { dosingSources } from './dosing';
 import { ironSources } from './iron';
 import { patientSources } from './patient';
+import { safetySources } from './safety';
 import type { Source } from './source';
 import { standardSources } from './standards';
 
@@ -14,6 +16,8 @@ export const sourceCatalogue: readonly Source[] = [
   ...chelatorsSources,
   ...patientSources,
   ...chemistrySources,
+  ...dosingSources,
+  ...safetySources,
 ];
 
 const byId = new Map<string, Source>();

@@ -1,0 +1,190 @@
+import { z } from 'zod';
+import { fail, issue, ok, type Result } from '../result';
+
+/**
+ * The products a practical dose is built from: tablets (with the strengths on
+ * the shelf and whether each may be halved), an oral solution (its
+ * concentration) and vials (their sizes). Data with sources; the local
+ * formulary replaces it with its own list, validated by
+ * {@link parseProductCatalogue}.
+ */
+
+/** Drugs a product may contain (generic names only). */
+export const productDrugs = ['deferasirox', 'deferiprone', 'deferoxamine'] as const;
+
+const productIdSchema = z
+  .string()
+  .regex(/^[a-z0-9]+(-[a-z0-9]+)*$/, 'a product id is kebab-case: lower-case letters, digits and hyphens (deferasirox-film-coated)');
+
+/** Tablet and vial strengths are whole or half milligrams; 1 mg to 10 g is every plausible strength. */
+const strengthMgSchema = z
+  .number()
+  .min(1)
+  .max(10000)
+  .refine((value) => Number.isInteger(value * 2), 'a strength is a whole number of mg (or a half, e.g. 62.5)');
+
+const sourceIdsSchema = z.array(z.string().min(1)).min(1);
+
+const tabletStrengthSchema = z.strictObject({
+  strengthMg: strengthMgSchema,
+  /** True only where the label says the tablet may be broken into equal halves. */
+  halvable: z.boolean(),
+  note: z.string().max(400).optional(),
+});
+
+const shared = {
+  id: productIdSchema,
+  drug: z.enum(productDrugs),
+  name: z.string().min(1).max(120),
+  sourceIds: sourceIdsSchema,
+  note: z.string().max(600).optional(),
+};
+
+export const productSchema = z.discriminatedUnion('kind', [
+  z.strictObject({ ...shared, kind: z.literal('tablets'), strengths: z.array(tabletStrengthSchema).min(1).max(8) }),
+  z.strictObject({ ...shared, kind: z.literal('oral-solution'), concentrationMgPerMl: z.number().min(1).max(1000) }),
+  z.strictObject({ ...shared, kind: z.literal('vials'), vialStrengthsMg: z.array(strengthMgSchema).min(1).max(8) }),
+]);
+
+export const productCatalogueSchema = z
+  .array(productSchema)
+  .min(1)
+  .max(100)
+  .superRefine((products, context) => {
+    const seen = new Set<string>();
+    products.forEach((product, index) => {
+      if (seen.has(product.id)) {
+        context.addIssue({ code: 'custom', path: [index, 'id'], message: `product id "${product.id}" appears twice` });
+      }
+      seen.add(product.id);
+      const strengths = product.kind === 'tablets' ? product.strengths.map((it) => it.strengthMg) : product.kind === 'vials' ? product.vialStrengthsMg : [];
+      if (new Set(strengths).size !== strengths.length) {
+        context.addIssue({ code: 'custom', path: [index], message: `product "${product.id}" lists a strength twice` });
+      }
+    });
+  });
+
+export type Product = z.output<typeof productSchema>;
+export type TabletProduct = Extract<Product, { kind: 'tablets' }>;
+export type SolutionProduct = Extract<Product, { kind: 'oral-solution' }>;
+export type VialProduct = Extract<Product, { kind: 'vials' }>;
+export type ProductCatalogue = readonly Product[];
+
+/**
+ * The catalogue shipped with the tool. Every strength is from memory of the
+ * labels (see core/references/dosing.ts): check it against the local
+ * formulary, and supply an edited catalogue where it differs.
+ */
+export const defaultProductCatalogue: ProductCatalogue = [
+  {
+    id: 'deferasirox-film-coated',
+    drug: 'deferasirox',
+    kind: 'tablets',
+    name: 'deferasirox film-coated tablets',
+    // 90, 180 and 360 mg: deferasirox labels, from memory (dosing-deferasirox-strengths-memory). Halves not described: whole only.
+    strengths: [
+      { strengthMg: 90, halvable: false },
+      { strengthMg: 180, halvable: false },
+      { strengthMg: 360, halvable: false },
+    ],
+    sourceIds: ['dosing-deferasirox-strengths-memory'],
+    note: 'Strengths from memory of the labels; whole tablets only.',
+  },
+  {
+    id: 'deferasirox-dispersible',
+    drug: 'deferasirox',
+    kind: 'tablets',
+    name: 'deferasirox dispersible tablets',
+    // 125, 250 and 500 mg: deferasirox labels, from memory. Dispersed whole in liquid: whole only.
+    strengths: [
+      { strengthMg: 125, halvable: false },
+      { strengthMg: 250, halvable: false },
+      { strengthMg: 500, halvable: false },
+    ],
+    sourceIds: ['dosing-deferasirox-strengths-memory'],
+    note: 'Strengths from memory of the labels; dispersed whole, so whole tablets only.',
+  },
+  {
+    id: 'deferiprone-tablets',
+    drug: 'deferiprone',
+    kind: 'tablets',
+    name: 'deferiprone film-coated tablets',
+    strengths: [
+      // 500 mg: EU 2004 text (deferiprone-label, confirmed); scoring not recalled, so whole only.
+      { strengthMg: 500, halvable: false },
+      // 1000 mg scored, may be broken in halves: US label, from memory (flagged).
+      { strengthMg: 1000, halvable: true, note: 'Scored and breakable into halves per the US label: from memory, check the local product.' },
+    ],
+    sourceIds: ['deferiprone-label', 'dosing-deferiprone-strengths-memory'],
+    note: '1000 mg tablet halves allowed from memory of the label (scored tablet): check the local product.',
+  },
+  {
+    id: 'deferiprone-oral-solution',
+    drug: 'deferiprone',
+    kind: 'oral-solution',
+    name: 'deferiprone oral solution',
+    // 100 mg/mL: deferiprone labels, from memory.
+    concentrationMgPerMl: 100,
+    sourceIds: ['dosing-deferiprone-strengths-memory', 'dosing-measurable-volume'],
+    note: 'Concentration from memory of the labels.',
+  },
+  {
+    id: 'deferoxamine-vials',
+    drug: 'deferoxamine',
+    kind: 'vials',
+    name: 'deferoxamine mesylate powder for injection, single-use vials',
+    // 500 mg and 2 g of the mesylate: deferoxamine labels, from memory.
+    vialStrengthsMg: [500, 2000],
+    sourceIds: ['dosing-deferoxamine-vials-memory'],
+    note: 'Vial sizes from memory of the labels; strengths are of the mesylate, as dosed.',
+  },
+];
+
+/**
+ * Check a product catalogue supplied by the user (the local formulary).
+ *
+ * @param json - parsed JSON: an array of products (kind 'tablets',
+ *   'oral-solution' or 'vials'); strengths 1–10,000 mg in whole or half mg,
+ *   concentrations 1–1,000 mg/mL; ids kebab-case and unique
+ * @returns the catalogue, or one issue per problem naming the field and the value
+ * @example parseProductCatalogue([{ id: 'deferasirox-film-coated', drug: 'deferasirox', kind: 'tablets',
+ *   name: 'local', strengths: [{ strengthMg: 90, halvable: false }], sourceIds: ['local-formulary'] }]).ok === true
+ */
+export function parseProductCatalogue(json: unknown): Result<ProductCatalogue> {
+  const parsed = productCatalogueSchema.safeParse(json);
+  if (parsed.success) return ok(parsed.data);
+  return fail(
+    ...parsed.error.issues.map((problem) => {
+      const where = problem.path.length > 0 ? problem.path.map(String).join('.') : 'catalogue';
+      const value = valueAt(json, problem.path);
+      const shown = value === undefined ? '' : ` (value ${JSON.stringify(value)})`;
+      const code = problem.code === 'too_small' || problem.code === 'too_big' ? 'out_of_range' : 'invalid_file';
+      return issue(code, ['catalogue', ...problem.path.map((it) => (typeof it === 'symbol' ? String(it) : it))], `Product catalogue ${where}${shown}: ${problem.message}.`);
+    }),
+  );
+}
+
+function valueAt(root: unknown, path: readonly PropertyKey[]): unknown {
+  let current: unknown = root;
+  for (const key of path) {
+    if (current === null || typeof current !== 'object') return undefined;
+    current = (current as Record<PropertyKey, unknown>)[key];
+  }
+  return typeof current === 'object' ? undefined : current;
+}
+
+/**
+ * One product by id.
+ *
+ * @param catalogue - the shipped or the local catalogue
+ * @param productId - kebab-case id, e.g. 'deferasirox-film-coated'
+ * @returns the product, or an unknown_choice issue listing the ids there are
+ * @example findProduct(defaultProductCatalogue, 'deferoxamine-vials').ok === true
+ */
+export function findProduct(catalogue: ProductCatalogue, productId: string): Result<Product> {
+  const product = catalogue.find((it) => it.id === productId);
+  if (product) return ok(product);
+  return fail(
+    issue('unknown_choice', ['product'], `Product "${productId}" is not in the catalogue; the products are ${catalogue.map((it) => it.id).join(', ')}.`),
+  );
+}

@@ -1,0 +1,97 @@
+import type { Source } from './source';
+
+/**
+ * Sources for practical doses (product strengths) and the monitoring calendar
+ * (references.md §3 and §4). Product strengths are recalled from the labels,
+ * not read in this project: each says so, and the local formulary can replace
+ * the whole catalogue (core/dosing/productCatalogue.ts).
+ */
+export const dosingSources = [
+  {
+    id: 'dosing-deferasirox-strengths-memory',
+    authors: 'Marketing authorisation holder',
+    title: 'Deferasirox prescribing information: presentations (film-coated and dispersible tablets)',
+    publication: 'product labels, US and EU (not checked in this project)',
+    year: null,
+    locator: 'dosage forms and strengths',
+    status: 'memory',
+    note: 'From memory: film-coated tablets 90, 180 and 360 mg; dispersible tablets (tablets for oral suspension) 125, 250 and 500 mg. Neither label is recalled as describing tablet halves, so the catalogue treats both as whole tablets only.',
+  },
+  {
+    id: 'dosing-deferiprone-strengths-memory',
+    authors: 'Marketing authorisation holder',
+    title: 'Deferiprone prescribing information: presentations (tablets and oral solution)',
+    publication: 'product labels, US and EU (not checked in this project)',
+    year: null,
+    locator: 'dosage forms and strengths',
+    status: 'memory',
+    note: 'From memory: 500 mg and 1000 mg film-coated tablets, the 1000 mg tablet scored so that it can be broken into halves (US label); oral solution 100 mg/mL. The 500 mg strength is also in the 2004 EU text (deferiprone-label, confirmed); whether it is scored is not recalled, so the catalogue treats it as whole only.',
+  },
+  {
+    id: 'dosing-deferoxamine-vials-memory',
+    authors: 'Marketing authorisation holder',
+    title: 'Deferoxamine mesylate for injection: presentations',
+    publication: 'product labels (not checked in this project)',
+    year: null,
+    locator: 'how supplied',
+    status: 'memory',
+    note: 'From memory: single-use vials of 500 mg and 2 g of the mesylate (lyophilised powder). Contents left in an opened vial are discarded (single use), which is why the waste is shown.',
+  },
+  {
+    id: 'dosing-measurable-volume',
+    authors: '—',
+    title: 'Measurable volume of an oral solution with an oral syringe',
+    publication: 'common practice (no single published source)',
+    year: null,
+    status: 'common-practice',
+    note: 'A volume is rounded to a step an oral syringe can measure; 0.1 mL is the default step (a 1–5 mL syringe graduated in 0.1 mL). The local step may differ (0.2 or 0.5 mL on larger syringes): it is an input.',
+  },
+  {
+    id: 'monitoring-deferasirox-label',
+    authors: 'Marketing authorisation holder',
+    title: 'Deferasirox prescribing information: renal and hepatic monitoring; auditory and ophthalmic testing',
+    publication: 'product labels, US and EU (references.md §4)',
+    year: null,
+    locator: 'warnings and precautions',
+    status: 'secondary',
+    note: 'Serum creatinine and ALT (transaminases) monthly; more often in the first month after starting or changing the dose (creatinine weekly and ALT every two weeks in that month: from memory). Auditory and ophthalmic testing before starting and yearly (from memory).',
+  },
+  {
+    id: 'monitoring-deferiprone-anc',
+    authors: 'Marketing authorisation holder',
+    title: 'Deferiprone prescribing information: absolute neutrophil count monitoring',
+    publication: 'US label (2025 revision) and older US and EU texts (references.md §4)',
+    year: 2025,
+    locator: 'warnings and precautions',
+    status: 'secondary',
+    note: 'Older labels and the EU text: ANC weekly. The 2025 US label: ANC before starting and regularly; the frequency may be reduced case by case (confirmed per references.md). The calendar uses a configurable interval, 7 days by default.',
+  },
+  {
+    id: 'monitoring-deferoxamine-label',
+    authors: 'Marketing authorisation holder; Brittenham GM',
+    title: 'Deferoxamine mesylate prescribing information: auditory and ophthalmological examinations',
+    publication: 'product label; N Engl J Med 2011;364:146-156 (references.md §4)',
+    year: 2011,
+    locator: 'warnings and precautions',
+    status: 'confirmed',
+    note: 'Hearing (audiometry) and eye (ophthalmological) checks before starting and yearly while treated (references.md §4, listed as confirmed).',
+  },
+  {
+    id: 'monitoring-ferritin-quarterly',
+    authors: '—',
+    title: 'Serum ferritin every three months on a transfusion programme or chelation',
+    publication: 'common practice (guideline literature; editions not checked)',
+    year: null,
+    status: 'common-practice',
+    note: 'Every three months is the usual interval; some protocols check at each transfusion visit.',
+  },
+  {
+    id: 'monitoring-mri-yearly',
+    authors: 'Thalassaemia guideline literature',
+    title: 'Liver iron by MRI yearly; cardiac T2* yearly in thalassaemia major from about 10 years of age',
+    publication: 'thalassaemia management guidelines (editions not checked)',
+    year: null,
+    status: 'secondary',
+    note: 'Liver iron by MRI once a year is common practice and guideline advice. Cardiac T2* yearly from about 10 years of age in thalassaemia major (younger children often cannot be scanned without sedation; earlier where indicated): guideline advice as reproduced secondarily, edition not checked. More often when results are abnormal: a local decision.',
+  },
+] as const satisfies readonly Source[];
