@@ -11,5 +11,6 @@ export default defineConfig({
     environment: 'node',
     // Two cores on every machine here: keep one worker per core.
     maxWorkers: 2,
+    benchmark: { include: ['tests/bench/**/*.bench.ts'] },
   },
 });
