@@ -101,7 +101,7 @@ export function usualDailyDoseOf(chelatorId: ChelatorId): { doseMgPerKgPerDay: M
  * @returns the row, or an issue: 'inconsistent' on ['constantSet'] when the set is another ligand's,
  *   'required' on ['dose'] when no dose is given
  * @example capacityComparisonRow({ chelatorId: 'deferiprone', doseMgPerKgPerDay: 75, weightKg: 52, doseBasis: '…' })
- *   → capacityMgPerG ≈ 133.8, metalBoundMgPerKg ≈ 10.03, metalBoundMg ≈ 521.7, pm.pM ≈ 20.8 (computed)
+ *   → capacityMgPerG ≈ 133.8, metalBoundMgPerKg ≈ 10.03, metalBoundMg ≈ 521.7, pm.pM ≈ 20.7 (computed)
  */
 export function capacityComparisonRow(
   dose: ChelatorDailyDose,
