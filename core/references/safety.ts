@@ -1,0 +1,108 @@
+import type { Source } from './source';
+
+/**
+ * Sources for the safety findings (references.md §4 and the monitoring rows of
+ * §2 and §3). Labels are cited by drug and country; the wording of a label
+ * changes between revisions, so every rule names the status of what it rests on.
+ */
+export const safetySources = [
+  {
+    id: 'deferasirox-label-renal',
+    authors: 'Marketing authorisation holder',
+    title: 'Deferasirox prescribing information (US): renal function, dose modification and monitoring',
+    publication: 'US product label (as summarised in references.md §4; not checked against the current text)',
+    year: null,
+    status: 'secondary',
+    note: 'Contraindicated at eGFR < 40 mL/min/1.73 m²; the starting dose is reduced by half at eGFR 40–60 mL/min/1.73 m²; a rise in serum creatinine of more than 33 % above the pre-treatment average on two consecutive measurements leads to a dose reduction; serum creatinine and transaminases monthly (more often in the first month).',
+  },
+  {
+    id: 'deferasirox-eu-crcl-memory',
+    authors: 'Marketing authorisation holder',
+    title: 'Deferasirox summary of product characteristics (EU): creatinine clearance threshold',
+    publication: 'EU product information (not checked)',
+    year: null,
+    status: 'memory',
+    note: 'From memory: contraindicated at an estimated creatinine clearance below 60 mL/min. Verify against the current EU text before relying on it.',
+  },
+  {
+    id: 'deferasirox-creatinine-baseline',
+    authors: '—',
+    title: 'Creatinine baseline for the 33 % rise: the latest creatinine on or before the first day of the current deferasirox period; when there is none, the mean of the first two creatinines on the drug',
+    publication: 'this project’s reading of the label’s "pre-treatment average" (references.md §4)',
+    year: null,
+    status: 'common-practice',
+    note: 'The label speaks of the average of pre-treatment values; a case file often holds one pre-treatment result. Rises are compared rounded to 0.1 %.',
+  },
+  {
+    id: 'alt-uln-memory',
+    authors: '—',
+    title: 'ALT upper limit of normal 40 U/L and the 5 × ULN review threshold',
+    publication: 'laboratory reference intervals vary; deferasirox and deferiprone labels (not checked)',
+    year: null,
+    status: 'memory',
+    note: 'From memory: labels ask for transaminases monthly and for review of persistent or progressive rises; 5 × ULN is a common grading cut-off. The ULN of 40 U/L is an assumption: use the reporting laboratory’s own.',
+  },
+  {
+    id: 'low-iron-interruption-labels',
+    authors: 'Marketing authorisation holders',
+    title: 'Deferasirox and deferiprone labels: consistently low ferritin or liver iron',
+    publication: 'product labels (as summarised in references.md §4)',
+    year: null,
+    status: 'secondary',
+    note: 'Deferasirox: interruption is advised when ferritin is consistently below 500 µg/L; the US label also names LIC below 3 mg/g dry. Deferiprone: interruption is to be considered when ferritin is consistently below 500 µg/L. "Consistently" is read here as two consecutive results.',
+  },
+  {
+    id: 'deferiprone-label-us-2025',
+    authors: 'Marketing authorisation holder',
+    title: 'Deferiprone prescribing information (US), 2025 revision: neutrophil counts',
+    publication: 'US product label, 2025 (as summarised in references.md §4)',
+    year: 2025,
+    status: 'confirmed',
+    note: 'ANC before the first dose and "regularly" during treatment (the frequency may be reduced case by case; older labels asked for weekly counts). Bands: neutropenia ANC 0.5 to < 1.5 × 10⁹/L, severe neutropenia 0.2 to < 0.5, agranulocytosis < 0.2 (older and EU texts: agranulocytosis < 0.5). Interrupt deferiprone at ANC < 1.5 × 10⁹/L.',
+  },
+  {
+    id: 'deferoxamine-monitoring',
+    authors: 'Marketing authorisation holder; Brittenham GM',
+    title: 'Deferoxamine: yearly audiology and ophthalmology, and the growth limit in children',
+    publication: 'product label (US); N Engl J Med 2011;364:146-156 (references.md §4)',
+    year: 2011,
+    status: 'confirmed',
+    note: 'Hearing and eye examinations at least yearly; at most 40 mg/kg/day while growing. Treating everyone under 18 years as growing is common practice.',
+  },
+  {
+    id: 'ascorbic-acid-deferoxamine',
+    authors: 'thalassaemia guideline literature; deferoxamine label',
+    title: 'Ascorbic acid with deferoxamine',
+    publication: 'guideline chapters and label (as summarised in references.md §3; not checked)',
+    year: null,
+    status: 'secondary',
+    note: 'Only with deferoxamine and after it is established; about 2–3 mg/kg/day, at most 200 mg/day; not in cardiac failure.',
+  },
+  {
+    id: 'chelation-combination-memory',
+    authors: 'thalassaemia guideline literature',
+    title: 'Two chelators at once',
+    publication: 'guideline chapters (not checked)',
+    year: null,
+    status: 'memory',
+    note: 'From memory: deferiprone with deferoxamine is used for cardiac iron; other combinations are less studied; the monitoring of each drug applies.',
+  },
+  {
+    id: 'chelation-pregnancy-labels',
+    authors: 'Marketing authorisation holders',
+    title: 'Iron chelators in pregnancy and breastfeeding',
+    publication: 'product labels (as summarised in references.md §4)',
+    year: null,
+    status: 'secondary',
+    note: 'Flagged for the prescriber; nothing prescriptive is computed.',
+  },
+  {
+    id: 'mri-monitoring-interval-memory',
+    authors: 'thalassaemia guideline literature',
+    title: 'How often liver iron and cardiac T2* are measured',
+    publication: 'guideline chapters (not checked)',
+    year: null,
+    status: 'memory',
+    note: 'From memory: liver iron by MRI about yearly on chelation; cardiac T2* every 12–24 months in thalassaemia major (more often when below 20 ms).',
+  },
+] as const satisfies readonly Source[];

@@ -1,0 +1,292 @@
+import { findChelator } from '../../chelators/catalogue';
+import { dfoTherapeuticIndex } from '../../chelators/formulas';
+import { runFormula } from '../../formulas/run';
+import { continuousRunStart } from '../continuousRunStart';
+import type { ActiveRegimen, SafetyContext } from '../context';
+import { defineRule } from '../rule';
+import { doseThresholdId, thresholdText } from '../thresholds';
+import type { FindingDraft, TriggerValue } from '../types';
+import { capitalised, forPrescriberReview, shown } from '../wording';
+
+/** 'Deferasirox film-coated-tablet 21 mg/kg/day' — the regimen as a finding names it. */
+function regimenName(regimen: ActiveRegimen): string {
+  return `${capitalised(regimen.period.drug)} ${regimen.period.formulation} ${shown(regimen.doseMgPerKgPerDay, 1)} mg/kg/day`;
+}
+
+function doseTrigger(regimen: ActiveRegimen, asOf: string): TriggerValue {
+  return { name: `${regimen.period.drug} dose per dosing day`, value: regimen.doseMgPerKgPerDay, unit: 'mg/kg/d', date: asOf, ref: regimen.ref };
+}
+
+/** Equal within floating-point noise: a dose of 920 mg for 23 kg is 40 mg/kg/day, not 40.000000001. */
+const sameDose = (first: number, second: number) => Math.abs(first - second) <= 1e-9 * Math.max(1, Math.abs(second));
+
+export const doseRangeRule = defineRule({
+  id: 'dose-outside-published-range',
+  title: 'Dose per kg per day outside the published range for the drug and formulation',
+  severity: 'review',
+  drugs: ['deferoxamine', 'deferiprone', 'deferasirox'],
+  sourceIds: ['deferoxamine-label', 'deferiprone-label', 'deferasirox-label'],
+  uncertain: false,
+  evaluate: (context) =>
+    context.active.flatMap((regimen): FindingDraft[] => {
+      const entry = findChelator(regimen.chelatorId);
+      const minId = doseThresholdId('dose-min', regimen.chelatorId);
+      const maxId = doseThresholdId('dose-max', regimen.chelatorId)!;
+      const min = minId ? context.threshold(minId) : null;
+      const max = context.threshold(maxId);
+      const dose = regimen.doseMgPerKgPerDay;
+      const range = `${min ? `${min.value}–` : 'up to '}${max.value} mg/kg/day`;
+      const per = regimen.period.drug === 'deferoxamine' ? ' per dosing day' : '';
+      const opening = `${regimenName(regimen)}${per} (${regimen.ref}, weight ${shown(context.weightKg, 1)} kg)`;
+      const overridden = [min, max].filter((it) => it?.overridden).map((it) => thresholdText(it!, 'published'));
+      const overrideText = overridden.length > 0 ? ` (${overridden.join('; ')})` : '';
+      const base = { triggers: [doseTrigger(regimen, context.asOf)], thresholds: [...(min ? [min] : []), max], drugs: [entry.ligandId], extraSourceIds: entry.dose.sourceIds };
+      if (min && dose < min.value && !sameDose(dose, min.value)) {
+        return [{ ...base, severity: 'review', text: `${opening}: below the published range ${range} for ${entry.label}${overrideText}; ${forPrescriberReview}.` }];
+      }
+      if (dose > max.value && !sameDose(dose, max.value)) {
+        return [{ ...base, severity: 'review', text: `${opening}: above the published range ${range} for ${entry.label}${overrideText}; ${forPrescriberReview}.` }];
+      }
+      return [];
+    }),
+});
+
+export const deferoxamineGrowthRule = defineRule({
+  id: 'deferoxamine-growth-limit',
+  title: 'Deferoxamine at most 40 mg/kg/day while growing',
+  severity: 'review',
+  drugs: ['deferoxamine'],
+  sourceIds: ['deferoxamine-label', 'deferoxamine-monitoring', 'common-practice'],
+  uncertain: false,
+  evaluate: (context) =>
+    context.active
+      .filter((regimen) => regimen.period.drug === 'deferoxamine')
+      .flatMap((regimen): FindingDraft[] => {
+        const growingUntil = context.threshold('growing-until-age');
+        const limit = context.threshold(doseThresholdId('dose-growing-max', regimen.chelatorId)!);
+        const age = context.ageYears;
+        if (age === null) {
+          return [{ severity: 'information', text: `Deferoxamine: the age on ${context.asOf} is not known from the case file, so the limit of ${limit.value} mg/kg/day while growing is not checked; ${forPrescriberReview}.`, triggers: [doseTrigger(regimen, context.asOf)], thresholds: [limit] }];
+        }
+        if (age >= growingUntil.value) return [];
+        const dose = regimen.doseMgPerKgPerDay;
+        const ageText = `age ${Math.floor(age)}, under ${growingUntil.value} years, treated as growing (common practice)`;
+        const triggers: TriggerValue[] = [doseTrigger(regimen, context.asOf), { name: 'age', value: Number(age.toFixed(2)), unit: 'a', date: context.asOf, ref: 'patient.age' }];
+        if (sameDose(dose, limit.value)) {
+          return [{ severity: 'information', text: `Deferoxamine ${shown(dose, 1)} mg/kg per dosing day (${regimen.ref}; ${ageText}): at ${thresholdText(limit, 'labelled')} mg/kg/day while growing.`, triggers, thresholds: [limit, growingUntil] }];
+        }
+        if (dose > limit.value) {
+          return [{ severity: 'review', text: `Deferoxamine ${shown(dose, 1)} mg/kg per dosing day (${regimen.ref}; ${ageText}): above ${thresholdText(limit, 'labelled')} mg/kg/day while growing; ${forPrescriberReview}.`, triggers, thresholds: [limit, growingUntil] }];
+        }
+        return [];
+      }),
+});
+
+export const deferoxamineIntravenousRateRule = defineRule({
+  id: 'deferoxamine-intravenous-rate',
+  title: 'Intravenous deferoxamine at most 15 mg/kg/h',
+  severity: 'review',
+  drugs: ['deferoxamine'],
+  sourceIds: ['deferoxamine-label'],
+  uncertain: false,
+  evaluate: (context) =>
+    context.active.flatMap((regimen): FindingDraft[] => {
+      const period = regimen.period;
+      if (period.drug !== 'deferoxamine' || period.route !== 'intravenous' || period.infusionHours === undefined) return [];
+      const rate = regimen.doseMgPerKgPerDay / period.administrationsPerDay / period.infusionHours;
+      const limit = context.threshold(doseThresholdId('dose-iv-rate-max', regimen.chelatorId)!);
+      if (!(rate > limit.value) || sameDose(rate, limit.value)) return [];
+      return [
+        {
+          severity: 'review',
+          text: `Intravenous deferoxamine ${shown(regimen.doseMgPerKgPerDay / period.administrationsPerDay, 1)} mg/kg over ${period.infusionHours} h (${regimen.ref}): ${shown(rate, 1)} mg/kg/h, above ${thresholdText(limit, 'labelled')} mg/kg/h; ${forPrescriberReview}.`,
+          triggers: [{ name: 'infusion rate', value: rate, unit: 'mg/kg/h', date: context.asOf, ref: regimen.ref }],
+          thresholds: [limit],
+        },
+      ];
+    }),
+});
+
+export const deferoxamineTherapeuticIndexRule = defineRule({
+  id: 'deferoxamine-therapeutic-index',
+  title: 'Deferoxamine therapeutic index (Porter 1989)',
+  severity: 'review',
+  drugs: ['deferoxamine'],
+  sourceIds: ['porter-1989', 'common-practice'],
+  uncertain: false,
+  evaluate: (context) => {
+    const ferritins = context.resultsOf('ferritin');
+    const latest = ferritins.at(-1);
+    if (!latest) return [];
+    const limit = context.threshold('deferoxamine-therapeutic-index');
+    return context.active
+      .filter((regimen) => regimen.period.drug === 'deferoxamine')
+      .flatMap((regimen): FindingDraft[] => {
+        const indexAt = (ferritin: typeof latest) =>
+          runFormula(
+            dfoTherapeuticIndex,
+            { dosePerInfusionMgPerKg: regimen.doseMgPerKgPerDay, infusionsPerWeek: regimen.period.daysPerWeek, ferritinUgPerL: ferritin.entry.measured.value },
+            {
+              origins: {
+                dosePerInfusionMgPerKg: { kind: 'record', description: `${regimen.ref}: dose per dosing day`, refs: [regimen.ref] },
+                infusionsPerWeek: { kind: 'record', description: `${regimen.ref}: days a week`, refs: [regimen.ref] },
+                ferritinUgPerL: { kind: 'entered', ref: ferritin.ref },
+              },
+            },
+          );
+        const run = indexAt(latest);
+        if (!run.ok) {
+          return [{ severity: 'information', text: `Deferoxamine: the therapeutic index cannot be computed: ${run.issues.map((it) => it.message).join(' ')}`, triggers: [doseTrigger(regimen, context.asOf)] }];
+        }
+        const index = run.value.outputs.therapeuticIndex;
+        const meanDaily = run.value.outputs.meanDailyDoseMgPerKg;
+        const previous = ferritins.at(-2);
+        const previousRun = previous ? indexAt(previous) : null;
+        const trend = previous && previousRun?.ok ? `; at the same dose the ferritin of ${previous.entry.date} (${shown(previous.entry.measured.value, 0)} µg/L) gives ${shown(previousRun.value.outputs.therapeuticIndex, 4)}` : '';
+        const opening = `Deferoxamine therapeutic index ${shown(index, 4)} (mean daily dose ${shown(meanDaily, 1)} mg/kg, weekly dose ÷ 7 as common practice, ÷ ferritin ${shown(latest.entry.measured.value, 0)} µg/L of ${latest.entry.date})`;
+        const triggers: TriggerValue[] = [
+          { name: 'deferoxamine therapeutic index', value: index, unit: '(mg/kg/d)/(ug/L)', date: latest.entry.date, ref: regimen.ref, derivation: run.value.derivation },
+          { name: 'ferritin', value: latest.entry.measured.value, unit: latest.entry.measured.unit, date: latest.entry.date, ref: latest.ref },
+        ];
+        // Porter's wording is "greater than 0.025": equality is not above.
+        if (index > limit.value) {
+          return [{ severity: 'review', text: `${opening}: above ${thresholdText(limit, 'published')} (Porter 1989), which marks a risk of hearing loss${trend}; ${forPrescriberReview}.`, triggers, thresholds: [limit] }];
+        }
+        return [{ severity: 'information', text: `${opening}: at or below ${thresholdText(limit, 'published')} (Porter 1989)${trend}.`, triggers, thresholds: [limit] }];
+      });
+  },
+});
+
+export const deferoxamineHearingEyesRule = defineRule({
+  id: 'deferoxamine-hearing-eyes',
+  title: 'Deferoxamine: yearly hearing and eye examinations',
+  severity: 'information',
+  drugs: ['deferoxamine'],
+  sourceIds: ['deferoxamine-monitoring'],
+  uncertain: false,
+  evaluate: (context) => {
+    const runStart = continuousRunStart(context.caseFile.chelationPeriods, 'deferoxamine', context.asOf);
+    if (runStart === null) return [];
+    return [
+      {
+        severity: 'information',
+        text: `Deferoxamine since ${runStart}: the label advises hearing (audiology) and eye examinations at least yearly; the case file holds no audiology or eye results, so when they were last done is not known here.`,
+        triggers: [{ name: 'deferoxamine running since', value: runStart, unit: '', date: runStart, ref: context.active.find((it) => it.period.drug === 'deferoxamine')?.ref ?? null }],
+      },
+    ];
+  },
+});
+
+export const chelatorCombinationRule = defineRule({
+  id: 'chelator-combination',
+  title: 'Two chelators at once',
+  severity: 'information',
+  drugs: ['deferoxamine', 'deferiprone', 'deferasirox'],
+  sourceIds: ['chelation-combination-memory'],
+  uncertain: true,
+  evaluate: (context) => {
+    if (context.activeDrugs.size < 2) return [];
+    return [
+      {
+        severity: 'information',
+        text: `Combined chelation on ${context.asOf}: ${context.active.map((regimen) => `${regimenName(regimen)}${regimen.period.daysPerWeek < 7 ? ` on ${regimen.period.daysPerWeek} days a week` : ''}`).join(' with ')}; the monitoring of each drug applies.`,
+        triggers: context.active.map((regimen) => doseTrigger(regimen, context.asOf)),
+        drugs: [...context.activeDrugs],
+      },
+    ];
+  },
+});
+
+export const pregnancyRule = defineRule({
+  id: 'pregnancy-or-breastfeeding',
+  title: 'Pregnancy or breastfeeding recorded',
+  severity: 'urgent',
+  drugs: ['deferoxamine', 'deferiprone', 'deferasirox'],
+  sourceIds: ['chelation-pregnancy-labels'],
+  uncertain: false,
+  evaluate: (context) => {
+    const pregnancy = context.caseFile.patient.pregnancy;
+    if (pregnancy.status === 'not-pregnant') return [];
+    const status = pregnancy.status === 'pregnant' ? 'Pregnancy' : 'Breastfeeding';
+    const recorded = pregnancy.recordedOn ? ` (recorded ${pregnancy.recordedOn})` : '';
+    const drugs = [...context.activeDrugs];
+    const on = drugs.length > 0 ? ` with ${drugs.join(' and ')} running` : ' with no chelator running';
+    return [
+      {
+        severity: 'urgent',
+        text: `${status}${recorded}${on}: flagged for the prescriber; the tool computes no dose or dose comparison for pregnancy or breastfeeding.`,
+        triggers: [{ name: 'pregnancy status', value: pregnancy.status, unit: '', date: pregnancy.recordedOn, ref: 'patient.pregnancy' }],
+        drugs,
+      },
+    ];
+  },
+});
+
+export const ascorbicAcidRule = defineRule({
+  id: 'ascorbic-acid-with-deferoxamine',
+  title: 'Ascorbic acid only with deferoxamine, within its usual dose and cap, not in cardiac failure',
+  severity: 'review',
+  drugs: ['deferoxamine'],
+  sourceIds: ['ascorbic-acid-deferoxamine'],
+  uncertain: false,
+  evaluate: (context) =>
+    context.activeCoMedications.flatMap(({ coMedication, ref }): FindingDraft[] => {
+      const perDoseMg = coMedication.dose.unit === 'mg' ? coMedication.dose.value : coMedication.dose.value * context.weightKg;
+      const deferoxamine = context.active.find((regimen) => regimen.period.drug === 'deferoxamine');
+      // With each infusion: as many doses a day as deferoxamine administrations (one overnight infusion → one dose).
+      const dosesPerDay = coMedication.timing === 'with-each-deferoxamine-infusion' ? (deferoxamine?.period.administrationsPerDay ?? 1) : 1;
+      const mgPerDay = perDoseMg * dosesPerDay;
+      const mgPerKgPerDay = mgPerDay / context.weightKg;
+      const triggers: TriggerValue[] = [
+        { name: 'ascorbic acid per day', value: mgPerDay, unit: 'mg/d', date: coMedication.startDate, ref },
+        { name: 'ascorbic acid per kg per day', value: mgPerKgPerDay, unit: 'mg/kg/d', date: context.asOf, ref },
+      ];
+      const amount = `Ascorbic acid ${shown(mgPerDay, 0)} mg a day (${shown(mgPerKgPerDay, 1)} mg/kg/day at ${shown(context.weightKg, 1)} kg; ${ref})`;
+      if (!deferoxamine) {
+        return [{ severity: 'review', text: `${amount} with no deferoxamine running: the guidance pairs ascorbic acid with deferoxamine only; ${forPrescriberReview}.`, triggers }];
+      }
+      const findings: FindingDraft[] = [];
+      const runStart = continuousRunStart(context.caseFile.chelationPeriods, 'deferoxamine', context.asOf)!;
+      if (coMedication.startDate < runStart) {
+        findings.push({ severity: 'review', text: `${amount} recorded from ${coMedication.startDate}, before deferoxamine began on ${runStart}: the guidance adds it once deferoxamine is established; ${forPrescriberReview}.`, triggers });
+      }
+      const cap = context.threshold('ascorbic-acid-daily-cap');
+      const low = context.threshold('ascorbic-acid-usual-low');
+      const high = context.threshold('ascorbic-acid-usual-high');
+      const severeHeart = context.threshold('cardiac-t2star-severe');
+      const heart = context.resultsOf('cardiac-t2star').at(-1);
+      if (heart && heart.entry.measured.value < severeHeart.value) {
+        findings.push({
+          severity: 'review',
+          text: `${amount} with cardiac T2* ${shown(heart.entry.measured.value, 1)} ms (${heart.entry.date}), severe heart iron: the guidance excludes ascorbic acid in cardiac failure; ${forPrescriberReview}.`,
+          triggers: [...triggers, { name: 'cardiac T2*', value: heart.entry.measured.value, unit: 'ms', date: heart.entry.date, ref: heart.ref }],
+          thresholds: [severeHeart],
+          extraSourceIds: ['kirk-2009'],
+        });
+      }
+      if (mgPerDay > cap.value) {
+        findings.push({ severity: 'review', text: `${amount}: above ${thresholdText(cap, 'published')} mg a day; ${forPrescriberReview}.`, triggers, thresholds: [cap] });
+        return findings;
+      }
+      const usual = `the usual ${low.value}–${high.value} mg/kg/day`;
+      const position = mgPerKgPerDay > high.value ? `above ${usual}` : mgPerKgPerDay < low.value ? `below ${usual}` : `within ${usual}`;
+      findings.push({
+        severity: 'information',
+        text: `${amount} with deferoxamine: ${position}, and within ${thresholdText(cap, 'published')} mg a day; the guidance excludes cardiac failure, which the case file does not record.`,
+        triggers,
+        thresholds: [low, high, cap],
+      });
+      return findings;
+    }),
+});
+
+export const regimenRules = [
+  doseRangeRule,
+  deferoxamineGrowthRule,
+  deferoxamineIntravenousRateRule,
+  deferoxamineTherapeuticIndexRule,
+  deferoxamineHearingEyesRule,
+  ascorbicAcidRule,
+  chelatorCombinationRule,
+  pregnancyRule,
+] as const;
