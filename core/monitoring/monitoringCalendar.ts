@@ -1,0 +1,182 @@
+import { addDaysIso, addMonthsIso, daysBetween, isIsoDate, type IsoDate } from '../dates';
+import type { Case, ChelationPeriod } from '../model/caseFile';
+import { periodsActiveOn } from '../model/periodsActiveOn';
+import { resultsOfKindBetween } from '../model/resultsOfKindBetween';
+import { earliestCaseDate } from '../model/caseDate';
+import { ageInDecimalYears } from '../patient/age';
+import { fail, issue, ok, type Result } from '../result';
+import { defaultAncIntervalDays, monitoringRules, type MonitoringInterval, type MonitoringItemId, type MonitoringRule } from './monitoringRules';
+
+export interface MonitoringOptions {
+  /** Days between ANC checks on deferiprone, 1–90; default 7 (weekly: older labels and the EU text). */
+  readonly ancIntervalDays?: number;
+}
+
+export type MonitoringStatus = 'overdue' | 'due-now' | 'upcoming';
+
+export interface MonitoringItem {
+  readonly id: MonitoringItemId;
+  readonly ruleId: string;
+  readonly what: string;
+  readonly why: string;
+  readonly sourceIds: readonly string[];
+  /** The drugs on the review date that bring this item in (empty for ferritin, liver iron, cardiac T2* when no chelator runs). */
+  readonly drugs: readonly ChelationPeriod['drug'][];
+  readonly interval: MonitoringInterval;
+  /** "every 1 month", "every 7 days". */
+  readonly intervalText: string;
+  /** Date of the last result on or before the review date; null: none on record. */
+  readonly lastDate: IsoDate | null;
+  readonly dueDate: IsoDate;
+  readonly status: MonitoringStatus;
+  readonly overdue: boolean;
+  /** Days past the due date on the review date (0 unless overdue). */
+  readonly daysOverdue: number;
+}
+
+export interface MonitoringSkipped {
+  readonly id: MonitoringItemId;
+  readonly what: string;
+  readonly reason: string;
+}
+
+export interface MonitoringCalendar {
+  readonly caseLabel: string;
+  readonly asOf: IsoDate;
+  /** Earliest due first; on the same date, in the rules' order. */
+  readonly items: readonly MonitoringItem[];
+  /** Rules that do not apply to this case on this date, with the reason (never hidden). */
+  readonly notApplicable: readonly MonitoringSkipped[];
+  readonly assumptions: readonly string[];
+}
+
+const ancIntervalRange = { min: 1, max: 90 } as const;
+
+function addInterval(date: IsoDate, interval: MonitoringInterval): IsoDate {
+  return 'months' in interval ? addMonthsIso(date, interval.months) : addDaysIso(date, interval.days);
+}
+
+function intervalText(interval: MonitoringInterval): string {
+  if ('months' in interval) return interval.months === 1 ? 'monthly' : interval.months === 12 ? 'yearly' : `every ${interval.months} months`;
+  return interval.days === 7 ? 'weekly' : `every ${interval.days} days`;
+}
+
+function ageOn(theCase: Case, asOf: IsoDate): number | undefined {
+  const age = theCase.patient.age;
+  if (age.kind === 'birth-date') {
+    const years = ageInDecimalYears(age.birthDate, asOf);
+    return years.ok ? years.value : undefined;
+  }
+  // Age stated on a date: add the calendar time since then (365.2425-day mean Gregorian year).
+  return age.years + daysBetween(age.onDate, asOf) / 365.2425;
+}
+
+interface Applicability {
+  readonly applies: boolean;
+  readonly drugs: readonly ChelationPeriod['drug'][];
+  readonly reason: string;
+}
+
+function applicability(rule: MonitoringRule, theCase: Case, asOf: IsoDate, active: readonly ChelationPeriod[]): Applicability {
+  const activeDrugs = [...new Set(active.map((it) => it.drug))];
+  switch (rule.condition.kind) {
+    case 'on-drug': {
+      const drugs = activeDrugs.filter((drug) => (rule.condition as { drugs: readonly string[] }).drugs.includes(drug));
+      return { applies: drugs.length > 0, drugs, reason: `no ${rule.condition.drugs.join(' or ')} running on ${asOf}` };
+    }
+    case 'iron-loaded-programme': {
+      const yearBefore = addMonthsIso(asOf, -12);
+      const transfused = theCase.transfusions.some((it) => yearBefore <= it.date && it.date <= asOf);
+      return { applies: activeDrugs.length > 0 || transfused, drugs: activeDrugs, reason: `no chelator running on ${asOf} and no transfusion in the 12 months before` };
+    }
+    case 'thalassaemia-major-from-age': {
+      const age = ageOn(theCase, asOf);
+      const isTm = theCase.patient.diagnosisGroup === 'thalassaemia-major';
+      const oldEnough = age !== undefined && age >= rule.condition.minAgeYears;
+      const reason = !isTm
+        ? `the yearly rule is for thalassaemia major (this case: ${theCase.patient.diagnosisGroup}); local protocol decides otherwise`
+        : `age ${age === undefined ? 'unknown' : Math.floor(age)} years on ${asOf}, under ${rule.condition.minAgeYears}; earlier where indicated (local decision)`;
+      return { applies: isTm && oldEnough, drugs: activeDrugs, reason };
+    }
+  }
+}
+
+function ruleInterval(rule: MonitoringRule, asOf: IsoDate, active: readonly ChelationPeriod[], drugs: readonly ChelationPeriod['drug'][]): MonitoringInterval {
+  if (!rule.firstMonthInterval) return rule.interval;
+  const inFirstMonth = active.some((period) => drugs.includes(period.drug) && asOf < addMonthsIso(period.startDate, 1));
+  return inFirstMonth ? rule.firstMonthInterval : rule.interval;
+}
+
+/**
+ * The monitoring due for a case on a review date: for each check the active
+ * regimens and the diagnosis call for (creatinine, ALT, ANC, ferritin, liver
+ * iron, cardiac T2*, hearing, eyes), the last result on record, the due date
+ * and whether it is overdue. A check with nothing on record is due on the
+ * review date. Rules that do not apply are listed with the reason.
+ *
+ * due date = last result date + interval (calendar months, or days); with no
+ * result on record, the review date. Overdue: due date before the review date.
+ *
+ * Sources: see monitoringRules.ts (deferasirox and deferoxamine labels,
+ * deferiprone ANC texts, guideline literature, common practice).
+ *
+ * @param theCase - a parsed case (core/model); not changed
+ * @param asOf - the review date 'YYYY-MM-DD' (1900–2100); results after it are ignored
+ * @param options - ancIntervalDays 1–90 (default 7)
+ * @returns the calendar, or an issue naming the field, the value and the range
+ * @example monitoringCalendar(TH-0417, '2026-11-20') → creatinine: last 2026-09-29, due 2026-10-29, overdue by 22 days;
+ *   hearing: none on record, due 2026-11-20 (due now)
+ */
+export function monitoringCalendar(theCase: Case, asOf: IsoDate, options: MonitoringOptions = {}): Result<MonitoringCalendar> {
+  if (!isIsoDate(asOf) || asOf < earliestCaseDate) {
+    return fail(issue('invalid_date', ['asOf'], `Review date "${asOf}" is not a calendar date; enter it as YYYY-MM-DD.`));
+  }
+  const ancIntervalDays = options.ancIntervalDays ?? defaultAncIntervalDays;
+  if (!Number.isInteger(ancIntervalDays) || ancIntervalDays < ancIntervalRange.min || ancIntervalDays > ancIntervalRange.max) {
+    return fail(
+      issue('out_of_range', ['ancIntervalDays'], `ANC interval ${ancIntervalDays} days is outside the plausible range ${ancIntervalRange.min}–${ancIntervalRange.max} whole days.`),
+    );
+  }
+  const active = periodsActiveOn(theCase.chelationPeriods, asOf);
+  const items: MonitoringItem[] = [];
+  const notApplicable: MonitoringSkipped[] = [];
+  for (const rule of monitoringRules(ancIntervalDays)) {
+    const fit = applicability(rule, theCase, asOf, active);
+    if (!fit.applies) {
+      notApplicable.push({ id: rule.itemId, what: rule.what, reason: fit.reason });
+      continue;
+    }
+    const interval = ruleInterval(rule, asOf, active, fit.drugs);
+    const lastDate = rule.resultKind === null ? null : (resultsOfKindBetween(theCase.results, rule.resultKind, earliestCaseDate, asOf).at(-1)?.date ?? null);
+    const dueDate = lastDate === null ? asOf : addInterval(lastDate, interval);
+    const status: MonitoringStatus = dueDate < asOf ? 'overdue' : dueDate === asOf ? 'due-now' : 'upcoming';
+    items.push({
+      id: rule.itemId,
+      ruleId: rule.id,
+      what: rule.what,
+      why: rule.why,
+      sourceIds: rule.sourceIds,
+      drugs: fit.drugs,
+      interval,
+      intervalText: intervalText(interval),
+      lastDate,
+      dueDate,
+      status,
+      overdue: status === 'overdue',
+      daysOverdue: status === 'overdue' ? daysBetween(dueDate, asOf) : 0,
+    });
+  }
+  const order = new Map(items.map((it, index) => [it.ruleId, index]));
+  items.sort((first, second) => (first.dueDate < second.dueDate ? -1 : first.dueDate > second.dueDate ? 1 : order.get(first.ruleId)! - order.get(second.ruleId)!));
+  return ok({
+    caseLabel: theCase.patient.label,
+    asOf,
+    items,
+    notApplicable,
+    assumptions: [
+      'A check with no result on record is shown as due on the review date; the case file has no field for hearing or eye results, so those are always "none on record".',
+      `ANC on deferiprone every ${ancIntervalDays} days${ancIntervalDays === defaultAncIntervalDays ? ' (the default; the 2025 US label allows less frequent checks case by case)' : ''}.`,
+      'Intervals run from the last result on record on or before the review date; a calendar month ends on the same day of the next month, or on its last day.',
+    ],
+  });
+}
