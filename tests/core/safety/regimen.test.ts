@@ -1,0 +1,125 @@
+import { afterAll, describe, expect, it } from 'vitest';
+import { addDaysIso } from '../../../core/dates';
+import { expectDescriptive, reviewDate, findingsFor, ofRule, period, producedTexts, result, smallCase } from './safetyCases';
+
+afterAll(() => expectDescriptive(producedTexts));
+
+const withPeriods = (periods: readonly Record<string, unknown>[], options: Parameters<typeof smallCase>[0] = {}) => smallCase({ ...options, chelationPeriods: periods });
+
+describe('dose-outside-published-range (chelator catalogue: labels; references.md §3)', () => {
+  it('deferasirox film-coated 28 mg/kg/day is inside 7–28; 29 is above', () => {
+    expect(ofRule(findingsFor(withPeriods([period('deferasirox', 28)])), 'dose-outside-published-range')).toHaveLength(0);
+    const [finding] = ofRule(findingsFor(withPeriods([period('deferasirox', 29)])), 'dose-outside-published-range');
+    expect(finding!.text).toContain('above the published range 7–28 mg/kg/day');
+    expect(finding!.sourceIds).toContain('deferasirox-label');
+  });
+
+  it('deferasirox dispersible 9 mg/kg/day is below 10–40; deferiprone 101 mg/kg/day is above "up to 100"', () => {
+    expect(ofRule(findingsFor(withPeriods([period('deferasirox', 9, { formulation: 'dispersible-tablet' })])), 'dose-outside-published-range')[0]!.text).toContain('below the published range 10–40');
+    expect(ofRule(findingsFor(withPeriods([period('deferiprone', 101, { administrationsPerDay: 1 })])), 'dose-outside-published-range')[0]!.text).toContain('up to 100 mg/kg/day');
+    expect(ofRule(findingsFor(withPeriods([period('deferiprone', 100, { administrationsPerDay: 1 })])), 'dose-outside-published-range')).toHaveLength(0);
+  });
+});
+
+describe('deferoxamine-growth-limit (deferoxamine label; Brittenham 2011: ≤ 40 mg/kg/day while growing; < 18 years as growing is common practice)', () => {
+  it('a 10-year-old at 40 mg/kg/day: information "at"; at 41: review "above"', () => {
+    const at = ofRule(findingsFor(withPeriods([period('deferoxamine', 40)], { ageYears: 10, weightKg: 30 })), 'deferoxamine-growth-limit');
+    expect(at[0]!.severity).toBe('information');
+    expect(at[0]!.text).toContain('at the labelled threshold of 40');
+    const above = ofRule(findingsFor(withPeriods([period('deferoxamine', 41)], { ageYears: 17.9, weightKg: 30 })), 'deferoxamine-growth-limit');
+    expect(above[0]!.severity).toBe('review');
+  });
+
+  it('an 18-year-old at 50 mg/kg/day: no growth finding (and inside 20–60)', () => {
+    const findings = findingsFor(withPeriods([period('deferoxamine', 50)], { ageYears: 18 }));
+    expect(ofRule(findings, 'deferoxamine-growth-limit')).toHaveLength(0);
+    expect(ofRule(findings, 'dose-outside-published-range')).toHaveLength(0);
+  });
+});
+
+describe('deferoxamine-intravenous-rate (deferoxamine label: at most 15 mg/kg/h)', () => {
+  it('50 mg/kg over 3 h (16.7 mg/kg/h) is above; over 4 h (12.5) is not', () => {
+    const iv = (hours: number) => withPeriods([period('deferoxamine', 50, { route: 'intravenous', infusionHours: hours })]);
+    expect(ofRule(findingsFor(iv(3)), 'deferoxamine-intravenous-rate')[0]!.text).toContain('16.7 mg/kg/h');
+    expect(ofRule(findingsFor(iv(4)), 'deferoxamine-intravenous-rate')).toHaveLength(0);
+  });
+});
+
+describe('deferoxamine-therapeutic-index (Porter et al., Br J Haematol 1989;73:403: greater than 0.025)', () => {
+  const withFerritin = (ferritin: number) =>
+    withPeriods([period('deferoxamine', 35)], { results: [result('ferritin', 5, ferritin, 'ug/L'), result('liver-iron', 100, 6, 'mg/g{dry}', { method: 'biopsy' })] });
+
+  it('35 mg/kg on 5 nights with ferritin 1000: 25 / 1000 = 0.025 exactly, not above (information)', () => {
+    const [finding] = ofRule(findingsFor(withFerritin(1000)), 'deferoxamine-therapeutic-index');
+    expect(finding!.severity).toBe('information');
+    expect(finding!.triggers[0]!.value).toBe((35 * 5) / 7 / 1000);
+    expect(finding!.triggers[0]!.derivation!.formulaId).toBe('dfo-therapeutic-index');
+  });
+
+  it('ferritin 996: 25 / 996 ≈ 0.0251, above 0.025 (review)', () => {
+    const [finding] = ofRule(findingsFor(withFerritin(996)), 'deferoxamine-therapeutic-index');
+    expect(finding!.severity).toBe('review');
+    expect(finding!.text).toContain('therapeutic index 0.0251');
+    expect(finding!.triggers[0]!.value).toBeCloseTo(25 / 996, 12);
+  });
+});
+
+describe('deferoxamine-hearing-eyes (deferoxamine label: yearly audiology and eye examinations)', () => {
+  it('on deferoxamine: information that the case holds no audiology or eye results; otherwise nothing', () => {
+    const [finding] = ofRule(findingsFor(withPeriods([period('deferoxamine', 40)])), 'deferoxamine-hearing-eyes');
+    expect(finding!.severity).toBe('information');
+    expect(finding!.text).toContain('no audiology or eye results');
+    expect(ofRule(findingsFor(withPeriods([period('deferasirox', 14)])), 'deferoxamine-hearing-eyes')).toHaveLength(0);
+  });
+});
+
+describe('ascorbic-acid-with-deferoxamine (guideline literature and label: 2–3 mg/kg/day, ≤ 200 mg/day, only with deferoxamine, not in cardiac failure)', () => {
+  const ascorbic = (mg: number, startDaysBefore = 300) => ({
+    id: `vc-${mg}`,
+    substance: 'ascorbic-acid',
+    dose: { value: mg, unit: 'mg' },
+    timing: 'with-each-deferoxamine-infusion',
+    startDate: addDaysIso(reviewDate, -startDaysBefore),
+    endDate: null,
+  });
+
+  it('150 mg a day at 60 kg (2.5 mg/kg/day) with deferoxamine: information "within"', () => {
+    const [finding, ...rest] = ofRule(findingsFor(smallCase({ chelationPeriods: [period('deferoxamine', 40)], coMedications: [ascorbic(150)] })), 'ascorbic-acid-with-deferoxamine');
+    expect(rest).toHaveLength(0);
+    expect(finding!.severity).toBe('information');
+    expect(finding!.text).toContain('within the usual 2–3 mg/kg/day');
+  });
+
+  it('250 mg a day is above the 200 mg cap: review', () => {
+    const found = ofRule(findingsFor(smallCase({ chelationPeriods: [period('deferoxamine', 40)], coMedications: [ascorbic(250)] })), 'ascorbic-acid-with-deferoxamine');
+    expect(found[0]!.severity).toBe('review');
+    expect(found[0]!.text).toContain('above the published threshold of 200 mg a day');
+  });
+
+  it('without deferoxamine: review; with severe heart iron (T2* 8 ms): review', () => {
+    expect(ofRule(findingsFor(smallCase({ chelationPeriods: [period('deferasirox', 14)], coMedications: [ascorbic(150)] })), 'ascorbic-acid-with-deferoxamine')[0]!.text).toContain('no deferoxamine running');
+    const heart = smallCase({
+      chelationPeriods: [period('deferoxamine', 40)],
+      coMedications: [ascorbic(150)],
+      results: [result('cardiac-t2star', 20, 8, 'ms', { fieldStrengthT: 1.5 }), result('liver-iron', 20, 8, 'mg/g{dry}', { method: 'biopsy' })],
+    });
+    expect(ofRule(findingsFor(heart), 'ascorbic-acid-with-deferoxamine').some((it) => it.severity === 'review' && it.text.includes('cardiac failure'))).toBe(true);
+  });
+});
+
+describe('chelator-combination and pregnancy-or-breastfeeding', () => {
+  it('two chelators: information listing both; one: nothing', () => {
+    const [finding] = ofRule(findingsFor(withPeriods([period('deferiprone', 25), period('deferoxamine', 40)])), 'chelator-combination');
+    expect(finding!.text).toContain('deferiprone tablet 75 mg/kg/day with deferoxamine vial 40 mg/kg/day on 5 days a week');
+    expect(ofRule(findingsFor(withPeriods([period('deferiprone', 25)])), 'chelator-combination')).toHaveLength(0);
+  });
+
+  it('pregnancy: urgent flag only, first in the list, with no dose arithmetic', () => {
+    const findings = findingsFor(withPeriods([period('deferasirox', 14)], { pregnancy: 'pregnant', sexAtBirth: 'female' }));
+    expect(findings[0]!.ruleId).toBe('pregnancy-or-breastfeeding');
+    expect(findings[0]!.severity).toBe('urgent');
+    expect(findings[0]!.text).not.toMatch(/mg\/kg/);
+    expect(ofRule(findingsFor(withPeriods([period('deferasirox', 14)], { pregnancy: 'breastfeeding', sexAtBirth: 'female' })), 'pregnancy-or-breastfeeding')[0]!.text).toMatch(/^Breastfeeding/);
+    expect(ofRule(findingsFor(withPeriods([period('deferasirox', 14)])), 'pregnancy-or-breastfeeding')).toHaveLength(0);
+  });
+});
