@@ -45,6 +45,13 @@ describe('dose command', () => {
     expect(out).toContain('source: local-formulary (local catalogue)');
   });
 
+  it('reads back its own dose --list --json as a local catalogue (the documented shape)', () => {
+    const listed = cli(['dose', '--list', '--json']).out;
+    const again = cli(['dose', '--list', '--json', '--catalogue', 'copy.json'], { 'copy.json': listed });
+    expect(again.code).toBe(0);
+    expect(again.out).toBe(listed);
+  });
+
   it('lists the products with their strengths', () => {
     const { code, out } = cli(['dose', '--list']);
     expect(code).toBe(0);
