@@ -4,7 +4,9 @@ import { methodAppendix } from '../../core/report/methodAppendix';
 import { isIsoDate } from '../../core/dates/isoDate';
 import type { Case } from '../../core/model/caseFile';
 import { formatIssues, type Issue, type Result } from '../../core/result';
+import { evaluateFindings, type Finding } from '../../core/safety';
 import type { ParsedArgs } from './args';
+import { formatFindings } from './findingsCommand';
 import { decisionSupportCaution, formatNumber, formatPlain, withUnit } from './format';
 import { exitCodes, type CliIo } from './io';
 
@@ -84,19 +86,31 @@ export function computeCommand(args: ParsedArgs, io: CaseIo): number {
     io.err(formatIssues(computed.issues));
     return exitCodes.invalidInput;
   }
+  const findings = evaluateFindings(result.value, computed.value, asOf);
+  if (!findings.ok) {
+    io.err(formatIssues(findings.issues));
+    return exitCodes.invalidInput;
+  }
   printWarnings(result.warnings, io);
-  io.out(args.switches.has('--json') ? JSON.stringify({ caution: decisionSupportCaution, results: computed.value }, null, 2) : formatResults(computed.value));
+  io.out(
+    args.switches.has('--json')
+      ? JSON.stringify({ caution: decisionSupportCaution, results: computed.value, findings: findings.value }, null, 2)
+      : formatResults(computed.value, findings.value),
+  );
   return exitCodes.ok;
 }
 
 const fmt = (value: number, decimals = 1) => formatNumber(value, decimals);
 
 /** The readable summary of a computed case. */
-export function formatResults(results: CaseResults): string {
+export function formatResults(results: CaseResults, findings: readonly Finding[] = []): string {
   const lines: string[] = [];
   const age = results.patient.ageYears === null ? 'age unknown' : `${Math.floor(results.patient.ageYears)} years`;
   lines.push(`Iron review for ${results.patient.label} (${age}, ${fmt(results.patient.weightKg, 0)} kg, ${results.patient.diagnosisGroup}) as of ${results.asOf}`);
   lines.push(`  ${decisionSupportCaution}`);
+  lines.push('');
+  lines.push('Findings (urgent first; `findings` lists them alone):');
+  lines.push(formatFindings(findings, '  '));
   lines.push('');
   const intake = results.intake;
   lines.push(`Transfusional iron, ${intake.windowFrom} to ${results.asOf} (${intake.windowDays} days):`);
