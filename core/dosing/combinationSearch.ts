@@ -24,7 +24,12 @@ export interface Combination {
   readonly pieces: readonly PieceCount[];
 }
 
-/** Half-milligram units of an amount in mg (exact for whole and half mg). */
+/**
+ * Half-milligram units of an amount in mg (exact for whole and half mg).
+ * @param amountMg - mg, 0 or more
+ * @returns half-mg units, rounded to the nearest whole unit
+ * @example halfMgUnitsFromMg(62.5) === 125
+ */
 export function halfMgUnitsFromMg(amountMg: number): number {
   return Math.round(amountMg * 2);
 }

@@ -55,6 +55,10 @@ export const defaultAncIntervalDays = 7;
  *   10 years: guideline literature, secondary (monitoring-mri-yearly);
  * - hearing and eyes yearly on deferoxamine (label, confirmed per
  *   references.md §4) and on deferasirox (label; secondary, from memory).
+ *
+ * @param ancIntervalDays - days between ANC checks on deferiprone, 1–90 (validated by the calendar)
+ * @returns the rules, in the order the calendar lists items due on the same date
+ * @example monitoringRules(7).find((it) => it.itemId === 'neutrophils')?.interval → { days: 7 }
  */
 export function monitoringRules(ancIntervalDays: number): readonly MonitoringRule[] {
   return [

@@ -151,3 +151,12 @@ describe('monitoring calendar rules', () => {
     }
   });
 });
+
+describe('doc-comment examples', () => {
+  it('monitoringRules(7) checks ANC every 7 days; halfMgUnitsFromMg(62.5) is 125', async () => {
+    const { monitoringRules } = await import('../../../core/monitoring');
+    const { halfMgUnitsFromMg } = await import('../../../core/dosing');
+    expect(monitoringRules(7).find((it) => it.itemId === 'neutrophils')?.interval).toEqual({ days: 7 });
+    expect(halfMgUnitsFromMg(62.5)).toBe(125);
+  });
+});
