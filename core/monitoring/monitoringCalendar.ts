@@ -150,12 +150,13 @@ export function monitoringCalendar(theCase: Case, asOf: IsoDate, options: Monito
     const lastDate = rule.resultKind === null ? null : (resultsOfKindBetween(theCase.results, rule.resultKind, earliestCaseDate, asOf).at(-1)?.date ?? null);
     const dueDate = lastDate === null ? asOf : addInterval(lastDate, interval);
     const status: MonitoringStatus = dueDate < asOf ? 'overdue' : dueDate === asOf ? 'due-now' : 'upcoming';
+    const perDrug = rule.byDrug ? fit.drugs.map((drug) => rule.byDrug![drug]).filter((it) => it !== undefined) : [];
     items.push({
       id: rule.itemId,
       ruleId: rule.id,
       what: rule.what,
-      why: rule.why,
-      sourceIds: rule.sourceIds,
+      why: perDrug.length > 0 ? perDrug.map((it) => it.why).join(' ') : rule.why,
+      sourceIds: perDrug.length > 0 ? [...new Set(perDrug.flatMap((it) => it.sourceIds))] : rule.sourceIds,
       drugs: fit.drugs,
       interval,
       intervalText: intervalText(interval),

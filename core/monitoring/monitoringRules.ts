@@ -37,6 +37,11 @@ export interface MonitoringRule {
   /** Why, as a pharmacist would write it; names the source's standing. */
   readonly why: string;
   readonly sourceIds: readonly string[];
+  /**
+   * For a rule several drugs bring in with different sources (hearing, eyes):
+   * the sentence and sources per drug; the calendar keeps those of the drugs running.
+   */
+  readonly byDrug?: Readonly<Partial<Record<'deferasirox' | 'deferiprone' | 'deferoxamine', { readonly why: string; readonly sourceIds: readonly string[] }>>>;
 }
 
 /** Default interval of ANC checks on deferiprone, days: weekly per older labels and the EU text; configurable (monitoring-deferiprone-anc). */
@@ -133,6 +138,10 @@ export function monitoringRules(ancIntervalDays: number): readonly MonitoringRul
       interval: { months: 12 },
       why: 'On deferoxamine: hearing yearly (label; confirmed). On deferasirox: auditory testing yearly (label; secondary, from memory).',
       sourceIds: ['monitoring-deferoxamine-label', 'monitoring-deferasirox-label'],
+      byDrug: {
+        deferoxamine: { why: 'On deferoxamine: hearing yearly (label; confirmed).', sourceIds: ['monitoring-deferoxamine-label'] },
+        deferasirox: { why: 'On deferasirox: auditory testing yearly (label; secondary, from memory).', sourceIds: ['monitoring-deferasirox-label'] },
+      },
     },
     {
       id: 'eyes-yearly',
@@ -143,6 +152,10 @@ export function monitoringRules(ancIntervalDays: number): readonly MonitoringRul
       interval: { months: 12 },
       why: 'On deferoxamine: eye examination yearly (label; confirmed). On deferasirox: ophthalmic testing yearly (label; secondary, from memory).',
       sourceIds: ['monitoring-deferoxamine-label', 'monitoring-deferasirox-label'],
+      byDrug: {
+        deferoxamine: { why: 'On deferoxamine: eye examination yearly (label; confirmed).', sourceIds: ['monitoring-deferoxamine-label'] },
+        deferasirox: { why: 'On deferasirox: ophthalmic testing yearly (label; secondary, from memory).', sourceIds: ['monitoring-deferasirox-label'] },
+      },
     },
   ];
 }
