@@ -59,11 +59,11 @@ export const mriFieldStrengthRule = defineRule({
       }
       const r2Star = entry.method === 'mri-r2star' ? entry.measured.value : 1000 / entry.measured.value;
       const converted = licFromR2Star(perSecond(r2Star), tesla(entry.fieldStrengthT), calibration);
-      if (converted.ok) return [];
+      if (converted.ok || !converted.issues.some((it) => it.code === 'field_strength_mismatch')) return [];
       return [
         {
           severity: 'review',
-          text: `Liver ${entry.method === 'mri-r2star' ? 'R2*' : 'T2*'} of ${entry.date} (${entry.fieldStrengthT} T) is not converted to liver iron: ${converted.issues.map((it) => it.message).join(' ')} This result is left out of the liver iron account; ${forPrescriberReview}.`,
+          text: `Liver ${entry.method === 'mri-r2star' ? 'R2*' : 'T2*'} of ${entry.date} measured at ${entry.fieldStrengthT} T is recorded with the ${calibration.label} calibration for ${calibration.fieldStrengthTesla} T: R2* rises with field strength, so the conversion is refused and the result is left out of the liver iron account; a calibration derived at ${entry.fieldStrengthT} T, or the liver iron the MRI report gives, is needed; ${forPrescriberReview}.`,
           triggers: [trigger],
         },
       ];

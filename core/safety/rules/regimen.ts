@@ -2,15 +2,16 @@ import { findChelator } from '../../chelators/catalogue';
 import { dfoTherapeuticIndex } from '../../chelators/formulas';
 import { runFormula } from '../../formulas/run';
 import { continuousRunStart } from '../continuousRunStart';
-import type { ActiveRegimen, SafetyContext } from '../context';
+import type { ActiveRegimen } from '../context';
 import { defineRule } from '../rule';
 import { doseThresholdId, thresholdText } from '../thresholds';
 import type { FindingDraft, TriggerValue } from '../types';
 import { capitalised, forPrescriberReview, shown } from '../wording';
 
 /** 'Deferasirox film-coated-tablet 21 mg/kg/day' — the regimen as a finding names it. */
-function regimenName(regimen: ActiveRegimen): string {
-  return `${capitalised(regimen.period.drug)} ${regimen.period.formulation} ${shown(regimen.doseMgPerKgPerDay, 1)} mg/kg/day`;
+function regimenName(regimen: ActiveRegimen, openingSentence = true): string {
+  const drug = openingSentence ? capitalised(regimen.period.drug) : regimen.period.drug;
+  return `${drug} ${regimen.period.formulation} ${shown(regimen.doseMgPerKgPerDay, 1)} mg/kg/day`;
 }
 
 function doseTrigger(regimen: ActiveRegimen, asOf: string): TriggerValue {
@@ -189,7 +190,7 @@ export const chelatorCombinationRule = defineRule({
     return [
       {
         severity: 'information',
-        text: `Combined chelation on ${context.asOf}: ${context.active.map((regimen) => `${regimenName(regimen)}${regimen.period.daysPerWeek < 7 ? ` on ${regimen.period.daysPerWeek} days a week` : ''}`).join(' with ')}; the monitoring of each drug applies.`,
+        text: `Combined chelation on ${context.asOf}: ${context.active.map((regimen) => `${regimenName(regimen, false)}${regimen.period.daysPerWeek < 7 ? ` on ${regimen.period.daysPerWeek} days a week` : ''}`).join(' with ')}; the monitoring of each drug applies.`,
         triggers: context.active.map((regimen) => doseTrigger(regimen, context.asOf)),
         drugs: [...context.activeDrugs],
       },

@@ -218,7 +218,7 @@ export const deferasiroxCreatinineRiseRule = defineRule({
       return [
         {
           severity: 'review',
-          text: `Deferasirox: creatinine ${resultsText} is ${risesText} above the baseline of ${baselineText}: above ${thresholdText(threshold, 'labelled')} % on two consecutive results; ${forPrescriberReview}.`,
+          text: `Deferasirox: creatinine ${resultsText} ${lastTwo.length === 2 ? 'are' : 'is'} ${risesText} above the baseline of ${baselineText}: above ${thresholdText(threshold, 'labelled')} % on two consecutive results; ${forPrescriberReview}.`,
           triggers,
           thresholds: [threshold],
         },
