@@ -1,5 +1,5 @@
 import { computeCase, type CaseResults } from '../../core/ledger/computeCase';
-import { derivationsOf } from '../../core/ledger/derivationIndex';
+import { derivationsOf } from '../../core/report/derivationIndex';
 import { methodAppendix } from '../../core/report/methodAppendix';
 import { isIsoDate } from '../../core/dates/isoDate';
 import type { Case } from '../../core/model/caseFile';
@@ -177,7 +177,7 @@ export function formatResults(results: CaseResults, findings: readonly Finding[]
     lines.push('');
   }
   lines.push('Methods (the formulas behind the numbers above; `explain` shows each derivation):');
-  for (const formula of methodAppendix(derivationsOf(results)).formulas) {
+  for (const formula of methodAppendix(derivationsOf(results, findings)).formulas) {
     lines.push(`  ${formula.title} [${formula.formulaId}]: ${formula.expression}`);
     lines.push(`    ${formula.sources.map((source) => `${source.authors}, ${source.publication} [${source.status}]`).join('; ')}`);
   }

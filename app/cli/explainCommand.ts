@@ -1,5 +1,6 @@
 import { computeCase } from '../../core/ledger/computeCase';
-import { derivationsOf } from '../../core/ledger/derivationIndex';
+import { derivationsOf } from '../../core/report/derivationIndex';
+import { evaluateFindings } from '../../core/safety';
 import { isIsoDate } from '../../core/dates/isoDate';
 import { formatIssues } from '../../core/result';
 import type { ParsedArgs } from './args';
@@ -33,7 +34,12 @@ export function explainCommand(args: ParsedArgs, io: CaseIo): number {
     io.err(formatIssues(computed.issues));
     return exitCodes.invalidInput;
   }
-  const named = derivationsOf(computed.value);
+  const findings = evaluateFindings(loaded.value, computed.value, asOf);
+  if (!findings.ok) {
+    io.err(formatIssues(findings.issues));
+    return exitCodes.invalidInput;
+  }
+  const named = derivationsOf(computed.value, findings.value);
   if (resultId === undefined) {
     io.out([`Results of ${loaded.value.patient.label} on ${asOf} that can be explained:`, ...named.map((it) => `  ${it.id}  ${it.label}`)].join('\n'));
     return exitCodes.ok;

@@ -1,7 +1,7 @@
 import { bench, describe } from 'vitest';
 import { readFileSync } from 'node:fs';
 import { computeCase } from '../../core/ledger/computeCase';
-import { derivationsOf } from '../../core/ledger/derivationIndex';
+import { derivationsOf } from '../../core/report/derivationIndex';
 import { parseCase } from '../../core/model/parseCase';
 
 // Speed of a full review recompute with derivations on (issue 6), on the demo cases.

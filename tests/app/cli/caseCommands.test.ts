@@ -103,3 +103,14 @@ describe('explain', () => {
     expect(unknown.err).toContain('intake');
   });
 });
+
+describe('explain a finding', () => {
+  it('explains the computed trigger of a finding with the calculator that produced it', () => {
+    const list = cli('explain', demo('th-0093'));
+    expect(list.out).toContain('finding:deferoxamine-therapeutic-index');
+    const { code, out } = cli('explain', demo('th-0093'), 'finding:deferoxamine-therapeutic-index');
+    expect(code).toBe(0);
+    expect(out).toContain('[dfo-therapeutic-index]');
+    expect(out).toContain('Porter');
+  });
+});

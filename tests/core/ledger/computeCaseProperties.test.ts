@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { addDaysIso } from '../../../core/dates';
 import { computeCase } from '../../../core/ledger/computeCase';
-import { derivationsOf } from '../../../core/ledger/derivationIndex';
+import { derivationsOf } from '../../../core/report/derivationIndex';
 import { parseCase } from '../../../core/model/parseCase';
 
 // Random valid cases of every record kind: the review must compute, stay finite, and keep

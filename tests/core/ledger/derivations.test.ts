@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { computeCase } from '../../../core/ledger/computeCase';
-import { derivationsOf } from '../../../core/ledger/derivationIndex';
+import { derivationsOf } from '../../../core/report/derivationIndex';
 import { findFormula } from '../../../core/formulas/catalogue';
 import { formulaIdsIn, type Derivation } from '../../../core/formulas/derivation';
 import { runFormula } from '../../../core/formulas/run';

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { computeCase } from '../../../core/ledger/computeCase';
-import { derivationsOf } from '../../../core/ledger/derivationIndex';
+import { derivationsOf } from '../../../core/report/derivationIndex';
 import { formulaIdsIn } from '../../../core/formulas/derivation';
 import { parseCase } from '../../../core/model/parseCase';
 import { methodAppendix } from '../../../core/report/methodAppendix';
