@@ -3,7 +3,7 @@ import { monitoringCalendar, type MonitoringCalendar, type MonitoringItem } from
 import { formatIssues, type Result } from '../../core/result';
 import { itemSources, monitoringIcs, writeCalendarFile } from '../host/icalendar';
 import type { ParsedArgs } from './args';
-import type { CaseIo } from './caseCommands';
+import type { CaseIo } from './caseReview';
 import { decisionSupportCaution } from './format';
 import { exitCodes } from './io';
 

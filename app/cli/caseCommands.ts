@@ -1,20 +1,15 @@
-import { computeCase, type CaseResults } from '../../core/ledger/computeCase';
+import type { CaseResults } from '../../core/ledger/computeCase';
 import { derivationsOf } from '../../core/report/derivationIndex';
 import { methodAppendix } from '../../core/report/methodAppendix';
-import { isIsoDate } from '../../core/dates/isoDate';
 import type { Case } from '../../core/model/caseFile';
 import { formatIssues, type Issue, type Result } from '../../core/result';
-import { evaluateFindings, type Finding } from '../../core/safety';
+import type { Finding } from '../../core/safety';
 import type { ParsedArgs } from './args';
+import { reviewCase, type CaseIo } from './caseReview';
 import { formatFindings } from './findingsCommand';
 import { decisionSupportCaution, formatNumber, formatPlain, withUnit } from './format';
 import { exitCodes, type CliIo } from './io';
 
-export interface CaseIo extends CliIo {
-  readonly readCase: (path: string) => Result<Case>;
-  /** Today's date 'YYYY-MM-DD', the default review date when the case has none. */
-  readonly today: () => string;
-}
 
 function loadCase(args: ParsedArgs, io: CaseIo, command: string): { path: string; result: Result<Case> } | null {
   const path = args.positionals[0];
@@ -45,57 +40,22 @@ export function checkCommand(args: ParsedArgs, io: CaseIo): number {
   return exitCodes.ok;
 }
 
-function integerOption(args: ParsedArgs, flag: string, min: number, max: number, problems: string[]): number | undefined {
-  const raw = args.options[flag];
-  if (raw === undefined) return undefined;
-  const value = Number(raw);
-  if (!Number.isInteger(value) || value < min || value > max) {
-    problems.push(`${flag}: "${raw}" is not a whole number in ${min}–${max}.`);
-    return undefined;
-  }
-  return value;
-}
-
 /** `compute <case.json> [--as-of DATE] [--horizon-months N] [--seed N] [--json]`. */
 export function computeCommand(args: ParsedArgs, io: CaseIo): number {
-  const loaded = loadCase(args, io, 'compute');
-  if (!loaded) return exitCodes.usage;
-  const { path, result } = loaded;
-  if (!result.ok) {
-    io.err(`${path}: the case file has errors; nothing was computed.`);
-    io.err(formatIssues(result.issues));
-    return exitCodes.invalidInput;
-  }
-  const problems: string[] = [];
-  const known = new Set(['--as-of', '--horizon-months', '--seed']);
-  for (const flag of Object.keys(args.options)) if (!known.has(flag)) problems.push(`${flag}: not an option of compute (--as-of, --horizon-months, --seed, --json).`);
-  for (const flag of args.missingValues) problems.push(`${flag}: a value is missing after the flag.`);
-  const asOf = args.options['--as-of'] ?? result.value.review.reviewDate ?? io.today();
-  if (!isIsoDate(asOf)) problems.push(`--as-of: "${asOf}" is not a calendar date written YYYY-MM-DD.`);
-  const horizonMonths = integerOption(args, '--horizon-months', 1, 120, problems);
-  const seed = integerOption(args, '--seed', 0, 2 ** 31 - 1, problems);
-  if (problems.length > 0) {
-    io.err(problems.join('\n'));
-    return exitCodes.invalidInput;
-  }
-  const computed = computeCase(result.value, asOf, {
-    ...(horizonMonths !== undefined ? { horizonMonths } : {}),
-    ...(seed !== undefined ? { seed } : {}),
+  const review = reviewCase(args, io, {
+    command: 'compute',
+    usage: 'Usage: chelation-ledger compute <case.json> [--as-of YYYY-MM-DD] [--horizon-months N] [--seed N] [--json]',
+    integerOptions: {
+      '--horizon-months': { min: 1, max: 120, key: 'horizonMonths' },
+      '--seed': { min: 0, max: 2 ** 31 - 1, key: 'seed' },
+    },
   });
-  if (!computed.ok) {
-    io.err(formatIssues(computed.issues));
-    return exitCodes.invalidInput;
-  }
-  const findings = evaluateFindings(result.value, computed.value, asOf);
-  if (!findings.ok) {
-    io.err(formatIssues(findings.issues));
-    return exitCodes.invalidInput;
-  }
-  printWarnings(result.warnings, io);
+  if (typeof review === 'number') return review;
+  printWarnings(review.warnings, io);
   io.out(
     args.switches.has('--json')
-      ? JSON.stringify({ caution: decisionSupportCaution, results: computed.value, findings: findings.value }, null, 2)
-      : formatResults(computed.value, findings.value),
+      ? JSON.stringify({ caution: decisionSupportCaution, results: review.results, findings: review.findings }, null, 2)
+      : formatResults(review.results, review.findings),
   );
   return exitCodes.ok;
 }

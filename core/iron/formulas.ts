@@ -43,7 +43,7 @@ import { transfusionIronMg } from './transfusionIron';
 import { transfusionVolumeForHbRiseMl } from './transfusionVolumeForRise';
 
 /** Shared spec of the published assumption 'iron-per-ml-red-cells'. */
-const ironPerMlRedCellsInput = {
+export const ironPerMlRedCellsInput = {
   kind: 'number',
   label: 'iron per mL of pure red cells',
   unit: 'mg/mL',

@@ -1,4 +1,5 @@
 import { defineFormula, type AnyFormula } from '../formulas/types';
+import { ironPerMlRedCellsInput } from '../iron/formulas';
 import { carriedForwardStores, measuredChelationMg, netIronBalanceMg, netTransfusionalIron, projectedLic } from './balance';
 
 const lic = (label: string) =>
@@ -14,15 +15,7 @@ export const netTransfusionalIronFormula = defineFormula({
   inputs: {
     redCellsInMl: { kind: 'number', label: 'pure red cells transfused', unit: 'mL', min: 0, max: 1000000, meaning: 'Σ volume × unit haematocrit' },
     redCellsOutMl: { kind: 'number', label: 'pure red cells removed', unit: 'mL', min: 0, max: 1000000, meaning: 'Σ volume removed × patient haematocrit' },
-    ironPerMlRedCellsMg: {
-      kind: 'number',
-      label: 'iron per mL of pure red cells',
-      unit: 'mg/mL',
-      min: 0.9,
-      max: 1.25,
-      assumption: 'iron-per-ml-red-cells',
-      meaning: 'mg of iron in 1 mL of pure red cells',
-    },
+    ironPerMlRedCellsMg: ironPerMlRedCellsInput,
   },
   outputs: {
     ironInMg: { label: 'iron in', unit: 'mg', meaning: 'iron in transfused red cells', decimals: 0 },

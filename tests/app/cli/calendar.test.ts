@@ -4,7 +4,7 @@ import { join } from 'node:path';
 import ICAL from 'ical.js';
 import { describe, expect, it } from 'vitest';
 import type { CalendarHostIo } from '../../../app/cli/calendarCommand';
-import type { CaseIo } from '../../../app/cli/caseCommands';
+import type { CaseIo } from '../../../app/cli/caseReview';
 import { runCli } from '../../../app/cli/main';
 import { readCaseFile } from '../../../app/host/caseFiles';
 import { writeCalendarFile } from '../../../app/host/icalendar';

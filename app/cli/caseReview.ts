@@ -1,0 +1,83 @@
+import { isIsoDate } from '../../core/dates/isoDate';
+import { computeCase, type CaseResults, type ComputeOptions } from '../../core/ledger/computeCase';
+import type { Case } from '../../core/model/caseFile';
+import { formatIssues, type Issue, type Result } from '../../core/result';
+import { evaluateFindings, type Finding } from '../../core/safety';
+import type { ParsedArgs } from './args';
+import { exitCodes, type CliIo } from './io';
+
+export interface CaseIo extends CliIo {
+  readonly readCase: (path: string) => Result<Case>;
+  /** Today's date 'YYYY-MM-DD', the default review date when the case has none. */
+  readonly today: () => string;
+}
+
+export interface CaseReview {
+  readonly caseFile: Case;
+  readonly warnings: readonly Issue[];
+  readonly asOf: string;
+  readonly results: CaseResults;
+  readonly findings: readonly Finding[];
+}
+
+/** Options every review command takes, beyond `--as-of`: their flags and ranges. */
+export interface ReviewOptions {
+  readonly command: string;
+  /** Positionals the command takes after the case path (e.g. explain's result id). */
+  readonly extraPositionals?: number;
+  /** Whole-number options with their accepted range, passed to computeCase. */
+  readonly integerOptions?: Readonly<Record<string, { readonly min: number; readonly max: number; readonly key: keyof ComputeOptions }>>;
+  readonly usage: string;
+}
+
+/**
+ * The shared path of `compute`, `explain` and `findings`: read the case,
+ * check the options (review date, horizon, seed), compute the review and
+ * evaluate the findings. Returns the review, or the exit code after saying
+ * what was wrong (the field or flag, the value and the accepted range).
+ */
+export function reviewCase(args: ParsedArgs, io: CaseIo, options: ReviewOptions): CaseReview | number {
+  const path = args.positionals[0];
+  if (path === undefined || args.positionals.length > 1 + (options.extraPositionals ?? 0)) {
+    io.err(options.usage);
+    return exitCodes.usage;
+  }
+  const loaded = io.readCase(path);
+  if (!loaded.ok) {
+    io.err(`${path}: the case file has errors; nothing was computed.`);
+    io.err(formatIssues(loaded.issues));
+    return exitCodes.invalidInput;
+  }
+  const integerOptions = options.integerOptions ?? {};
+  const known = ['--as-of', ...Object.keys(integerOptions)];
+  const problems: string[] = [];
+  for (const flag of Object.keys(args.options)) {
+    if (!known.includes(flag)) problems.push(`${flag}: not an option of ${options.command} (${[...known, '--json'].join(', ')}).`);
+  }
+  for (const flag of args.missingValues) problems.push(`${flag}: a value is missing after the flag.`);
+  const asOf = args.options['--as-of'] ?? loaded.value.review.reviewDate ?? io.today();
+  if (!isIsoDate(asOf)) problems.push(`--as-of: "${asOf}" is not a calendar date written YYYY-MM-DD.`);
+  const computeOptions: Record<string, number> = {};
+  for (const [flag, { min, max, key }] of Object.entries(integerOptions)) {
+    const raw = args.options[flag];
+    if (raw === undefined) continue;
+    const value = Number(raw);
+    if (!Number.isInteger(value) || value < min || value > max) problems.push(`${flag}: "${raw}" is not a whole number in ${min}–${max}.`);
+    else computeOptions[key] = value;
+  }
+  if (problems.length > 0) {
+    io.err(problems.join('\n'));
+    return exitCodes.invalidInput;
+  }
+  const computed = computeCase(loaded.value, asOf, computeOptions as ComputeOptions);
+  if (!computed.ok) {
+    io.err(formatIssues(computed.issues));
+    return exitCodes.invalidInput;
+  }
+  const findings = evaluateFindings(loaded.value, computed.value, asOf);
+  if (!findings.ok) {
+    io.err(formatIssues(findings.issues));
+    return exitCodes.invalidInput;
+  }
+  return { caseFile: loaded.value, warnings: loaded.warnings ?? [], asOf, results: computed.value, findings: findings.value };
+}
