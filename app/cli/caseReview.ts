@@ -74,7 +74,8 @@ export function reviewCase(args: ParsedArgs, io: CaseIo, options: ReviewOptions)
     io.err(formatIssues(computed.issues));
     return exitCodes.invalidInput;
   }
-  const findings = evaluateFindings(loaded.value, computed.value, asOf);
+  // The local protocol's thresholds recorded in the case apply to every review of it.
+  const findings = evaluateFindings(loaded.value, computed.value, asOf, loaded.value.thresholdOverrides);
   if (!findings.ok) {
     io.err(formatIssues(findings.issues));
     return exitCodes.invalidInput;

@@ -3,7 +3,7 @@ import { assumptionOverridesSchema } from './assumptionOverrides';
 import type { CheckLevel } from './bounds';
 import { chelationPeriodSchemaAt } from './chelationPeriod';
 import { coMedicationSchemaAt } from './coMedication';
-import { entryIdSchema, requiredTextSchema } from './fields';
+import { entryIdSchema, isoDateSchema, requiredTextSchema } from './fields';
 import { patientSchemaAt } from './patient';
 import { resultEntrySchemaAt } from './resultEntry';
 import { reviewSchema } from './review';
@@ -35,6 +35,9 @@ export function caseSchemaAt(level: CheckLevel) {
     chelationPeriods: z.array(chelationPeriod).default([]),
     coMedications: z.array(coMedicationSchemaAt(level)).default([]),
     assumptionOverrides: assumptionOverridesSchema.default({}),
+    thresholdOverrides: z
+      .record(z.string(), z.strictObject({ value: z.number(), reason: requiredTextSchema(1000), by: requiredTextSchema(100), at: isoDateSchema }))
+      .default({}),
     proposedRegimens: z
       .array(z.strictObject({ id: entryIdSchema, name: requiredTextSchema(80), periods: z.array(chelationPeriod).min(1) }))
       .max(maxProposedRegimens)
@@ -64,4 +67,6 @@ export type ChelationPeriod = Case['chelationPeriods'][number];
 export type CoMedication = Case['coMedications'][number];
 export type ProposedRegimen = Case['proposedRegimens'][number];
 export type CaseAssumptionOverrides = Case['assumptionOverrides'];
+/** A local protocol's safety thresholds (core/safety/thresholds.ts), by threshold id, with why, who and when. */
+export type CaseThresholdOverrides = Case['thresholdOverrides'];
 export type Review = Case['review'];

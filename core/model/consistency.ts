@@ -1,3 +1,4 @@
+import { checkThresholdOverrides } from '../safety/thresholds';
 import { issue, type Issue } from '../result';
 import type { Case, ChelationPeriod } from './caseFile';
 import type { IsoDate } from '../dates';
@@ -130,6 +131,12 @@ function labelLooksLikeName(label: string): boolean {
  */
 export function consistencyIssues(theCase: Case): Issue[] {
   const found: Issue[] = [...duplicateIds(theCase)];
+
+  // A local protocol's threshold must name a catalogued threshold and sit in its plausible range.
+  const thresholds = checkThresholdOverrides(theCase.thresholdOverrides);
+  if (!thresholds.ok) {
+    for (const problem of thresholds.issues) found.push({ ...problem, path: ['thresholdOverrides', ...problem.path.slice(1)] });
+  }
 
   for (const { path, period } of periodsWithPaths(theCase)) {
     if (period.endDate !== null && period.endDate < period.startDate) {

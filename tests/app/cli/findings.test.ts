@@ -69,3 +69,28 @@ describe('compute includes the findings', () => {
     expect(out).toContain('At this regimen intake exceeds the expected removal by');
   });
 });
+
+describe('a local protocol threshold recorded in the case', () => {
+  it('applies to the findings and shows as local, with who set it and why; an unknown threshold is refused', () => {
+    const demoPath = new URL('../../../assets/demo/th-0093.json', import.meta.url).pathname;
+    const json = JSON.parse(readFileSync(demoPath, 'utf8'));
+    // Scenario TH-0093 (therapeutic index about 0.023): a local protocol alerting at 0.02
+    // turns the information finding into one for review (Porter 1989 publishes 0.025).
+    json.thresholdOverrides = { 'deferoxamine-therapeutic-index': { value: 0.02, reason: 'local audiology protocol', by: 'Pharmacist AB', at: '2026-11-01' } };
+    const dir = mkdtempSync(join(tmpdir(), 'cl-threshold-'));
+    writeFileSync(join(dir, 'case.json'), JSON.stringify(json));
+    const out: string[] = [];
+    const err: string[] = [];
+    const io = { out: (text: string) => out.push(text), err: (text: string) => err.push(text), readCase: readCaseFile, today: () => '2026-12-01' };
+    expect(runCli(['findings', join(dir, 'case.json'), '--json'], io)).toBe(0);
+    const findings = JSON.parse(out.join('\n')).findings as { ruleId: string; severity: string; text: string }[];
+    const index = findings.find((it) => it.ruleId === 'deferoxamine-therapeutic-index')!;
+    expect(index.severity).toBe('review');
+    expect(index.text).toContain('local audiology protocol');
+    json.thresholdOverrides = { 'no-such-threshold': { value: 1, reason: 'x', by: 'y', at: '2026-11-01' } };
+    writeFileSync(join(dir, 'case.json'), JSON.stringify(json));
+    err.length = 0;
+    expect(runCli(['check', join(dir, 'case.json')], io)).toBe(1);
+    expect(err.join('\n')).toContain('Threshold "no-such-threshold" is not catalogued');
+  });
+});
