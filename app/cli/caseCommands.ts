@@ -99,6 +99,10 @@ export function formatResults(results: CaseResults, findings: readonly Finding[]
       lines.push(
         `  ${response.fromDate} → ${response.toDate} (${response.days} days): LIC ${fmt(response.fromLicMgPerGDry)} → ${fmt(response.toLicMgPerGDry)}; intake ${fmt(response.intakeMgPerKgPerDay, 2)} mg/kg/day; chelation removal measured ${fmt(response.measuredChelationMgPerKgPerDay, 2)} vs expected ${fmt(response.expectedChelationMgPerKgPerDay, 2)} mg/kg/day (${ratio})`,
       );
+      if (response.effectiveEfficiency) {
+        const { drug, published, effective } = response.effectiveEfficiency;
+        lines.push(`    effective ${drug} efficiency ${fmt(effective * 100, 0)} % of the dose (published assumption ${fmt(published * 100, 0)} %)`);
+      }
       for (const caveat of response.caveatText) lines.push(`    caution: ${caveat}`);
     }
     lines.push('');

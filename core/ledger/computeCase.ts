@@ -65,7 +65,14 @@ export interface CaseResults {
     readonly derivation: Derivation | null;
   };
   readonly currentRegimens: readonly RegimenSummary[];
-  readonly responses: readonly (MeasuredResponse & { readonly derivation: Derivation })[];
+  readonly responses: readonly (MeasuredResponse & {
+    readonly derivation: Derivation;
+    /**
+     * When one drug was on record through the interval: its published efficiency × measured ÷ expected,
+     * the share of the dose that was in effect excreted as iron complex. Null otherwise.
+     */
+    readonly effectiveEfficiency: { readonly drug: string; readonly published: number; readonly effective: number } | null;
+  })[];
   readonly ferritin: {
     readonly trend: LogLinearTrend | null;
     readonly windowFrom: IsoDate;
@@ -270,7 +277,20 @@ export function computeCase(caseFile: Case, asOf: IsoDate, options: ComputeOptio
         },
       },
     });
-    return { ...response, derivation: run.derivation };
+    const drugs = new Set(
+      caseFile.chelationPeriods
+        .filter((period) => period.startDate <= response.toDate && (period.endDate === null || period.endDate > response.fromDate))
+        .map((period) => period.drug),
+    );
+    const [onlyDrug] = [...drugs];
+    const effectiveEfficiency =
+      drugs.size === 1 && onlyDrug !== undefined && response.measuredToExpectedRatio !== null
+        ? (() => {
+            const published = resolveAssumption(efficiencyAssumptionOf[onlyDrug], overrides).value;
+            return { drug: onlyDrug, published, effective: published * response.measuredToExpectedRatio };
+          })()
+        : null;
+    return { ...response, derivation: run.derivation, effectiveEfficiency };
   });
 
   // Ferritin trend over the window.

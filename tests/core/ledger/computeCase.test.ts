@@ -165,3 +165,17 @@ describe('balance at a published regimen', () => {
     expect(Math.abs(current.netMgPerKgPerDay)).toBeLessThan(0.12);
   });
 });
+
+describe('effective efficiency', () => {
+  it('is the published efficiency × measured ÷ expected when one drug ran through the interval', () => {
+    // TH-0417, scenario 1: deferasirox only between the LICs of 2025-11-18 and 2026-11-17.
+    const result = computeCase(parsed(readDemo('th-0417')), '2026-11-20');
+    if (!result.ok) throw new Error('not ok');
+    const last = result.value.responses[result.value.responses.length - 1]!;
+    expect(last.effectiveEfficiency!.drug).toBe('deferasirox');
+    expect(last.effectiveEfficiency!.published).toBe(0.27);
+    expect(last.effectiveEfficiency!.effective).toBeCloseTo(0.27 * last.measuredToExpectedRatio!, 12);
+    // The earlier interval mixed deferoxamine and deferasirox: no single efficiency applies.
+    expect(result.value.responses[0]!.effectiveEfficiency).toBeNull();
+  });
+});
