@@ -1,25 +1,21 @@
-import { format, isValid, parseISO } from 'date-fns';
+import { isIsoDate, toUtcDate } from '../dates/isoDate';
 import { fail, issue, ok, type Result } from '../result';
-
-/** The only date text accepted at this boundary: ISO 8601 calendar date, 'YYYY-MM-DD'. */
-const isoCalendarDatePattern = /^\d{4}-\d{2}-\d{2}$/;
 
 /**
  * Read an ISO calendar date ('YYYY-MM-DD') typed by a user or stored in a case.
- * The date is a local calendar day with no time; no clock is read.
+ * The date is a calendar day with no time, held in UTC (core/dates) so that
+ * day counts are the same on every desktop; no clock is read.
  *
  * @param text - the date text, 'YYYY-MM-DD', a real calendar day (2021-02-30 is refused)
  * @param field - input name for the issue path, e.g. 'birthDate'
  * @param label - the field in the trade's words for the message, e.g. 'birth date'
- * @returns the day as a Date at local midnight, or an 'invalid_date' issue naming field and value
+ * @returns the day as a UTC date, or an 'invalid_date' issue naming field and value
  * @example parseCalendarDate('2020-02-29', 'birthDate', 'birth date') → ok(29 Feb 2020)
  */
 export function parseCalendarDate(text: string, field: string, label: string): Result<Date> {
-  const parsed = isoCalendarDatePattern.test(text) ? parseISO(text) : new Date(Number.NaN);
-  // parseISO refuses 2021-02-30 and month 13; the round trip also guards any day overflow.
-  if (!isValid(parsed) || format(parsed, 'yyyy-MM-dd') !== text) {
+  if (!isIsoDate(text)) {
     const name = label.length > 0 ? label[0]!.toUpperCase() + label.slice(1) : label;
     return fail(issue('invalid_date', [field], `${name} "${text}" is not a calendar date written YYYY-MM-DD (for example 2011-06-15).`));
   }
-  return ok(parsed);
+  return ok(toUtcDate(text));
 }
