@@ -186,4 +186,22 @@ export const chemistrySources = [
     status: 'confirmed',
     note: 'Fatal hypocalcaemia when edetate disodium was given in place of calcium disodium edetate (references.md §7, confirmed); title as recalled (from memory).',
   },
+  {
+    id: 'edta-alpha4-textbook-table',
+    authors: 'analytical chemistry textbook (authors not confirmed)',
+    title: 'Analytical Chemistry, Table 5.7: values of α4 for EDTA as a function of pH',
+    publication: 'textbook page as reproduced online (seen through the search tool)',
+    year: null,
+    locator: 'Table 5.7',
+    status: 'secondary',
+    note: 'α4 at pH 2–12: 3.7e-14, 2.5e-11, 3.6e-9, 3.5e-7, 2.2e-5, 4.8e-4, 5.4e-3, 5.2e-2, 0.35, 0.85, 0.98.',
+  },
+  {
+    id: 'skoog-edta-constants-memory',
+    authors: 'Skoog DA, West DM, Holler FJ, Crouch SR',
+    title: 'Fundamentals of Analytical Chemistry: EDTA dissociation constants (K1 1.02e-2, K2 2.14e-3, K3 6.92e-7, K4 5.50e-11)',
+    publication: 'Brooks/Cole (edition not checked)',
+    year: null,
+    status: 'memory',
+  },
 ] as const satisfies readonly Source[];

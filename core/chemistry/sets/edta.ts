@@ -57,16 +57,20 @@ export const edtaSets: readonly LigandConstantSet[] = [
     id: 'edta-textbook-20c',
     ligand: 'edta',
     ligandName: 'edetate (EDTA)',
-    label: 'EDTA, older textbook protonation set (20 °C, 0.1 M), protonation only',
+    label: 'EDTA, older textbook protonation set (20 °C, 0.1 M; four steps), protonation only',
     temperatureC: 20,
     ionicStrengthMolPerL: 0.1,
     medium: '0.1 M',
-    sourceIds: ['harris-qca'],
+    sourceIds: ['edta-alpha4-textbook-table', 'skoog-edta-constants-memory'],
     status: 'memory',
     isDefault: false,
-    // From memory of earlier editions of the same textbook: pK 0.0, 1.5, 2.0, 2.66, 6.16, 10.24 (20 °C, 0.1 M).
-    protonationLogK: [10.24, 6.16, 2.66, 2.0, 1.5, 0.0],
+    // pK 2.00, 2.67, 6.16, 10.26 (K4 = 5.50 × 10⁻¹¹): the four-step set of Schwarzenbach as many
+    // textbooks print it (Skoog et al.; from memory). It reproduces every value of a textbook
+    // table of α4 against pH seen through the search tool (pH 7: 4.8 × 10⁻⁴; pH 10: 0.35), which
+    // is how these constants were chosen over the 10.24 / 2.66 recalled earlier. The table uses
+    // four steps; the two carboxyl-nitrogen steps (1.5, 0.0) matter only below pH 3.
+    protonationLogK: [10.26, 6.16, 2.67, 2.0],
     complexes: [],
-    cautions: ['Protonation constants only (from memory): use it for the fraction of Y⁴⁻, not for pM.'],
+    cautions: ['Protonation constants only (from memory, checked against a printed α4 table): use it for the fraction of Y⁴⁻, not for pM.'],
   },
 ];

@@ -76,3 +76,22 @@ describe('ligand fraction invariants', () => {
     expect(log10SumOfPowers([0, 0])).toBeCloseTo(Math.log10(2), 14);
   });
 });
+
+describe('EDTA α4 against a printed textbook table', () => {
+  it('reproduces Table 5.7 of an analytical chemistry textbook with the 20 °C four-step set', () => {
+    // Outside reference: 'Analytical Chemistry', Table 5.7 "Values of α4 for EDTA as a
+    // function of pH" (source 'edta-alpha4-textbook-table', seen through the search tool).
+    // The table prints two significant figures, so the tolerance is half a unit in the
+    // second figure (±5 % relative at worst, e.g. 0.35 covers 0.345–0.355).
+    const set = findConstantSet('edta-textbook-20c')!.protonationLogK;
+    const table: [number, number][] = [
+      [3, 2.5e-11], [4, 3.6e-9], [5, 3.5e-7], [6, 2.2e-5], [7, 4.8e-4],
+      [8, 5.4e-3], [9, 5.2e-2], [10, 0.35], [11, 0.85], [12, 0.98],
+    ];
+    for (const [pH, printed] of table) {
+      const alpha = ligandFraction(set, ph(pH));
+      const halfUnit = 0.05 * 10 ** Math.floor(Math.log10(printed));
+      expect(Math.abs(alpha - printed), `pH ${pH}`).toBeLessThanOrEqual(halfUnit);
+    }
+  });
+});
