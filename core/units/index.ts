@@ -4,5 +4,4 @@ export * from './volume';
 export * from './time';
 export * from './concentration';
 export * from './liverIron';
-export * from './haematocrit';
 export * from './displayUnit';
