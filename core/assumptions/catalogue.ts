@@ -97,7 +97,7 @@ export const assumptionCatalogue = [
   },
   {
     id: 'unit-haematocrit-red-cells',
-    label: 'haematocrit of a red-cell unit when the transfusion record does not give it',
+    label: 'haematocrit of a red-cell unit when the transfusion record does not state it',
     unit: '1',
     // 0.60: common practice for red cells in additive solution (blood-component guides quote
     // about 0.50–0.70; from memory). Range as the transfusion-iron calculator's unit haematocrit.

@@ -75,7 +75,7 @@ export function monitoringRules(ancIntervalDays: number): readonly MonitoringRul
       condition: { kind: 'on-drug', drugs: ['deferasirox'] },
       interval: { months: 1 },
       firstMonthInterval: { days: 7 },
-      why: 'On deferasirox: serum creatinine monthly, weekly in the first month after a start or a dose change (deferasirox label; secondary, first-month frequency from memory).',
+      why: 'On deferasirox: serum creatinine monthly, weekly in the first month of a new period or a new dose (deferasirox label; secondary, first-month frequency from memory).',
       sourceIds: ['monitoring-deferasirox-label'],
     },
     {
@@ -86,7 +86,7 @@ export function monitoringRules(ancIntervalDays: number): readonly MonitoringRul
       condition: { kind: 'on-drug', drugs: ['deferasirox'] },
       interval: { months: 1 },
       firstMonthInterval: { days: 14 },
-      why: 'On deferasirox: ALT monthly, every two weeks in the first month after a start or a dose change (deferasirox label; secondary, first-month frequency from memory).',
+      why: 'On deferasirox: ALT monthly, every two weeks in the first month of a new period or a new dose (deferasirox label; secondary, first-month frequency from memory).',
       sourceIds: ['monitoring-deferasirox-label'],
     },
     {
