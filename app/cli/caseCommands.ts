@@ -1,6 +1,7 @@
 import type { CaseResults } from '../../core/ledger/computeCase';
 import { derivationsOf } from '../../core/report/derivationIndex';
 import { methodAppendix } from '../../core/report/methodAppendix';
+import { citeShort } from '../../core/references';
 import type { Case } from '../../core/model/caseFile';
 import { formatIssues, type Issue, type Result } from '../../core/result';
 import type { Finding } from '../../core/safety';
@@ -143,7 +144,7 @@ export function formatResults(results: CaseResults, findings: readonly Finding[]
   lines.push('Methods (the formulas behind the numbers above; `explain` shows each derivation):');
   for (const formula of methodAppendix(derivationsOf(results, findings)).formulas) {
     lines.push(`  ${formula.title} [${formula.formulaId}]: ${formula.expression}`);
-    lines.push(`    ${formula.sources.map((source) => `${source.authors}, ${source.publication} [${source.status}]`).join('; ')}`);
+    lines.push(`    ${formula.sources.map(citeShort).join('; ')}`);
   }
   lines.push('');
   lines.push('Assumptions used:');

@@ -36,6 +36,8 @@ export interface Source {
 
 /** Short human citation: "Angelucci et al., N Engl J Med 2000;343:327 (confirmed)". */
 export function citeShort(source: Source): string {
+  // Common practice and definitions have no authors or publication: their title says what they are.
+  if (source.authors === '—') return `${source.title} [${source.status}]`;
   const where = source.locator ? `, ${source.locator}` : '';
   return `${source.authors}, ${source.publication}${where} [${source.status}]`;
 }
