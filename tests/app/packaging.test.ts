@@ -10,6 +10,15 @@ const pkg = JSON.parse(readFileSync(`${root}package.json`, 'utf8'));
 // electron-builder cannot run here (it downloads Electron), so the configuration is
 // checked as data against the Electron security checklist (electronjs.org/docs/latest/
 // tutorial/security, "fuses" and "asar integrity" items) and against package.json.
+describe('repository layout (design card)', () => {
+  it('has the top-level entries the design card lists', async () => {
+    const { existsSync } = await import('node:fs');
+    for (const entry of ['package.json', 'electron-builder.yml', 'tsconfig.json', 'README.md', 'DEVELOPERS.md', 'app', 'renderer', 'core', 'tests', 'assets', '.ci/run']) {
+      expect(existsSync(`${root}${entry}`), entry).toBe(true);
+    }
+  });
+});
+
 describe('electron-builder.yml', () => {
   it('is valid YAML naming the product as package.json does', () => {
     expect(config.productName).toBe(pkg.name);
