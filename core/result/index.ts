@@ -24,6 +24,12 @@ export const issueCodes = [
   'not_applicable',
   /** An iterative method (the chemistry speciation solver) stopped without meeting its convergence test. */
   'not_converged',
+  /** A file could not be written (disk full, read-only folder, locked file); nothing was written over the old file. */
+  'write_failed',
+  /** A file changed on disk since it was opened (another window or machine): a save would overwrite it. */
+  'changed_on_disk',
+  /** A file of that name exists already and is not replaced. */
+  'already_exists',
 ] as const;
 
 export type IssueCode = (typeof issueCodes)[number];
