@@ -1,4 +1,3 @@
-import { readFileSync } from 'node:fs';
 import {
   defaultProductCatalogue,
   findProduct,
@@ -13,7 +12,7 @@ import { citeShort, findSource } from '../../core/references';
 import { fail, formatIssues, issue, ok, type Result } from '../../core/result';
 import { kg } from '../../core/units/quantity';
 import type { ParsedArgs } from './args';
-import type { CliIo } from './io';
+import type { CliIo, TextIo } from './io';
 import { decisionSupportCaution } from './format';
 import { exitCodes } from './io';
 
@@ -25,23 +24,12 @@ export const doseUsage = `Usage:
 The nearest practical regimen with the available strengths (tablets, oral solution, vials), its mg/kg/day
 and the difference from the intended dose. --catalogue replaces the shipped strengths with the local formulary's.`;
 
-/** Reading the local catalogue: tests pass a fake, the binary reads the file. */
-export interface DoseIo extends CliIo {
-  readonly readText?: (path: string) => Result<string>;
-}
-
-function readTextFile(path: string): Result<string> {
-  try {
-    return ok(readFileSync(path, 'utf8'));
-  } catch (error) {
-    const reason = (error as NodeJS.ErrnoException).code === 'ENOENT' ? 'no such file' : (error as Error).message;
-    return fail(issue('invalid_file', ['--catalogue'], `Cannot read product catalogue ${path}: ${reason}.`));
-  }
-}
+/** Reading the local catalogue goes through the io handed in: tests pass a fake, the binary reads the file. */
+export type DoseIo = CliIo & TextIo;
 
 function loadCatalogue(path: string | undefined, io: DoseIo): Result<ProductCatalogue> {
   if (path === undefined) return ok(defaultProductCatalogue);
-  const text = (io.readText ?? readTextFile)(path);
+  const text = io.readText(path, 'product catalogue', ['--catalogue']);
   if (!text.ok) return text;
   let json: unknown;
   try {

@@ -1,15 +1,24 @@
+import { writeCalendarFile } from '../host/icalendar';
 import { readCaseFile } from '../host/caseFiles';
-import { runCli } from './main';
+import { readTextFile } from '../host/textFiles';
+import { runAtBoundary } from './boundary';
+import { runCli, type CliHostIo } from './main';
 
 // The process boundary: the only place the command line touches process.
-const code = runCli(process.argv.slice(2), {
+const io: CliHostIo = {
   out: (text) => process.stdout.write(`${text}\n`),
   err: (text) => process.stderr.write(`${text}\n`),
   readCase: readCaseFile,
+  readText: readTextFile,
   // The host may read the clock; core never does. Local calendar date of this desktop.
   today: () => {
     const now = new Date();
     return `${now.getFullYear()}-${String(now.getMonth() + 1).padStart(2, '0')}-${String(now.getDate()).padStart(2, '0')}`;
   },
+  now: () => new Date(),
+  writeCalendar: writeCalendarFile,
+};
+
+void runAtBoundary(process.argv.slice(2), io, (argv) => runCli(argv, io)).then((code) => {
+  process.exitCode = code;
 });
-process.exitCode = code;

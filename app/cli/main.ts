@@ -1,14 +1,14 @@
-import { parseArgs } from './args';
+import { parseArgs, type ParsedArgs } from './args';
 import { bindingCommand } from './bindingCommand';
 import { calcCommand, calcUsage } from './calcCommand';
-import { calendarCommand } from './calendarCommand';
+import { calendarCommand, type CalendarHostIo } from './calendarCommand';
 import { checkCommand, computeCommand } from './caseCommands';
 import type { CaseIo } from './caseReview';
 import { explainCommand } from './explainCommand';
 import { doseCommand } from './doseCommand';
 import { findingsCommand } from './findingsCommand';
 import { decisionSupportCaution } from './format';
-import { exitCodes } from './io';
+import { exitCodes, type TextIo } from './io';
 
 const switches = ['--json', '--list', '--help', '--force'] as const;
 
@@ -36,36 +36,41 @@ ${calcUsage}
 
 ${decisionSupportCaution}`;
 
+/** Everything the host hands the command line: streams, the case reader, the clock, file reading and writing. */
+export type CliHostIo = CaseIo & CalendarHostIo & TextIo;
+
+/** A subcommand: parsed arguments and the host io in, the exit code out (it may be async). */
+export type Command = (args: ParsedArgs, io: CliHostIo) => number | Promise<number>;
+
+/** The subcommands, one line each (add yours here). */
+const commands: Readonly<Record<string, Command>> = {
+  calc: calcCommand,
+  dose: doseCommand,
+  calendar: calendarCommand,
+  check: checkCommand,
+  compute: computeCommand,
+  findings: findingsCommand,
+  explain: explainCommand,
+};
+
 /**
  * Run the command line. Pure apart from the io it is handed, so tests call it
- * directly; app/cli/bin.cjs passes the process streams and exits with the code.
+ * directly; app/cli/entry.ts passes the process streams and sets the exit code.
+ * A thrown error is a fault of the tool: the process boundary (app/cli/boundary.ts)
+ * turns it into one line and exit code 3.
  */
-export function runCli(argv: readonly string[], io: CaseIo): number {
+export async function runCli(argv: readonly string[], io: CliHostIo): Promise<number> {
   const [command, ...rest] = argv;
   if (command === undefined || command === '--help' || command === 'help') {
     io.out(usage);
     return command === undefined ? exitCodes.usage : exitCodes.ok;
   }
-  const args = parseArgs(rest, switches);
-  switch (command) {
-    case 'calc':
-      return calcCommand(args, io);
-    case 'dose':
-      return doseCommand(args, io);
-    case 'calendar':
-      return calendarCommand(args, io);
-    case 'check':
-      return checkCommand(args, io);
-    case 'compute':
-      return computeCommand(args, io);
-    case 'findings':
-      return findingsCommand(args, io);
-    case 'explain':
-      return explainCommand(args, io);
-    case 'binding':
-      return bindingCommand(rest, io);
-    default:
-      io.err(`Unknown command "${command}".\n\n${usage}`);
-      return exitCodes.usage;
+  // binding parses its own arguments (it has a --sweep switch).
+  if (command === 'binding') return bindingCommand(rest, io);
+  const run = Object.hasOwn(commands, command) ? commands[command] : undefined;
+  if (run === undefined) {
+    io.err(`Unknown command "${command}".\n\n${usage}`);
+    return exitCodes.usage;
   }
+  return run(parseArgs(rest, switches), io);
 }

@@ -5,25 +5,18 @@ import { fileURLToPath } from 'node:url';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { parseArgs } from '../../../app/cli/args';
-import { runCli } from '../../../app/cli/main';
-import { readCaseFile } from '../../../app/host/caseFiles';
 import { formulaCatalogue } from '../../../core/formulas/catalogue';
 import { describeFormula, flagForInput } from '../../../core/formulas/describe';
 // @ts-expect-error plain ESM build script without type declarations
 import { buildCli } from '../../../app/build/build-cli.mjs';
+import { cli } from './harness';
 
 const projectRoot = fileURLToPath(new URL('../../..', import.meta.url));
 mkdirSync(join(projectRoot, 'dist'), { recursive: true });
 
-function cli(...argv: string[]) {
-  const out: string[] = [];
-  const err: string[] = [];
-  const code = runCli(argv, { out: (text) => out.push(text), err: (text) => err.push(text), readCase: readCaseFile, today: () => '2026-12-01' });
-  return { code, out: out.join('\n'), err: err.join('\n') };
-}
 
 describe('argument parsing', () => {
-  it('reads --flag value, --flag=value, switches and negative numbers', () => {
+  it('reads --flag value, --flag=value, switches and negative numbers', async () => {
     const parsed = parseArgs(['x', '--a', '1', '--b=2', '--json', '--c', '-3', '--d'], ['--json']);
     expect(parsed.positionals).toEqual(['x']);
     expect(parsed.options).toEqual({ '--a': '1', '--b': '2', '--c': '-3' });
@@ -31,7 +24,7 @@ describe('argument parsing', () => {
     expect(parsed.missingValues).toEqual(['--d']);
   });
 
-  it('turns input names into kebab-case flags', () => {
+  it('turns input names into kebab-case flags', async () => {
     expect(flagForInput('volumeMl')).toBe('--volume-ml');
     expect(flagForInput('ironPerMlRedCellsMg')).toBe('--iron-per-ml-red-cells-mg');
     expect(flagForInput('r2StarPerS')).toBe('--r2-star-per-s');
@@ -39,8 +32,8 @@ describe('argument parsing', () => {
 });
 
 describe('calc --list', () => {
-  it('lists every calculator of the catalogue, generated from the same definitions', () => {
-    const { code, out } = cli('calc', '--list', '--json');
+  it('lists every calculator of the catalogue, generated from the same definitions', async () => {
+    const { code, out } = await cli('calc', '--list', '--json');
     expect(code).toBe(0);
     const listed = JSON.parse(out) as { id: string; inputs: { flag: string }[] }[];
     expect(listed.map((it) => it.id)).toEqual(formulaCatalogue.map((it) => it.id));
@@ -50,8 +43,8 @@ describe('calc --list', () => {
     }
   });
 
-  it('prints a readable list naming units, ranges and sources', () => {
-    const { code, out } = cli('calc', '--list');
+  it('prints a readable list naming units, ranges and sources', async () => {
+    const { code, out } = await cli('calc', '--list');
     expect(code).toBe(0);
     for (const formula of formulaCatalogue) expect(out).toContain(`${formula.id} — ${formula.title}`);
     expect(out).toContain('--unit-haematocrit <fraction, 0.4–0.85>');
@@ -60,16 +53,16 @@ describe('calc --list', () => {
 });
 
 describe('calc <calculator>', () => {
-  it('prints a readable line with units, inputs and their origins (280 mL × 0.60 × 1.08 = 181.44 mg)', () => {
-    const { code, out } = cli('calc', 'transfusion-iron', '--volume-ml', '280', '--unit-haematocrit', '0.6');
+  it('prints a readable line with units, inputs and their origins (280 mL × 0.60 × 1.08 = 181.44 mg)', async () => {
+    const { code, out } = await cli('calc', 'transfusion-iron', '--volume-ml', '280', '--unit-haematocrit', '0.6');
     expect(code).toBe(0);
     expect(out.split('\n')[0]).toBe('transfusion-iron: iron 181.4 mg');
     expect(out).toContain('iron per mL of pure red cells 1.08 mg/mL (assumption iron-per-ml-red-cells, published default)');
     expect(out).toContain('for review by the prescriber');
   });
 
-  it('gives machine-readable JSON with units beside each value', () => {
-    const { code, out } = cli('calc', 'transfusion-iron', '--volume-ml=280', '--unit-haematocrit=0.6', '--json');
+  it('gives machine-readable JSON with units beside each value', async () => {
+    const { code, out } = await cli('calc', 'transfusion-iron', '--volume-ml=280', '--unit-haematocrit=0.6', '--json');
     expect(code).toBe(0);
     const parsed = JSON.parse(out);
     expect(parsed.outputs.ironMg.unit).toBe('mg');
@@ -77,15 +70,15 @@ describe('calc <calculator>', () => {
     expect(parsed.derivation.formulaId).toBe('transfusion-iron');
   });
 
-  it('refuses an unknown calculator, an unknown flag and a missing value, printing no number', () => {
-    const unknown = cli('calc', 'iron-magic');
+  it('refuses an unknown calculator, an unknown flag and a missing value, printing no number', async () => {
+    const unknown = await cli('calc', 'iron-magic');
     expect(unknown.code).toBe(2);
     expect(unknown.err).toContain('Unknown calculator "iron-magic"');
-    const badFlag = cli('calc', 'transfusion-iron', '--volume', '280');
+    const badFlag = await cli('calc', 'transfusion-iron', '--volume', '280');
     expect(badFlag.code).toBe(1);
     expect(badFlag.err).toContain('--volume: not an input of transfusion-iron');
     expect(badFlag.out).toBe('');
-    const missing = cli('calc', 'transfusion-iron', '--volume-ml');
+    const missing = await cli('calc', 'transfusion-iron', '--volume-ml');
     expect(missing.code).toBe(1);
     expect(missing.err).toContain('--volume-ml: a value is missing');
   });
@@ -95,12 +88,12 @@ describe('calc <calculator>', () => {
   // and nothing is printed on stdout.
   for (const formula of formulaCatalogue) {
     for (const input of describeFormula(formula).inputs.filter((it) => it.kind === 'number')) {
-      it(`${formula.id} refuses ${input.flag} above its range`, () => {
+      it(`${formula.id} refuses ${input.flag} above its range`, async () => {
         const tooHigh = input.max! * 10 + 1000;
         // A conditional input is only read when its choice enables it: pass that choice.
         const spec = formula.inputs[input.name];
         const enabling = spec?.kind === 'number' && spec.usedWhen ? [flagForInput(spec.usedWhen.input), spec.usedWhen.oneOf[0]!] : [];
-        const { code, out, err } = cli('calc', formula.id, ...enabling, input.flag, String(tooHigh));
+        const { code, out, err } = await cli('calc', formula.id, ...enabling, input.flag, String(tooHigh));
         expect(code).toBe(1);
         expect(out).toBe('');
         expect(err).toContain(`${input.flag}: `);
@@ -109,8 +102,8 @@ describe('calc <calculator>', () => {
       });
     }
     for (const input of describeFormula(formula).inputs.filter((it) => it.kind === 'choice')) {
-      it(`${formula.id} refuses an unknown choice for ${input.flag}`, () => {
-        const { code, out, err } = cli('calc', formula.id, input.flag, 'no-such-choice');
+      it(`${formula.id} refuses an unknown choice for ${input.flag}`, async () => {
+        const { code, out, err } = await cli('calc', formula.id, input.flag, 'no-such-choice');
         expect(code).toBe(1);
         expect(out).toBe('');
         expect(err).toContain(`${input.flag}: `);
