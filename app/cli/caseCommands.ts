@@ -5,6 +5,7 @@ import { citeShort } from '../../core/references';
 import type { Case } from '../../core/model/caseFile';
 import { formatIssues, type Issue, type Result } from '../../core/result';
 import type { Finding } from '../../core/safety';
+import { daysPerMonth } from '../../core/units/time';
 import type { ParsedArgs } from './args';
 import { reviewCase, type CaseIo } from './caseReview';
 import { formatFindings } from './findingsCommand';
@@ -111,7 +112,7 @@ export function formatResults(results: CaseResults, findings: readonly Finding[]
   const trend = results.ferritin.trend;
   if (results.ferritin.latest) {
     const trendText = trend
-      ? `${trend.direction} ${fmt(Math.abs(trend.changePerYear) * 100, 0)} %/year over ${trend.points} results${trend.doublingDays ? `, doubling in ${fmt(trend.doublingDays / 30.44, 0)} months` : ''}${trend.halvingDays ? `, halving in ${fmt(trend.halvingDays / 30.44, 0)} months` : ''}`
+      ? `${trend.direction} ${fmt(Math.abs(trend.changePerYear) * 100, 0)} %/year over ${trend.points} results${trend.doublingDays ? `, doubling in ${fmt(trend.doublingDays / daysPerMonth, 0)} months` : ''}${trend.halvingDays ? `, halving in ${fmt(trend.halvingDays / daysPerMonth, 0)} months` : ''}`
       : 'too few results in the window for a trend';
     lines.push(`Ferritin: latest ${fmt(results.ferritin.latest.valueUgPerL, 0)} µg/L on ${results.ferritin.latest.date}; ${trendText}.`);
     if (results.ferritin.note) lines.push(`  ${results.ferritin.note}`);

@@ -24,4 +24,5 @@ export { pathText } from './zodIssues';
 export { sortedByDate } from './sortedByDate';
 export { latestWeightOnOrBefore } from './latestWeight';
 export { periodsActiveOn, type DatedPeriod } from './periodsActiveOn';
+export { periodsOverlapping } from './periodsOverlapping';
 export { resultsOfKindBetween } from './resultsOfKindBetween';

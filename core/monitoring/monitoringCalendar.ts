@@ -3,7 +3,7 @@ import type { Case, ChelationPeriod } from '../model/caseFile';
 import { periodsActiveOn } from '../model/periodsActiveOn';
 import { resultsOfKindBetween } from '../model/resultsOfKindBetween';
 import { earliestCaseDate } from '../model/caseDate';
-import { ageInDecimalYears } from '../patient/age';
+import { ageOnDate } from '../patient/ageOnDate';
 import { fail, issue, ok, type Result } from '../result';
 import { defaultAncIntervalDays, monitoringRules, type MonitoringInterval, type MonitoringItemId, type MonitoringRule } from './monitoringRules';
 
@@ -62,13 +62,7 @@ function intervalText(interval: MonitoringInterval): string {
 }
 
 function ageOn(theCase: Case, asOf: IsoDate): number | undefined {
-  const age = theCase.patient.age;
-  if (age.kind === 'birth-date') {
-    const years = ageInDecimalYears(age.birthDate, asOf);
-    return years.ok ? years.value : undefined;
-  }
-  // Age stated on a date: add the calendar time since then (365.2425-day mean Gregorian year).
-  return age.years + daysBetween(age.onDate, asOf) / 365.2425;
+  return ageOnDate(theCase.patient.age, asOf) ?? undefined;
 }
 
 interface Applicability {

@@ -1,11 +1,11 @@
 import { chelatorIdOf } from '../ledger/caseToLedger';
 import type { CaseResults } from '../ledger/computeCase';
 import type { ChelatorId, LigandId } from '../chelators/catalogue';
-import { daysBetween, type IsoDate } from '../dates/isoDate';
+import type { IsoDate } from '../dates/isoDate';
 import type { Case, ChelationPeriod, CoMedication, HeightEntry, ResultEntry, ResultKind } from '../model/caseFile';
 import { periodsActiveOn } from '../model/periodsActiveOn';
 import { sortedByDate } from '../model/sortedByDate';
-import { ageInDecimalYears } from '../patient/age';
+import { ageOnDate } from '../patient/ageOnDate';
 import { applyThreshold, type AppliedThreshold, type FixedThresholdId, type ThresholdOverrides } from './thresholds';
 
 /** A chelation period running on the review date, with its dose per kg per dosing day. */
@@ -77,15 +77,7 @@ export function safetyContext(caseFile: Case, results: CaseResults, asOf: IsoDat
     .filter(({ coMedication }) => periodsActiveOn([coMedication], asOf).length > 0);
   const indexed = caseFile.results.map((entry, index) => ({ entry, ref: `results[${index}] ${entry.date}`, date: entry.date }));
   const sorted = sortedByDate(indexed).filter((it) => it.date <= asOf);
-  const ageOn = (date: IsoDate): number | null => {
-    const age = caseFile.patient.age;
-    if (age.kind === 'birth-date') {
-      const years = ageInDecimalYears(age.birthDate, date);
-      return years.ok ? years.value : null;
-    }
-    // An age in years on a stated date, moved by the days between (365.2425 days a Gregorian year).
-    return age.years + daysBetween(age.onDate, date) / 365.2425;
-  };
+  const ageOn = (date: IsoDate): number | null => ageOnDate(caseFile.patient.age, date);
   return {
     caseFile,
     results,

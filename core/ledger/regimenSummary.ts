@@ -1,0 +1,56 @@
+import { expectedExcretion } from '../chelators/formulas';
+import type { Derivation } from '../formulas/derivation';
+import { runTrusted } from '../formulas/run';
+import type { Case, ChelationPeriod } from '../model/caseFile';
+import { chelatorIdOf, describePeriod } from './caseToLedger';
+
+export interface RegimenSummary {
+  readonly periodId: string;
+  readonly label: string;
+  readonly drug: ChelationPeriod['drug'];
+  readonly doseMgPerKgPerDay: number;
+  readonly expectedRemovalMgPerDay: number;
+  readonly expectedRemovalMgPerKgPerDay: number;
+  readonly derivation: Derivation;
+}
+
+/**
+ * Expected removal of one chelation period at a weight, at the published
+ * efficiency, with its derivation.
+ *
+ * @param period - a chelation period as recorded
+ * @param weightKg - weight, kg (a dose in mg is turned into mg/kg by it)
+ * @param overrides - the case's assumption overrides
+ */
+export function regimenSummary(period: ChelationPeriod, weightKg: number, overrides: Case['assumptionOverrides']): RegimenSummary {
+  const perAdministrationMgPerKg = period.dose.unit === 'mg/kg' ? period.dose.value : period.dose.value / weightKg;
+  const doseMgPerKgPerDay = perAdministrationMgPerKg * period.administrationsPerDay;
+  const run = runTrusted(
+    expectedExcretion,
+    {
+      chelator: chelatorIdOf(period),
+      doseMgPerKgPerDosingDay: doseMgPerKgPerDay,
+      weightKg,
+      daysPerWeek: period.daysPerWeek,
+      adherence: period.adherence,
+    },
+    {
+      overrides,
+      origins: {
+        doseMgPerKgPerDosingDay: { kind: 'record', description: `${period.id}: ${describePeriod(period)}`, refs: [period.id] },
+        weightKg: { kind: 'record', description: 'latest weight', refs: [] },
+        daysPerWeek: { kind: 'record', description: period.id, refs: [period.id] },
+        adherence: { kind: 'record', description: `${period.id}: estimated adherence${period.adherenceNote ? ` (${period.adherenceNote})` : ''}`, refs: [period.id] },
+      },
+    },
+  );
+  return {
+    periodId: period.id,
+    label: describePeriod(period),
+    drug: period.drug,
+    doseMgPerKgPerDay,
+    expectedRemovalMgPerDay: run.outputs.excretionMgPerDay,
+    expectedRemovalMgPerKgPerDay: run.outputs.excretionMgPerKgPerDay,
+    derivation: run.derivation,
+  };
+}
