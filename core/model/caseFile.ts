@@ -17,6 +17,15 @@ export const currentCaseFileVersion = 1;
 export const maxProposedRegimens = 3;
 
 /**
+ * A local protocol's safety thresholds (core/safety/thresholds.ts), by threshold id,
+ * with why, who and when; ids and ranges are checked by checkThresholdOverrides.
+ */
+export const thresholdOverridesSchema = z.record(
+  z.string(),
+  z.strictObject({ value: z.number(), reason: requiredTextSchema(1000), by: requiredTextSchema(100), at: isoDateSchema }),
+);
+
+/**
  * Schema of a version 1 case file at one check level ('refuse' or 'warn',
  * see bounds.ts). Lists may be omitted and default to empty.
  *
@@ -35,9 +44,7 @@ export function caseSchemaAt(level: CheckLevel) {
     chelationPeriods: z.array(chelationPeriod).default([]),
     coMedications: z.array(coMedicationSchemaAt(level)).default([]),
     assumptionOverrides: assumptionOverridesSchema.default({}),
-    thresholdOverrides: z
-      .record(z.string(), z.strictObject({ value: z.number(), reason: requiredTextSchema(1000), by: requiredTextSchema(100), at: isoDateSchema }))
-      .default({}),
+    thresholdOverrides: thresholdOverridesSchema.default({}),
     proposedRegimens: z
       .array(z.strictObject({ id: entryIdSchema, name: requiredTextSchema(80), periods: z.array(chelationPeriod).min(1) }))
       .max(maxProposedRegimens)

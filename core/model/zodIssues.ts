@@ -62,13 +62,23 @@ function toPath(path: readonly PropertyKey[]): (string | number)[] {
   return path.map((part) => (typeof part === 'symbol' ? String(part) : part));
 }
 
-function sentence(path: Path, rest: string): string {
-  return `${pathText(path)} ${rest}`;
+/** What the messages call the document checked: a case file unless a caller (the host contract) says otherwise. */
+export interface DocumentWords {
+  /** Subject of a message about the whole document, e.g. "The case file". */
+  readonly root: string;
+  /** What an unknown field is not a field of, e.g. "a version 1 case file". */
+  readonly fieldOf: string;
 }
 
-function convertOne(zodIssue: z.core.$ZodIssue, severity: Issue['severity']): Issue[] {
+const caseFileWords: DocumentWords = { root: 'The case file', fieldOf: 'a version 1 case file' };
+
+function sentence(path: Path, rest: string, words: DocumentWords): string {
+  return `${path.length === 0 ? words.root : pathText(path)} ${rest}`;
+}
+
+function convertOne(zodIssue: z.core.$ZodIssue, severity: Issue['severity'], words: DocumentWords): Issue[] {
   const path = toPath(zodIssue.path);
-  const make = (code: IssueCode, where: Path, rest: string) => issue(code, where, sentence(where, rest), severity);
+  const make = (code: IssueCode, where: Path, rest: string) => issue(code, where, sentence(where, rest, words), severity);
   const missing = !('input' in zodIssue) || zodIssue.input === undefined;
   switch (zodIssue.code) {
     case 'custom': {
@@ -95,7 +105,7 @@ function convertOne(zodIssue: z.core.$ZodIssue, severity: Issue['severity']): Is
     }
     case 'unrecognized_keys':
       return zodIssue.keys.map((key) =>
-        make('unknown_option', [...path, key], 'is not a field of a version 1 case file here; check its spelling.'),
+        make('unknown_option', [...path, key], `is not a field of ${words.fieldOf} here; check its spelling.`),
       );
     case 'too_small':
       if (zodIssue.origin === 'string') return [make('required', path, 'is empty; enter some text.')];
@@ -108,7 +118,7 @@ function convertOne(zodIssue: z.core.$ZodIssue, severity: Issue['severity']): Is
     }
     case 'invalid_key':
     case 'invalid_element':
-      return zodIssue.issues.flatMap((inner) => convertOne({ ...inner, path: [...zodIssue.path, ...inner.path] }, severity));
+      return zodIssue.issues.flatMap((inner) => convertOne({ ...inner, path: [...zodIssue.path, ...inner.path] }, severity, words));
     default:
       return [make('invalid_file', path, `is not valid (${zodIssue.message}).`)];
   }
@@ -119,10 +129,11 @@ function convertOne(zodIssue: z.core.$ZodIssue, severity: Issue['severity']): Is
  *
  * @param zodIssues - from `safeParse(input, { reportInput: true })` (the input is needed for the messages)
  * @param severity - 'error' for the refusing schema, 'warning' for the plausibility schema
+ * @param words - what the messages call the document; a case file unless given
  * @returns one Issue per problem (an unknown-keys issue becomes one per key)
  * @example issuesFromZod([{ code: 'invalid_value', values: ['kg'], path: ['patient', 'weights', 0, 'weight', 'unit'], input: 'lb', message: '' }], 'error')[0].message
  *   === 'patient.weights[0].weight.unit "lb" is not one of: kg.'
  */
-export function issuesFromZod(zodIssues: readonly z.core.$ZodIssue[], severity: Issue['severity']): Issue[] {
-  return zodIssues.flatMap((zodIssue) => convertOne(zodIssue, severity));
+export function issuesFromZod(zodIssues: readonly z.core.$ZodIssue[], severity: Issue['severity'], words: DocumentWords = caseFileWords): Issue[] {
+  return zodIssues.flatMap((zodIssue) => convertOne(zodIssue, severity, words));
 }

@@ -30,6 +30,12 @@ export const issueCodes = [
   'changed_on_disk',
   /** A file of that name exists already and is not replaced. */
   'already_exists',
+  /** A host call whose service this build does not have yet, or that this host cannot do (a folder dialog in the browser preview). */
+  'not_available',
+  /** A host call refused before it ran: an unknown sender, a missing or wrong token. */
+  'forbidden',
+  /** A host service failed unexpectedly; the message names the call, never a stack trace. */
+  'host_failed',
 ] as const;
 
 export type IssueCode = (typeof issueCodes)[number];

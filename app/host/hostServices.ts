@@ -1,0 +1,136 @@
+import { mkdirSync, readdirSync, readFileSync, statSync } from 'node:fs';
+import { join } from 'node:path';
+import type { HostHandlers, HostValue } from '../../core/contract';
+import { parseCase } from '../../core/model/parseCase';
+import { monitoringCalendar } from '../../core/monitoring';
+import { fail, issue, ok, type Result } from '../../core/result';
+import { readCaseFile } from './caseFiles';
+import { notAvailable } from './hostDispatch';
+import { monitoringIcs, writeCalendarFile } from './icalendar';
+import type { SettingsStore } from './settingsStore';
+import { insideFolder } from './workspaceFiles';
+
+/**
+ * What the host services need from the process that runs them; each host
+ * (Electron's main, the preview server, tests) hands in its own.
+ */
+export interface HostEnvironment {
+  readonly appName: string;
+  readonly appVersion: string;
+  /** The workspace folder in use (absolute), or null before one is chosen. */
+  readonly workspace: { get(): string | null; set(folder: string): void };
+  /** A folder dialog; absent where the host cannot show one (the browser preview). */
+  readonly chooseFolder?: () => Promise<string | null>;
+  readonly settings: SettingsStore;
+  /** The host's clock, for file-system timestamps in exports only; core never reads it. */
+  readonly now: () => Date;
+}
+
+type Summary = HostValue<'listCases'>[number];
+
+function revisionOf(path: string): string {
+  const stats = statSync(path);
+  return `${Math.round(stats.mtimeMs)}-${stats.size}`;
+}
+
+function withWorkspace<T>(environment: HostEnvironment, run: (folder: string) => Result<T>): Result<T> {
+  const folder = environment.workspace.get();
+  if (folder === null) return fail(issue('required', ['workspace'], 'No workspace folder is chosen yet; choose the folder that holds the case files.'));
+  return run(folder);
+}
+
+function summarise(folder: string, caseId: string): Summary {
+  const path = join(folder, caseId);
+  const modifiedAt = statSync(path).mtime.toISOString();
+  const read = readCaseFile(path);
+  if (!read.ok) return { caseId, patientLabel: null, archived: false, modifiedAt, issues: [...read.issues] };
+  return { caseId, patientLabel: read.value.patient.label, archived: false, modifiedAt, issues: [...(read.warnings ?? [])] };
+}
+
+/** A free name in the exports folder: `stem.ext`, else `stem-2.ext`, `stem-3.ext`… */
+function writeFresh(folder: string, stem: string, extension: string, text: string): Result<string> {
+  try {
+    mkdirSync(folder, { recursive: true });
+  } catch (error) {
+    return fail(issue('invalid_file', ['output'], `Cannot make the exports folder ${folder}: ${(error as Error).message}.`));
+  }
+  for (let attempt = 1; attempt < 100; attempt += 1) {
+    const path = join(folder, `${stem}${attempt === 1 ? '' : `-${attempt}`}.${extension}`);
+    const written = writeCalendarFile(path, text, { overwrite: false });
+    if (written.ok) return ok(path);
+    if (!written.issues[0]?.message.includes('already exists')) return fail(...written.issues);
+  }
+  return fail(issue('invalid_file', ['output'], `The exports folder ${folder} already holds 99 files named ${stem}; nothing was written.`));
+}
+
+/**
+ * The host's services behind the contract, wired to what exists: case files
+ * are listed and opened with app/host/caseFiles.ts, the monitoring calendar is
+ * written with app/host/icalendar.ts, settings with settingsStore.ts. Calls
+ * whose service has not landed yet (the case store's writes, imports, the
+ * sheet's PDF writer) answer 'not_available' in words, never a missing call.
+ */
+export function createHostServices(environment: HostEnvironment): HostHandlers {
+  return {
+    appInfo: () => ok({ name: environment.appName, version: environment.appVersion }),
+    currentWorkspace: () => ok({ folder: environment.workspace.get() }),
+    chooseWorkspace: async () => {
+      if (!environment.chooseFolder) {
+        return fail(issue('not_available', ['workspace'], 'This window cannot show a folder dialog; the browser preview uses the folder given with --workspace.'));
+      }
+      const folder = await environment.chooseFolder();
+      if (folder !== null) environment.workspace.set(folder);
+      return ok({ folder: environment.workspace.get() });
+    },
+    listCases: () =>
+      withWorkspace(environment, (folder) => {
+        let names: string[];
+        try {
+          names = readdirSync(folder, { withFileTypes: true })
+            .filter((entry) => entry.isFile() && entry.name.endsWith('.json') && insideFolder(folder, entry.name).ok)
+            .map((entry) => entry.name)
+            .sort();
+        } catch (error) {
+          return fail(issue('invalid_file', ['workspace'], `Cannot read the workspace folder ${folder}: ${(error as Error).message}.`));
+        }
+        return ok(names.map((caseId) => summarise(folder, caseId)));
+      }),
+    openCase: ({ caseId }) =>
+      withWorkspace(environment, (folder) => {
+        const path = insideFolder(folder, caseId);
+        if (!path.ok) return path;
+        let json: unknown;
+        try {
+          json = JSON.parse(readFileSync(path.value, 'utf8'));
+        } catch (error) {
+          const missing = (error as NodeJS.ErrnoException).code === 'ENOENT';
+          return fail(issue('invalid_file', ['caseId'], missing ? `There is no case ${caseId} in the workspace.` : `Case file ${caseId} cannot be read: ${(error as Error).message}.`));
+        }
+        const parsed = parseCase(json);
+        if (!parsed.ok) return parsed;
+        return ok({ caseId, document: parsed.value as unknown as Record<string, unknown>, revision: revisionOf(path.value), warnings: [...(parsed.warnings ?? [])] });
+      }),
+    createCase: () => notAvailable('Creating a case from the desktop app'),
+    saveCase: () => notAvailable('Saving a case from the desktop app'),
+    saveCaseAs: () => notAvailable('Saving a case under a new name'),
+    renameCase: () => notAvailable('Renaming a case'),
+    archiveCase: () => notAvailable('Archiving a case'),
+    recoverCase: () => notAvailable('Recovering a case from its journal'),
+    importDryRun: () => notAvailable('Importing records'),
+    importCommit: () => notAvailable('Importing records'),
+    exportSheetPdf: () => notAvailable('Exporting the review sheet as PDF'),
+    exportCalendar: ({ caseId, asOfDate }) =>
+      withWorkspace(environment, (folder) => {
+        const path = insideFolder(folder, caseId);
+        if (!path.ok) return path;
+        const loaded = readCaseFile(path.value);
+        if (!loaded.ok) return loaded;
+        const calendar = monitoringCalendar(loaded.value, asOfDate);
+        if (!calendar.ok) return calendar;
+        const written = writeFresh(join(folder, 'exports'), `${caseId.replace(/\.json$/, '')}-monitoring-${asOfDate}`, 'ics', monitoringIcs(calendar.value, environment.now()));
+        return written.ok ? ok({ path: written.value }) : written;
+      }),
+    readSettings: () => environment.settings.read(),
+    writeSettings: (settings) => environment.settings.write(settings),
+  };
+}

@@ -1,0 +1,52 @@
+/**
+ * The names of the calls the renderer may make to its host, and nothing else.
+ *
+ * Kept apart from the schemas (contract.ts) and free of imports so that the
+ * Electron preload, which is bundled into one small sandboxed file, can expose
+ * exactly these calls without carrying zod or the case model with it
+ * (stack-notes.md, "A sandboxed preload cannot require its own other files").
+ */
+export const hostCallNames = [
+  'appInfo',
+  'currentWorkspace',
+  'chooseWorkspace',
+  'listCases',
+  'openCase',
+  'createCase',
+  'saveCase',
+  'saveCaseAs',
+  'renameCase',
+  'archiveCase',
+  'recoverCase',
+  'importDryRun',
+  'importCommit',
+  'exportSheetPdf',
+  'exportCalendar',
+  'readSettings',
+  'writeSettings',
+] as const;
+
+export type HostCallName = (typeof hostCallNames)[number];
+
+/** Commands the desktop menu sends to the page (File ▸ Open, Save, Export sheet). */
+export const menuCommands = ['open', 'save', 'export-sheet'] as const;
+export type MenuCommand = (typeof menuCommands)[number];
+
+/**
+ * The global name under which the preload exposes the host calls. The
+ * renderer's host client reads it; nothing else in the renderer names it.
+ */
+export const exposedHostGlobal = 'chelationLedgerHost';
+
+/** The IPC channel of one call; only app/main and app/preload use channel strings. */
+export function channelOf(name: HostCallName): string {
+  return `host:${name}`;
+}
+
+/** The channel on which the main process sends menu commands to the page. */
+export const menuChannel = 'host-event:menu';
+
+/** True when a string is one of the call names (for the transports' routing). */
+export function isHostCallName(value: unknown): value is HostCallName {
+  return typeof value === 'string' && (hostCallNames as readonly string[]).includes(value);
+}

@@ -1,0 +1,4 @@
+export * from './callNames';
+export * from './contract';
+export * from './settings';
+export * from './previewWire';

@@ -1,0 +1,1 @@
+export { createHostClient, host, pickTransport, type HostClient, type HostTransport } from './hostClient';

@@ -1,0 +1,111 @@
+import { existsSync, readFileSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
+import ICAL from 'ical.js';
+import { describe, expect, it } from 'vitest';
+import { createHostDispatch } from '../../../app/host/hostDispatch';
+import { createHostServices } from '../../../app/host/hostServices';
+import { insideFolder } from '../../../app/host/workspaceFiles';
+import { parseCase } from '../../../core/model/parseCase';
+import { readDemo } from '../../core/model/caseFixtures';
+import { demoEnvironment } from './hostFixtures';
+
+// Outside references: the demo case files themselves (read straight from assets/ and parsed
+// with the case model, not through the host), ical.js 2.2.1 as the independent iCalendar
+// (RFC 5545) parser of the exported calendar, and the path-traversal forms of OWASP's
+// "Path Traversal" page for the workspace check.
+
+describe('host services over a workspace of the demo cases', () => {
+  it('lists one line per case with the label the file carries', async () => {
+    const dispatch = createHostDispatch(createHostServices(demoEnvironment()));
+    const answer = await dispatch('listCases', {});
+    expect(answer.ok).toBe(true);
+    if (!answer.ok) return;
+    const lines = answer.value as { caseId: string; patientLabel: string; archived: boolean }[];
+    expect(lines.map((it) => [it.caseId, it.patientLabel, it.archived])).toEqual([
+      ['th-0093.json', (readDemo('th-0093').patient as { label: string }).label, false],
+      ['th-0417.json', (readDemo('th-0417').patient as { label: string }).label, false],
+    ]);
+  });
+
+  it('lists a broken file with the reason instead of skipping it', async () => {
+    const environment = demoEnvironment();
+    writeFileSync(join(environment.folder, 'broken.json'), '{ "format": ');
+    const answer = await createHostDispatch(createHostServices(environment))('listCases', {});
+    if (!answer.ok) throw new Error('list failed');
+    const broken = (answer.value as { caseId: string; patientLabel: string | null; issues: { message: string }[] }[]).find((it) => it.caseId === 'broken.json');
+    expect(broken?.patientLabel).toBeNull();
+    expect(broken?.issues[0]?.message).toMatch(/not valid JSON/);
+  });
+
+  it('opens a case as the case model reads it, with a revision', async () => {
+    const answer = await createHostDispatch(createHostServices(demoEnvironment()))('openCase', { caseId: 'th-0417.json' });
+    expect(answer.ok).toBe(true);
+    if (!answer.ok) return;
+    const parsed = parseCase(readDemo('th-0417'));
+    if (!parsed.ok) throw new Error('demo invalid');
+    const opened = answer.value as { document: unknown; revision: string };
+    expect(opened.document).toEqual(parsed.value);
+    expect(opened.revision).toMatch(/^\d+-\d+$/);
+  });
+
+  it('refuses a missing case with its name, and a name that escapes the workspace', async () => {
+    const dispatch = createHostDispatch(createHostServices(demoEnvironment()));
+    const missing = await dispatch('openCase', { caseId: 'nobody.json' });
+    expect(missing).toEqual({ ok: false, issues: [expect.objectContaining({ code: 'invalid_file', message: 'There is no case nobody.json in the workspace.' })] });
+    for (const name of ['../th-0417.json', '/etc/passwd', 'sub/../../x.json', '..\\x.json']) {
+      expect(insideFolder('/work/cases', name).ok, name).toBe(false);
+    }
+    expect(insideFolder('/work/cases', 'th-0417.json')).toEqual({ ok: true, value: '/work/cases/th-0417.json' });
+  });
+
+  it('answers in words for a service that has not landed, naming what is missing', async () => {
+    const answer = await createHostDispatch(createHostServices(demoEnvironment()))('exportSheetPdf', { caseId: 'th-0417.json', asOfDate: '2026-11-20', paper: 'a4' });
+    expect(answer).toEqual({ ok: false, issues: [expect.objectContaining({ code: 'not_available', message: 'Exporting the review sheet as PDF is not available in this version yet.' })] });
+  });
+
+  it('refuses to choose a folder where there is no dialog, and uses the dialog where there is', async () => {
+    const preview = await createHostDispatch(createHostServices(demoEnvironment()))('chooseWorkspace', {});
+    expect(preview.ok).toBe(false);
+    const environment = demoEnvironment({ chooseFolder: () => Promise.resolve('/chosen/folder') });
+    const desktop = await createHostDispatch(createHostServices(environment))('chooseWorkspace', {});
+    expect(desktop).toEqual({ ok: true, value: { folder: '/chosen/folder' } });
+  });
+
+  it('exports the monitoring calendar into the workspace as iCalendar that ical.js reads, never over an earlier export', async () => {
+    const environment = demoEnvironment();
+    const dispatch = createHostDispatch(createHostServices(environment));
+    const first = await dispatch('exportCalendar', { caseId: 'th-0417.json', asOfDate: '2026-11-20' });
+    const second = await dispatch('exportCalendar', { caseId: 'th-0417.json', asOfDate: '2026-11-20' });
+    if (!first.ok || !second.ok) throw new Error('export failed');
+    const firstPath = (first.value as { path: string }).path;
+    expect(firstPath).toBe(join(environment.folder, 'exports', 'th-0417-monitoring-2026-11-20.ics'));
+    expect((second.value as { path: string }).path).toBe(join(environment.folder, 'exports', 'th-0417-monitoring-2026-11-20-2.ics'));
+    const parsed = new ICAL.Component(ICAL.parse(readFileSync(firstPath, 'utf8')));
+    expect(parsed.getAllSubcomponents('vevent').length).toBeGreaterThan(0);
+  });
+
+  it('stores settings through the contract and reads them back; a refused value leaves the file alone', async () => {
+    const environment = demoEnvironment();
+    const dispatch = createHostDispatch(createHostServices(environment));
+    expect(await dispatch('readSettings', {})).toEqual({ ok: true, value: { version: 1, units: 'si', paper: 'a4', localFormulary: null, assumptionDefaults: {}, thresholdDefaults: {} } });
+    const written = await dispatch('writeSettings', { units: 'conventional', paper: 'letter' });
+    expect(written.ok).toBe(true);
+    expect(await dispatch('readSettings', {})).toEqual(written);
+    const refused = await dispatch('writeSettings', { units: 'imperial' });
+    expect(refused.ok).toBe(false);
+    if (!refused.ok) expect(refused.issues[0]?.message).toBe('units "imperial" is not one of: si, conventional.');
+    expect(await dispatch('readSettings', {})).toEqual(written);
+  });
+
+  it('reports a settings file that fails the schema instead of replacing it', async () => {
+    const environment = demoEnvironment();
+    const settingsPath = join(environment.folder, 'config', 'settings.json');
+    const dispatch = createHostDispatch(createHostServices(environment));
+    await dispatch('writeSettings', {});
+    writeFileSync(settingsPath, JSON.stringify({ paper: 'A5' }));
+    const read = await dispatch('readSettings', {});
+    expect(read.ok).toBe(false);
+    if (!read.ok) expect(read.issues[0]?.message).toBe('paper "A5" is not one of: a4, letter.');
+    expect(existsSync(settingsPath) && readFileSync(settingsPath, 'utf8')).toBe('{"paper":"A5"}');
+  });
+});
