@@ -1,8 +1,9 @@
-import { mkdirSync, readFileSync, renameSync, writeFileSync } from 'node:fs';
+import { mkdirSync, readFileSync } from 'node:fs';
 import { dirname } from 'node:path';
 import { defaultSettings, settingsSchema, type Settings } from '../../core/contract/settings';
 import { issuesFromZod } from '../../core/model/zodIssues';
 import { fail, issue, ok, type Result } from '../../core/result';
+import { writeFileAtomic } from './atomicWrite';
 
 const words = { root: 'The settings file', fieldOf: 'the settings' };
 
@@ -14,7 +15,7 @@ const words = { root: 'The settings file', fieldOf: 'the settings' };
  */
 export interface SettingsStore {
   read(): Result<Settings>;
-  write(settings: Settings): Result<Settings>;
+  write(settings: Settings): Promise<Result<Settings>>;
 }
 
 export function createSettingsStore(settingsPath: string): SettingsStore {
@@ -36,19 +37,17 @@ export function createSettingsStore(settingsPath: string): SettingsStore {
       const parsed = settingsSchema.safeParse(json, { reportInput: true });
       return parsed.success ? ok(parsed.data) : fail(...issuesFromZod(parsed.error.issues, 'error', words));
     },
-    write(settings) {
+    async write(settings) {
       const parsed = settingsSchema.safeParse(settings, { reportInput: true });
       if (!parsed.success) return fail(...issuesFromZod(parsed.error.issues, 'error', words));
-      // Temporary file in the same folder, then rename: a crash leaves the old file or the new one.
-      const temporaryPath = `${settingsPath}.${process.pid}.tmp`;
       try {
         mkdirSync(dirname(settingsPath), { recursive: true });
-        writeFileSync(temporaryPath, `${JSON.stringify(parsed.data, null, 2)}\n`, { encoding: 'utf8', flush: true });
-        renameSync(temporaryPath, settingsPath);
       } catch (error) {
-        return fail(issue('invalid_file', [], `Cannot write the settings file ${settingsPath}: ${(error as Error).message}; the settings were not changed.`));
+        return fail(issue('write_failed', [], `Cannot make the settings folder ${dirname(settingsPath)}: ${(error as Error).message}; the settings were not changed.`));
       }
-      return ok(parsed.data);
+      // app/host/atomicWrite.ts: a crash leaves the old file or the new one, never half of either.
+      const written = await writeFileAtomic(settingsPath, `${JSON.stringify(parsed.data, null, 2)}\n`);
+      return written.ok ? ok(parsed.data) : written;
     },
   };
 }
