@@ -1,4 +1,4 @@
-import { formulaCatalogue, findFormula } from '../../core/formulas/catalogue';
+import { formulaCatalogue, findFormula } from '../../core/catalogue';
 import { describeFormula, flagForInput, type FormulaDescription } from '../../core/formulas/describe';
 import type { Derivation, Origin } from '../../core/formulas/derivation';
 import { runFormula } from '../../core/formulas/run';

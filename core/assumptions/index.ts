@@ -1,2 +1,3 @@
 export * from './catalogue';
 export * from './resolve';
+export * from './origin';

@@ -1,4 +1,4 @@
-import type { Origin } from '../formulas/derivation';
+import type { AssumptionOrigin } from './origin';
 import { findAssumption, type AssumptionOverrides } from './catalogue';
 
 export interface ResolvedAssumption {
@@ -6,7 +6,7 @@ export interface ResolvedAssumption {
   readonly label: string;
   readonly unit: string;
   readonly value: number;
-  readonly origin: Extract<Origin, { kind: 'assumption' }>;
+  readonly origin: AssumptionOrigin;
 }
 
 /**

@@ -1,4 +1,7 @@
-import type { GramsPerMole } from '../units/quantity';
+import type { Quantity } from '../quantity';
+
+/** Molar mass and atomic weight, g/mol (the same brand as core/units' GramsPerMole). */
+type GramsPerMole = Quantity<'g/mol'>;
 
 /**
  * Standard atomic weights used by the core, in g/mol.

@@ -1,5 +1,8 @@
 import { fail, issue, ok, type Result } from '../result';
-import type { GramsPerMole } from '../units/quantity';
+import type { Quantity } from '../quantity';
+
+/** Molar mass and atomic weight, g/mol (the same brand as core/units' GramsPerMole). */
+type GramsPerMole = Quantity<'g/mol'>;
 import { atomicWeight, isElementSymbol, type ElementSymbol } from './atomicWeights';
 
 /** Element counts of a molecular formula, e.g. { C: 7, H: 9, N: 1, O: 2 }. */

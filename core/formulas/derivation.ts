@@ -5,20 +5,15 @@
  * never in a second pass.
  */
 
+import type { AssumptionOrigin } from '../assumptions/origin';
+
 export type Origin =
   /** Typed by the user; `ref` points at the case entry, e.g. 'transfusions[3] 2026-01-04'. */
   | { readonly kind: 'entered'; readonly ref?: string }
   /** The formula's own fixed default. */
   | { readonly kind: 'default' }
   /** A published assumption, at its default or overridden by the user. */
-  | {
-      readonly kind: 'assumption';
-      readonly assumptionId: string;
-      readonly overridden: boolean;
-      readonly reason?: string;
-      readonly by?: string;
-      readonly at?: string;
-    }
+  | AssumptionOrigin
   /**
    * A total or a pick from the case record (e.g. the sum of the transfusions in a window),
    * with the entries it used and the published assumptions that went into it.

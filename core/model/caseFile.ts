@@ -74,6 +74,6 @@ export type ChelationPeriod = Case['chelationPeriods'][number];
 export type CoMedication = Case['coMedications'][number];
 export type ProposedRegimen = Case['proposedRegimens'][number];
 export type CaseAssumptionOverrides = Case['assumptionOverrides'];
-/** A local protocol's safety thresholds (core/safety/thresholds.ts), by threshold id, with why, who and when. */
+/** A local protocol's safety thresholds (core/thresholds/catalogue.ts), by threshold id, with why, who and when. */
 export type CaseThresholdOverrides = Case['thresholdOverrides'];
 export type Review = Case['review'];

@@ -1,4 +1,4 @@
-import { checkThresholdOverrides } from '../safety/thresholds';
+import { checkThresholdOverrides } from '../thresholds';
 import { issue, type Issue } from '../result';
 import type { Case, ChelationPeriod } from './caseFile';
 import type { IsoDate } from '../dates';

@@ -1,5 +1,5 @@
 import type { AssumptionUse, Derivation } from '../formulas/derivation';
-import { findFormula } from '../formulas/catalogue';
+import { findFormula } from '../catalogue';
 import { findSource, type Source } from '../references';
 
 export interface AppendixFormula {

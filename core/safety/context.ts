@@ -6,7 +6,7 @@ import type { Case, ChelationPeriod, CoMedication, HeightEntry, ResultEntry, Res
 import { periodsActiveOn } from '../model/periodsActiveOn';
 import { sortedByDate } from '../model/sortedByDate';
 import { ageOnDate } from '../patient/ageOnDate';
-import { applyThreshold, type AppliedThreshold, type FixedThresholdId, type ThresholdOverrides } from './thresholds';
+import { applyThreshold, type AppliedThreshold, type FixedThresholdId, type ThresholdOverrides } from '../thresholds';
 
 /** A chelation period running on the review date, with its dose per kg per dosing day. */
 export interface ActiveRegimen {

@@ -5,7 +5,7 @@ import { ok, type Result } from '../result';
 import { safetyContext } from './context';
 import type { SafetyRule } from './rule';
 import { safetyRules } from './rules';
-import { anySourceUncertain, checkThresholdOverrides, type ThresholdOverrides } from './thresholds';
+import { anySourceUncertain, checkThresholdOverrides, type ThresholdOverrides } from '../thresholds';
 import { severities, type Finding } from './types';
 
 /**
@@ -17,7 +17,7 @@ import { severities, type Finding } from './types';
  * finding is for review by the prescriber.
  *
  * Local protocols may set a threshold differently: pass the overrides keyed by
- * threshold id (core/safety/thresholds.ts). The case file has no place for
+ * threshold id (core/thresholds/catalogue.ts). The case file has no place for
  * them yet (version 1), so they are a parameter here.
  *
  * @param caseFile - a parsed case (core/model parseCase); not changed

@@ -3,7 +3,7 @@
  * case into sourced, descriptive findings for the prescriber's review.
  */
 export * from './types';
-export * from './thresholds';
+export * from '../thresholds';
 export type { SafetyRule } from './rule';
 export { safetyRules } from './rules';
 export { evaluateFindings } from './evaluateFindings';

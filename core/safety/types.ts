@@ -1,7 +1,7 @@
 import type { IsoDate } from '../dates/isoDate';
 import type { Derivation } from '../formulas/derivation';
 import type { LigandId } from '../chelators/catalogue';
-import type { AppliedThreshold } from './thresholds';
+import type { AppliedThreshold } from '../thresholds';
 
 /** How soon a finding asks for the prescriber's attention; never whether it is shown (every finding is shown). */
 export const severities = ['urgent', 'review', 'information'] as const;

@@ -6,9 +6,9 @@
  * The unit strings are UCUM codes where UCUM has one, so the brand also names
  * the unit used at the boundaries (imports, exports, the command line).
  */
-declare const unitBrand: unique symbol;
+import type { Quantity } from '../quantity';
 
-export type Quantity<Unit extends string> = number & { readonly [unitBrand]: Unit };
+export type { Quantity };
 
 export type Milligrams = Quantity<'mg'>;
 export type Grams = Quantity<'g'>;

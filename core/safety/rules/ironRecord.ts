@@ -3,7 +3,7 @@ import { licFromR2Star } from '../../iron/licFromR2Star';
 import { r2StarCalibration, r2StarCalibrationIds, type R2StarCalibrationId } from '../../iron/r2StarCalibrations';
 import { perSecond, tesla } from '../../units/quantity';
 import { defineRule } from '../rule';
-import { thresholdText } from '../thresholds';
+import { thresholdText } from '../../thresholds';
 import type { FindingDraft, TriggerValue } from '../types';
 import { forPrescriberReview, shown } from '../wording';
 

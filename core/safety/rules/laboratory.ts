@@ -3,7 +3,7 @@ import type { LigandId } from '../../chelators/catalogue';
 import { continuousRunStart } from '../continuousRunStart';
 import type { SafetyContext } from '../context';
 import { defineRule } from '../rule';
-import { thresholdText } from '../thresholds';
+import { thresholdText } from '../../thresholds';
 import type { FindingDraft, TriggerValue } from '../types';
 import { capitalised, forPrescriberReview, readableUnit, shown } from '../wording';
 

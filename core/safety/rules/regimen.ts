@@ -4,7 +4,7 @@ import { runFormula } from '../../formulas/run';
 import { continuousRunStart } from '../continuousRunStart';
 import type { ActiveRegimen } from '../context';
 import { defineRule } from '../rule';
-import { doseThresholdId, thresholdText } from '../thresholds';
+import { doseThresholdId, thresholdText } from '../../thresholds';
 import type { FindingDraft, TriggerValue } from '../types';
 import { capitalised, forPrescriberReview, shown } from '../wording';
 

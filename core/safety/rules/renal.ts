@@ -6,7 +6,7 @@ import { continuousRunStart } from '../continuousRunStart';
 import type { SafetyContext } from '../context';
 import { creatinineMgPerDl } from '../creatinine';
 import { defineRule } from '../rule';
-import { thresholdText } from '../thresholds';
+import { thresholdText } from '../../thresholds';
 import type { FindingDraft, TriggerValue } from '../types';
 import { forPrescriberReview, readableUnit, shown } from '../wording';
 

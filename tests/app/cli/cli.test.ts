@@ -5,7 +5,7 @@ import { fileURLToPath } from 'node:url';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { parseArgs } from '../../../app/cli/args';
-import { formulaCatalogue } from '../../../core/formulas/catalogue';
+import { formulaCatalogue } from '../../../core/catalogue';
 import { describeFormula, flagForInput } from '../../../core/formulas/describe';
 // @ts-expect-error plain ESM build script without type declarations
 import { buildCli } from '../../../app/build/build-cli.mjs';

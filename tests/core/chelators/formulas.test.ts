@@ -7,7 +7,7 @@ import {
   expectedExcretion,
   saltToBase,
 } from '../../../core/chelators';
-import { findFormula } from '../../../core/formulas/catalogue';
+import { findFormula } from '../../../core/catalogue';
 import { runFormula } from '../../../core/formulas/run';
 
 function outputsOf<T>(result: { ok: true; value: { outputs: T } } | { ok: false; issues: readonly unknown[] }): T {

@@ -5,7 +5,7 @@ import { bindingCapacity } from '../../../core/chelators/formulas';
 import { capacityComparison, capacityComparisonRow, usualDailyDoseOf } from '../../../core/chemistry/capacityComparison';
 import { capacityAndPmFormula, pmFormula } from '../../../core/chemistry/formulas';
 import { findConstantSet } from '../../../core/chemistry/sets';
-import { formulaIds } from '../../../core/formulas/catalogue';
+import { formulaIds } from '../../../core/catalogue';
 import { runFormula } from '../../../core/formulas/run';
 import { kg, mg, mgPerKgPerDay } from '../../../core/units/quantity';
 

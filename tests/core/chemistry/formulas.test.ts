@@ -5,7 +5,7 @@ import {
   metalCompetitionFormula,
   pmFormula,
 } from '../../../core/chemistry/formulas';
-import { formulaIds } from '../../../core/formulas/catalogue';
+import { formulaIds } from '../../../core/catalogue';
 import { runFormula } from '../../../core/formulas/run';
 
 describe('chemistry calculators through runFormula', () => {

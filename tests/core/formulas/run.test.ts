@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { expectedExcretion } from '../../../core/chelators/formulas';
 import { runFormula } from '../../../core/formulas/run';
-import { findFormula } from '../../../core/formulas/catalogue';
+import { findFormula } from '../../../core/catalogue';
 
 // The framework's own rules (design.md §5; issue 6): a derivation lists exactly the
 // inputs a result used, each with the unit it was entered in.

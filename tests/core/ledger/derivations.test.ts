@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { computeCase } from '../../../core/ledger/computeCase';
 import { derivationsOf } from '../../../core/report/derivationIndex';
-import { findFormula } from '../../../core/formulas/catalogue';
+import { findFormula } from '../../../core/catalogue';
 import { formulaIdsIn, type Derivation } from '../../../core/formulas/derivation';
 import { runFormula } from '../../../core/formulas/run';
 import { parseCase } from '../../../core/model/parseCase';

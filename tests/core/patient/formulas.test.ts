@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { findFormula } from '../../../core/formulas/catalogue';
+import { findFormula } from '../../../core/catalogue';
 import { runFormula } from '../../../core/formulas/run';
 import * as patient from '../../../core/patient';
 

@@ -1,11 +1,11 @@
-import { chelatorsFormulas } from '../chelators/formulas';
-import { chemistryFormulas } from '../chemistry/formulas';
-import { dosingFormulas } from '../dosing/formulas';
-import { ironFormulas } from '../iron/formulas';
-import { ledgerFormulas } from '../ledger/formulas';
-import { patientFormulas } from '../patient/formulas';
-import { unitFormulas } from '../units/formulas';
-import type { AnyFormula } from './types';
+import { chelatorsFormulas } from './chelators/formulas';
+import { chemistryFormulas } from './chemistry/formulas';
+import { dosingFormulas } from './dosing/formulas';
+import { ironFormulas } from './iron/formulas';
+import { ledgerFormulas } from './ledger/formulas';
+import { patientFormulas } from './patient/formulas';
+import { unitFormulas } from './units/formulas';
+import type { AnyFormula } from './formulas/types';
 
 /**
  * The one catalogue of formulas. `calc --list`, the command-line calculators,

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { assumptionCatalogue, findAssumption } from '../../../core/assumptions';
-import { formulaCatalogue } from '../../../core/formulas/catalogue';
-import { findSource } from '../../../core/references';
+import { assumptionCatalogue, findAssumption } from '../../core/assumptions';
+import { formulaCatalogue } from '../../core/catalogue';
+import { findSource } from '../../core/references';
 
 // Invariants of the catalogue itself: every formula and assumption names sources
 // that exist, ids are stable kebab-case, ranges are sane. No outside reference
