@@ -2,7 +2,7 @@ import { z } from 'zod';
 import { productCatalogueSchema } from '../dosing/productCatalogue';
 import { assumptionOverridesSchema } from '../model/assumptionOverrides';
 import { thresholdOverridesSchema } from '../model/caseFile';
-import { checkThresholdOverrides } from '../safety/thresholds';
+import { checkThresholdOverrides } from '../thresholds';
 
 /** How quantities are shown: SI (µmol/L, g/L) or the conventional units (mg/dL, g/dL). */
 export const unitSystems = ['si', 'conventional'] as const;
