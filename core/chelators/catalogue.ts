@@ -184,7 +184,7 @@ export const chelatorCatalogue = [
   },
   {
     id: 'deferasirox-film-coated',
-    label: 'deferasirox, film-coated tablets',
+    label: 'deferasirox, film-coated tablets or oral granules',
     ligandId: 'deferasirox',
     dosedAsFormId: 'deferasirox',
     formulation: 'film-coated-tablet',
@@ -212,6 +212,22 @@ export function findLigand(ligandId: LigandId): Ligand {
   const found = ligandCatalogue.find((it) => it.id === ligandId);
   if (!found) throw new Error(`Unknown ligand ${ligandId}`);
   return found;
+}
+
+/**
+ * The catalogued product a chelation period as recorded belongs to:
+ * deferasirox tablets for oral suspension are the dispersible tablets; the
+ * oral granules are dosed as the film-coated tablets (US label for the
+ * granules, references.md §9), so they share that entry's dose range.
+ *
+ * @param drug - the period's drug
+ * @param formulation - the period's formulation as recorded
+ * @returns the catalogue id
+ * @example chelatorIdForPeriod('deferasirox', 'granules') === 'deferasirox-film-coated'
+ */
+export function chelatorIdForPeriod(drug: LigandId, formulation: string): ChelatorId {
+  if (drug === 'deferasirox') return formulation === 'dispersible-tablet' ? 'deferasirox-dispersible' : 'deferasirox-film-coated';
+  return drug;
 }
 
 /** The catalogued product with this id. */

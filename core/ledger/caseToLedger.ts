@@ -1,6 +1,6 @@
 import { resolveAssumption, type ResolvedAssumption } from '../assumptions';
 import { expectedIronExcretionMgPerDay } from '../chelators/expectedExcretion';
-import type { ChelatorId } from '../chelators/catalogue';
+import { chelatorIdForPeriod, type ChelatorId } from '../chelators/catalogue';
 import { licFromR2Star } from '../iron/licFromR2Star';
 import { r2StarCalibration, r2StarCalibrationIds, type R2StarCalibrationId } from '../iron/r2StarCalibrations';
 import { licMgPerGDryFromUmolPerGDry } from '../units/liverIron';
@@ -24,10 +24,7 @@ export interface NormalisedCase {
 
 /** The catalogue product for a chelation period as recorded. */
 export function chelatorIdOf(period: Pick<ChelationPeriod, 'drug' | 'formulation'>): ChelatorId {
-  if (period.drug === 'deferasirox') {
-    return period.formulation === 'film-coated-tablet' ? 'deferasirox-film-coated' : 'deferasirox-dispersible';
-  }
-  return period.drug;
+  return chelatorIdForPeriod(period.drug, period.formulation);
 }
 
 /** 'deferasirox film-coated-tablet 21 mg/kg × 1/day, 7 days/week, adherence 0.9'. */

@@ -30,7 +30,7 @@ export function ferritinSummary(
   const { caseFile, asOf } = context;
   const windowFrom = addDaysIso(asOf, -Math.round(windowMonths * daysPerMonth));
   const points = caseFile.results
-    .filter((it) => it.kind === 'ferritin' && it.date <= asOf)
+    .filter((it): it is Extract<typeof it, { readonly kind: 'ferritin' }> => it.kind === 'ferritin' && it.date <= asOf)
     .map((it) => ({ date: it.date, value: it.measured.value }))
     .sort((a, b) => a.date.localeCompare(b.date));
   const trend = logLinearTrend(points.filter((it) => it.date >= windowFrom));

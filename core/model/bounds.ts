@@ -1,4 +1,5 @@
 import { displayUnit } from '../units/displayUnit';
+import { ucumCodeForTypedUnit } from '../units/unitSpellings';
 import { z } from 'zod';
 import type { IssueCode } from '../result';
 
@@ -135,18 +136,60 @@ export function boundedNumber(bounds: Bounds, level: CheckLevel) {
 }
 
 /**
- * Schema of a quantity as entered, `{ value, unit }`, where each allowed unit
- * has its own ranges (creatinine in mg/dL or µmol/L). The value is kept in the
- * unit the user typed; conversion happens in core/units, never here.
+ * The plausible range of another allowed unit the value would fit: a
+ * creatinine of 1.5 typed as µmol/L is plausible as mg/dL. Used to suggest
+ * the other unit in the warning.
+ */
+function otherUnitThatFits<Unit extends string>(value: number, unit: Unit, boundsByUnit: Readonly<Record<Unit, Bounds>>): Unit | undefined {
+  return (Object.keys(boundsByUnit) as Unit[]).find((other) => {
+    if (other === unit) return false;
+    const { min, max } = boundsByUnit[other].plausible;
+    return value >= min && value <= max;
+  });
+}
+
+/**
+ * Schema of a quantity as entered, `{ value, unit, unitAsTyped? }`, where each
+ * allowed unit has its own ranges (creatinine in mg/dL or µmol/L). The unit
+ * may be typed as people write it ('µmol/l', 'ml', 'mg/g dry'): it is read to
+ * its UCUM code (core/units/unitSpellings.ts) and the spelling typed is kept
+ * in `unitAsTyped`, so nothing typed is lost. The value is kept in the unit
+ * the user typed; conversion happens in core/units, never here. A value
+ * outside its plausible range that would be plausible in another allowed unit
+ * gets a warning naming that unit.
  *
  * @param boundsByUnit - ranges keyed by UCUM code; the keys are the allowed units
  * @param level - which range this schema checks
  * @example measuredQuantity({ kg: weightBounds }, 'refuse').safeParse({ value: 52, unit: 'kg' }).success === true
+ * @example measuredQuantity(creatinineBounds, 'refuse').parse({ value: 88, unit: 'µmol/l' }) → { value: 88, unit: 'umol/L', unitAsTyped: 'µmol/l' }
  */
 export function measuredQuantity<const Unit extends string>(boundsByUnit: Readonly<Record<Unit, Bounds>>, level: CheckLevel) {
   const units = Object.keys(boundsByUnit) as [Unit, ...Unit[]];
   const expected = units.map((unit) => plausibleRangeText(boundsByUnit[unit])).join(' or ');
   return z
-    .strictObject({ value: numberSchema(expected), unit: z.enum(units) })
-    .superRefine((quantity, ctx) => addFinding(ctx, checkBounds(quantity.value, boundsByUnit[quantity.unit], level), ['value']));
+    // The UCUM codes first, so the format's JSON Schema lists them; any other spelling is read below.
+    .strictObject({ value: numberSchema(expected), unit: z.union([z.enum(units), z.string().max(40)]), unitAsTyped: z.string().max(40).optional() })
+    .superRefine((quantity, ctx) => {
+      if (ucumCodeForTypedUnit(quantity.unit, units) !== undefined) return;
+      ctx.addIssue({
+        code: 'custom',
+        path: ['unit'],
+        message: `${JSON.stringify(quantity.unit)} is not one of: ${units.join(', ')}.`,
+        params: { code: 'unknown_choice' } satisfies CustomIssueParams,
+      });
+    })
+    .transform((quantity): { value: number; unit: Unit; unitAsTyped?: string } => {
+      const unit = ucumCodeForTypedUnit(quantity.unit, units)!;
+      const unitAsTyped = quantity.unitAsTyped ?? (quantity.unit === unit ? undefined : quantity.unit);
+      return unitAsTyped === undefined ? { value: quantity.value, unit } : { value: quantity.value, unit, unitAsTyped };
+    })
+    .superRefine((quantity, ctx) => {
+      const finding = checkBounds(quantity.value, boundsByUnit[quantity.unit], level);
+      const other = level === 'warn' && finding ? otherUnitThatFits(quantity.value, quantity.unit, boundsByUnit) : undefined;
+      addFinding(
+        ctx,
+        finding && other ? { ...finding, message: `${finding.message.replace(/; check the value and its unit\.$/u, '')}; it would be plausible in ${displayUnit(other)} (${plausibleRangeText(boundsByUnit[other])}): check the unit.` } : finding,
+        ['value'],
+      );
+    });
 }

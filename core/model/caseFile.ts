@@ -2,7 +2,9 @@ import { z } from 'zod';
 import { assumptionOverridesSchema } from './assumptionOverrides';
 import type { CheckLevel } from './bounds';
 import { chelationPeriodSchemaAt } from './chelationPeriod';
+import { clinicalStateSchema } from './clinicalState';
 import { coMedicationSchemaAt } from './coMedication';
+import { dispensingSchemaAt } from './dispensing';
 import { entryIdSchema, isoDateSchema, requiredTextSchema } from './fields';
 import { patientSchemaAt } from './patient';
 import { resultEntrySchemaAt } from './resultEntry';
@@ -12,12 +14,12 @@ import { transfusionSchemaAt } from './transfusion';
 /** The `format` every case file carries at its top. */
 export const caseFileFormat = 'chelation-ledger.case';
 /** The version this code writes; older versions are migrated forward on open (migrate.ts). */
-export const currentCaseFileVersion = 1;
+export const currentCaseFileVersion = 2;
 /** What-if regimens a case may hold beside the current one. */
 export const maxProposedRegimens = 3;
 
 /**
- * A local protocol's safety thresholds (core/safety/thresholds.ts), by threshold id,
+ * A local protocol's safety thresholds (core/thresholds), by threshold id,
  * with why, who and when; ids and ranges are checked by checkThresholdOverrides.
  */
 export const thresholdOverridesSchema = z.record(
@@ -26,8 +28,18 @@ export const thresholdOverridesSchema = z.record(
 );
 
 /**
- * Schema of a version 1 case file at one check level ('refuse' or 'warn',
- * see bounds.ts). Lists may be omitted and default to empty.
+ * Schema of a version 2 case file at one check level ('refuse' or 'warn',
+ * see bounds.ts). Lists may be omitted and default to empty. This schema is
+ * the single source of the format: the types below are derived from it, and
+ * version 1 files are read through the migration (migrate.ts).
+ *
+ * Version 2 adds: results (platelets, AST, bilirubin, urine
+ * protein-to-creatinine ratio, zinc, audiology and eye examinations; a
+ * laboratory reference range on any measured result), the clinical state
+ * (Child-Pugh class, cardiac failure, renal risk factors), co-medications by
+ * free generic name, dispensing records, deferasirox granules, a product id
+ * on a chelation period, and units typed as people write them (kept as typed,
+ * read as UCUM).
  *
  * A proposed regimen is a what-if: a name and the chelation periods it would
  * run, starting at the review date; the ledger projects it beside the current
@@ -43,6 +55,8 @@ export function caseSchemaAt(level: CheckLevel) {
     results: z.array(resultEntrySchemaAt(level)).default([]),
     chelationPeriods: z.array(chelationPeriod).default([]),
     coMedications: z.array(coMedicationSchemaAt(level)).default([]),
+    dispensings: z.array(dispensingSchemaAt(level)).default([]),
+    clinicalState: clinicalStateSchema.default({ hepaticImpairment: [], cardiacFailure: [], renalRiskFactors: [] }),
     assumptionOverrides: assumptionOverridesSchema.default({}),
     thresholdOverrides: thresholdOverridesSchema.default({}),
     proposedRegimens: z
@@ -72,6 +86,8 @@ export type ResultEntry = Case['results'][number];
 export type ResultKind = ResultEntry['kind'];
 export type ChelationPeriod = Case['chelationPeriods'][number];
 export type CoMedication = Case['coMedications'][number];
+export type Dispensing = Case['dispensings'][number];
+export type ClinicalState = Case['clinicalState'];
 export type ProposedRegimen = Case['proposedRegimens'][number];
 export type CaseAssumptionOverrides = Case['assumptionOverrides'];
 /** A local protocol's safety thresholds (core/thresholds/catalogue.ts), by threshold id, with why, who and when. */

@@ -12,7 +12,13 @@ import {
 } from './plausibleRanges';
 
 export const chelatorDrugs = ['deferoxamine', 'deferiprone', 'deferasirox'] as const;
-export const deferasiroxFormulations = ['dispersible-tablet', 'film-coated-tablet'] as const;
+/**
+ * Deferasirox forms: tablets for oral suspension ('dispersible-tablet'),
+ * film-coated tablets, and oral granules (version 2), which the US label doses
+ * as the film-coated tablets (references.md §9: US label, national drug code
+ * records).
+ */
+export const deferasiroxFormulations = ['dispersible-tablet', 'film-coated-tablet', 'granules'] as const;
 export const deferiproneFormulations = ['tablet', 'oral-solution'] as const;
 export const deferoxamineFormulations = ['vial'] as const;
 export const deferoxamineRoutes = ['subcutaneous', 'intravenous'] as const;
@@ -29,6 +35,13 @@ export const deferoxamineRoutes = ['subcutaneous', 'intravenous'] as const;
  * `adherence` is an estimated fraction of prescribed doses taken (default 1).
  * It is an estimate the pharmacist makes, not a measurement; `adherenceNote`
  * says what it rests on (pharmacy refill record, the patient's account).
+ *
+ * `productId` (version 2, optional) names the product in the dosing
+ * catalogue (core/dosing/productCatalogue.ts, or the local formulary's): the
+ * two deferiprone 1,000 mg tablets for twice- and three-times-daily dosing are
+ * different products, and a finding compares the product with the
+ * administrations per day. Unknown ids are reported by the safety rules,
+ * which know the catalogue in use.
  */
 export function chelationPeriodSchemaAt(level: CheckLevel) {
   const shared = {
@@ -39,6 +52,7 @@ export function chelationPeriodSchemaAt(level: CheckLevel) {
     daysPerWeek: boundedNumber(daysPerWeekBounds, level),
     adherence: boundedNumber(adherenceBounds, level).default(1),
     adherenceNote: noteSchema.optional(),
+    productId: z.string().min(1).max(64).optional(),
     note: noteSchema.optional(),
   };
   return z.discriminatedUnion('drug', [

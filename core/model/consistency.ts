@@ -4,7 +4,11 @@ import type { Case, ChelationPeriod } from './caseFile';
 import type { IsoDate } from '../dates';
 import { r2StarCalibrations } from '../iron/r2StarCalibrations';
 import { plausibleRangeText } from './bounds';
-import { weightBounds } from './plausibleRanges';
+import { weightBounds, weightChangeWithin90Days, weightForAgeBands } from './plausibleRanges';
+import { daysBetween } from '../dates';
+import { ageInDecimalYears } from '../patient/age';
+import { chelatorIdForPeriod, findChelator } from '../chelators/catalogue';
+import { latestWeightOnOrBefore } from './latestWeight';
 import { pathText } from './zodIssues';
 
 type Path = readonly (string | number)[];
@@ -23,6 +27,10 @@ function eventDates(theCase: Case): DatedAt[] {
   theCase.results.forEach((it, index) => dates.push({ path: ['results', index, 'date'], date: it.date }));
   theCase.chelationPeriods.forEach((it, index) => dates.push({ path: ['chelationPeriods', index, 'startDate'], date: it.startDate }));
   theCase.coMedications.forEach((it, index) => dates.push({ path: ['coMedications', index, 'startDate'], date: it.startDate }));
+  theCase.dispensings.forEach((it, index) => dates.push({ path: ['dispensings', index, 'date'], date: it.date }));
+  for (const list of ['hepaticImpairment', 'cardiacFailure', 'renalRiskFactors'] as const) {
+    theCase.clinicalState[list].forEach((it, index) => dates.push({ path: ['clinicalState', list, index, 'date'], date: it.date }));
+  }
   return dates;
 }
 
@@ -45,6 +53,10 @@ function duplicateIds(theCase: Case): Issue[] {
     ...theCase.chelationPeriods.map((it, index) => ({ path: ['chelationPeriods', index, 'id'], id: it.id })),
     ...theCase.coMedications.map((it, index) => ({ path: ['coMedications', index, 'id'], id: it.id })),
     ...theCase.proposedRegimens.map((it, index) => ({ path: ['proposedRegimens', index, 'id'], id: it.id })),
+    ...theCase.dispensings.map((it, index) => ({ path: ['dispensings', index, 'id'], id: it.id })),
+    ...(['hepaticImpairment', 'cardiacFailure', 'renalRiskFactors'] as const).flatMap((list) =>
+      theCase.clinicalState[list].map((it, index) => ({ path: ['clinicalState', list, index, 'id'], id: it.id })),
+    ),
   ];
   for (const { path, id } of entries) {
     const first = seen.get(id);
@@ -108,6 +120,96 @@ function calibrationProblems(theCase: Case): Issue[] {
   return found;
 }
 
+/** Age in decimal years on a date from the patient block (365.2425-day Gregorian year), or undefined. */
+function ageOnDate(theCase: Case, date: IsoDate): number | undefined {
+  const age = theCase.patient.age;
+  if (age.kind === 'years-on-date') return age.years + daysBetween(age.onDate, date) / 365.2425;
+  const years = ageInDecimalYears(age.birthDate, date);
+  return years.ok ? years.value : undefined;
+}
+
+/**
+ * Weights that look mistyped: outside the band for the age on the day
+ * (plausibleRanges.ts weightForAgeBands), or more than a fifth away from a
+ * weight of the 90 days before (a 6.1 entered for 61 kg).
+ */
+function weightProblems(theCase: Case): Issue[] {
+  const found: Issue[] = [];
+  const { weights } = theCase.patient;
+  const { share, windowDays } = weightChangeWithin90Days;
+  weights.forEach((entry, index) => {
+    const path = ['patient', 'weights', index, 'weight', 'value'];
+    const kg = entry.weight.value;
+    const age = ageOnDate(theCase, entry.date);
+    const band = age === undefined ? undefined : weightForAgeBands.find((it) => age >= it.fromYears && age < it.toYears);
+    if (band && (kg < band.minKg || kg > band.maxKg)) {
+      found.push(
+        issue(
+          'out_of_range',
+          path,
+          `${pathText(path)} ${kg} kg on ${entry.date} is outside ${band.minKg}–${band.maxKg} kg, the plausible range at age ${Math.floor(age!)} (${band.fromYears}–${band.toYears < 130 ? band.toYears : 'any'} years); check the value and its unit.`,
+          'warning',
+        ),
+      );
+    }
+    const earlier = weights
+      .filter((other) => other.date < entry.date && daysBetween(other.date, entry.date) <= windowDays)
+      .sort((first, second) => (first.date < second.date ? 1 : -1))[0];
+    if (earlier) {
+      const change = kg / earlier.weight.value - 1;
+      if (Math.abs(change) > share) {
+        found.push(
+          issue(
+            'inconsistent',
+            path,
+            `${pathText(path)} ${kg} kg on ${entry.date} is ${Math.round(Math.abs(change) * 100)} % ${change < 0 ? 'below' : 'above'} the ${earlier.weight.value} kg of ${earlier.date} (${daysBetween(earlier.date, entry.date)} days before): more than ${share * 100} % within ${windowDays} days; check the value.`,
+            'warning',
+          ),
+        );
+      }
+    }
+  });
+  return found;
+}
+
+/**
+ * The dose field is per administration: a dose typed as the daily amount and
+ * multiplied by the administrations per day gives a daily total far above the
+ * label. Warns with the daily total whenever it is above the labelled daily
+ * maximum of the product (core/chelators/catalogue.ts, with its sources).
+ */
+function dailyDoseProblems(theCase: Case): Issue[] {
+  const found: Issue[] = [];
+  const periods = [
+    ...theCase.chelationPeriods.map((period, index) => ({ period, path: ['chelationPeriods', index] as Path })),
+    ...theCase.proposedRegimens.flatMap((regimen, regimenIndex) =>
+      regimen.periods.map((period, index) => ({ period, path: ['proposedRegimens', regimenIndex, 'periods', index] as Path })),
+    ),
+  ];
+  for (const { period, path } of periods) {
+    const weight = latestWeightOnOrBefore(theCase.patient.weights, period.startDate) ?? theCase.patient.weights[0];
+    const perAdministrationMgPerKg = period.dose.unit === 'mg/kg' ? period.dose.value : weight ? period.dose.value / weight.weight.value : undefined;
+    if (perAdministrationMgPerKg === undefined) continue;
+    const entry = findChelator(chelatorIdForPeriod(period.drug, period.formulation));
+    const dailyMgPerKg = perAdministrationMgPerKg * period.administrationsPerDay;
+    const maxMgPerKg = entry.dose.maxMgPerKgPerDay;
+    if (dailyMgPerKg <= maxMgPerKg * (1 + 1e-9)) continue;
+    const where = [...path, 'dose'];
+    const perWeight = period.dose.unit === 'mg' && weight ? ` (${round1(perAdministrationMgPerKg)} mg/kg at ${weight.weight.value} kg)` : '';
+    found.push(
+      issue(
+        'out_of_range',
+        where,
+        `${pathText(where)} ${period.dose.value} ${period.dose.unit}${perWeight} is per administration: × ${period.administrationsPerDay} a day = ${round1(dailyMgPerKg)} mg/kg/day, above the labelled daily maximum of ${maxMgPerKg} mg/kg/day for ${entry.label}; check whether the daily dose was entered as the dose per administration.`,
+        'warning',
+      ),
+    );
+  }
+  return found;
+}
+
+const round1 = (value: number) => String(Math.round(value * 10) / 10);
+
 /**
  * Initials (JS) and local codes (TH-0417) are what a label should be; two or
  * more words of letters ("Jane Smith", "Smith, J") or one capitalised word
@@ -122,8 +224,10 @@ function labelLooksLikeName(label: string): boolean {
  * they start, events before birth (refused); events after the review date,
  * proposed periods starting before it, overlapping periods of one drug,
  * pregnancy recorded with male sex at birth, a label that looks like a name,
- * no weight on record, a raw R2* or T2* with an unknown calibration or one of
- * another field strength (warnings).
+ * no weight on record, a weight implausible for the age or changed by more
+ * than a fifth within 90 days, a dose per administration whose daily total is
+ * above the labelled daily maximum, a raw R2* or T2* with an unknown
+ * calibration or one of another field strength (warnings).
  *
  * @param theCase - a case that passed the schema
  * @returns errors and warnings, each with its path; empty when all is consistent
@@ -173,6 +277,8 @@ export function consistencyIssues(theCase: Case): Issue[] {
   }
 
   found.push(...overlappingSameDrug(theCase.chelationPeriods));
+  found.push(...weightProblems(theCase));
+  found.push(...dailyDoseProblems(theCase));
   found.push(...calibrationProblems(theCase));
 
   const { pregnancy, sexAtBirth, label, weights } = theCase.patient;

@@ -5,12 +5,30 @@ import { describeValue } from './zodIssues';
 /**
  * One step forward: takes a file of version n (already checked for format and
  * version) and returns a new object of version n + 1. It must not change its
- * input. Version 2 adds `2: fromVersion1` here, written as a pure function.
+ * input.
  */
 type Migration = (older: Readonly<Record<string, unknown>>) => Record<string, unknown>;
 
-/** Keyed by the version a migration starts from. Empty while version 1 is the only one. */
-const migrations: Readonly<Record<number, Migration>> = {};
+/**
+ * Version 1 → 2. Everything version 1 holds means the same in version 2
+ * except the co-medications: version 1 knew only ascorbic acid, recorded as
+ * `substance: 'ascorbic-acid'`; version 2 records any drug by its generic name,
+ * so the substance becomes `name: 'ascorbic acid'`. The new lists (dispensings,
+ * clinical state) start empty by the schema's defaults. Pure: a new object.
+ */
+function fromVersion1(older: Readonly<Record<string, unknown>>): Record<string, unknown> {
+  const coMedications = Array.isArray(older['coMedications'])
+    ? older['coMedications'].map((entry: unknown) => {
+        if (!isPlainObject(entry) || !('substance' in entry)) return entry;
+        const { substance, ...rest } = entry;
+        return substance === 'ascorbic-acid' ? { ...rest, name: 'ascorbic acid' } : { ...rest, name: substance };
+      })
+    : older['coMedications'];
+  return { ...older, version: 2, ...(coMedications === undefined ? {} : { coMedications }) };
+}
+
+/** Keyed by the version a migration starts from. */
+const migrations: Readonly<Record<number, Migration>> = { 1: fromVersion1 };
 
 function isPlainObject(value: unknown): value is Readonly<Record<string, unknown>> {
   return typeof value === 'object' && value !== null && !Array.isArray(value);
@@ -27,7 +45,8 @@ function isPlainObject(value: unknown): value is Readonly<Record<string, unknown
  * @param json - anything, typically the output of JSON.parse
  * @returns the file at the current version (not yet validated: parseCase does that), or
  *   'invalid_file' (not a case file) / 'unsupported_version' (a version this code does not know)
- * @example migrateCase({ format: 'chelation-ledger.case', version: 2 }) → fail(unsupported_version)
+ * @example migrateCase({ format: 'chelation-ledger.case', version: 3 }) → fail(unsupported_version)
+ * @example migrateCase({ format: 'chelation-ledger.case', version: 1, coMedications: [{ substance: 'ascorbic-acid', … }] }).value.coMedications[0].name === 'ascorbic acid'
  */
 export function migrateCase(json: unknown): Result<unknown> {
   if (!isPlainObject(json)) {

@@ -109,6 +109,59 @@ export const urinaryCopperBounds = {
   'umol/(24.h)': { unit: 'umol/(24.h)', possible: nonNegative(315), plausible: { min: 0, max: 79 }, decimals: 0 },
 } as const satisfies Record<string, Bounds>;
 
+/** Platelets; ×10⁹/L and ×10³/µL are the same number. Zero is possible. */
+const platelets = { possible: nonNegative(5000), plausible: { min: 5, max: 1500 }, decimals: 0 } as const;
+export const plateletBounds = {
+  '10*9/L': { unit: '10*9/L', ...platelets },
+  '10*3/uL': { unit: '10*3/uL', ...platelets },
+} as const satisfies Record<string, Bounds>;
+/** Aspartate aminotransferase, U/L (the same screen as ALT). */
+export const astBounds = { 'U/L': { unit: 'U/L', possible: nonNegative(20000), plausible: { min: 3, max: 1000 }, decimals: 0 } } as const satisfies Record<string, Bounds>;
+/** Total bilirubin. mg/dL = µmol/L ÷ 17.10 (molar mass 584.66 g/mol, from the CIAAW weights of C33H36N4O6). */
+export const bilirubinBounds = {
+  'umol/L': { unit: 'umol/L', possible: nonNegative(1500), plausible: { min: 1, max: 500 }, decimals: 0 },
+  'mg/dL': { unit: 'mg/dL', possible: nonNegative(88), plausible: { min: 0.055, max: 30 }, decimals: 3 },
+} as const satisfies Record<string, Bounds>;
+/**
+ * Urine protein-to-creatinine ratio. mg/mmol (UK reports) × 8.84 = mg/g (US
+ * reports; creatinine 113.12 g/mol: 1 mmol = 0.11312 g), rounded outward. Nephrotic range is
+ * above about 300 mg/mmol; the screen is wider.
+ */
+export const urineProteinCreatinineRatioBounds = {
+  'mg/mmol': { unit: 'mg/mmol', possible: nonNegative(5000), plausible: { min: 0, max: 1000 }, decimals: 0 },
+  'mg/g': { unit: 'mg/g', possible: nonNegative(45000), plausible: { min: 0, max: 8900 }, decimals: 0 },
+} as const satisfies Record<string, Bounds>;
+/** Serum or plasma zinc. µg/dL = µmol/L × 6.538 (Ar(Zn) 65.38, CIAAW). */
+export const zincBounds = {
+  'umol/L': { unit: 'umol/L', possible: nonNegative(200), plausible: { min: 3, max: 40 }, decimals: 1 },
+  'ug/dL': { unit: 'ug/dL', possible: nonNegative(1400), plausible: { min: 19, max: 270 }, decimals: 0 },
+} as const satisfies Record<string, Bounds>;
+
+// ── Weight by age, and weight change ───────────────────────────────────────
+/**
+ * Weight plausible for an age: a screen for a weight typed with a dropped or
+ * added digit (6.1 for 61 kg), not a growth assessment. Each band runs from
+ * about half the 3rd to about twice the 97th percentile of the CDC 2000 growth
+ * charts at the band's ends (percentile values from memory; the bands are a
+ * modelling choice of ours, deliberately wide). Ages in completed years:
+ * `fromYears` inclusive, `toYears` exclusive.
+ */
+export const weightForAgeBands = [
+  { fromYears: 0, toYears: 1, minKg: 1.5, maxKg: 25 },
+  { fromYears: 1, toYears: 5, minKg: 5, maxKg: 45 },
+  { fromYears: 5, toYears: 10, minKg: 8, maxKg: 90 },
+  { fromYears: 10, toYears: 15, minKg: 14, maxKg: 150 },
+  { fromYears: 15, toYears: 18, minKg: 22, maxKg: 200 },
+  { fromYears: 18, toYears: 130, minKg: 28, maxKg: 250 },
+] as const;
+/**
+ * A change of weight of more than this share within 90 days is flagged (a
+ * modelling choice of ours: a real loss of a fifth of body weight in three
+ * months is rare and clinically notable either way; a digit typed wrongly
+ * changes the weight tenfold).
+ */
+export const weightChangeWithin90Days = { share: 0.2, windowDays: 90 } as const;
+
 // ── Chelation ──────────────────────────────────────────────────────────────
 /**
  * Dose per administration, per drug. A wide screen around the labelled ranges
@@ -130,6 +183,19 @@ export const ascorbicAcidDoseBounds = {
   mg: { unit: 'mg', possible: positive(5000), plausible: { min: 25, max: 250 }, decimals: 0 },
   'mg/kg': { unit: 'mg/kg', possible: positive(100), plausible: { min: 1, max: 5 }, decimals: 0 },
 } as const satisfies Record<string, Bounds>;
+/** A co-medication's dose per administration, any drug: only impossible values are refused; the drug's own ranges are the prescriber's. */
+export const coMedicationDoseBounds = {
+  mg: { unit: 'mg', possible: positive(100000), plausible: { min: 0.01, max: 20000 }, decimals: 2 },
+  'mg/kg': { unit: 'mg/kg', possible: positive(1000), plausible: { min: 0.001, max: 200 }, decimals: 3 },
+  g: { unit: 'g', possible: positive(100), plausible: { min: 0.001, max: 20 }, decimals: 3 },
+} as const satisfies Record<string, Bounds>;
+/** A dispensing: tablets, vials or sachets counted ('{each}'), or mL of an oral solution. */
+export const dispensedQuantityBounds = {
+  '{each}': { unit: '{each}', possible: positive(10000), plausible: { min: 1, max: 1000 }, decimals: 0 },
+  mL: { unit: 'mL', possible: positive(50000), plausible: { min: 10, max: 10000 }, decimals: 0 },
+} as const satisfies Record<string, Bounds>;
+/** Days of supply of one dispensing: a few days up to the longest usual supply (about 3 months; common practice). */
+export const daysSuppliedBounds = { unit: 'd', possible: { min: 1, max: 366 }, plausible: { min: 1, max: 100 }, decimals: 0, integer: true } as const satisfies Bounds;
 export const administrationsPerDayBounds = { unit: '1', possible: { min: 1, max: 6 }, plausible: { min: 1, max: 3 }, decimals: 0, integer: true } as const satisfies Bounds;
 export const daysPerWeekBounds = { unit: '1', possible: { min: 1, max: 7 }, plausible: { min: 1, max: 7 }, decimals: 0, integer: true } as const satisfies Bounds;
 /** Infusion length: subcutaneous deferoxamine usually 8–12 h; continuous intravenous 24 h. */
@@ -153,6 +219,13 @@ export const allQuantityBounds = {
   haemoglobinBounds,
   bloodLeadBounds,
   urinaryCopperBounds,
+  plateletBounds,
+  astBounds,
+  bilirubinBounds,
+  urineProteinCreatinineRatioBounds,
+  zincBounds,
+  coMedicationDoseBounds,
+  dispensedQuantityBounds,
   deferoxamineDoseBounds,
   deferiproneDoseBounds,
   deferasiroxDoseBounds,

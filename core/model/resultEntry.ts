@@ -3,6 +3,8 @@ import { measuredQuantity, type Bounds, type CheckLevel } from './bounds';
 import { entryIdSchema, isoDateSchema, noteSchema, requiredTextSchema } from './fields';
 import {
   altBounds,
+  astBounds,
+  bilirubinBounds,
   bloodLeadBounds,
   cardiacT2StarBounds,
   creatinineBounds,
@@ -13,8 +15,33 @@ import {
   liverR2StarBounds,
   liverT2StarBounds,
   neutrophilBounds,
+  plateletBounds,
   urinaryCopperBounds,
+  urineProteinCreatinineRatioBounds,
+  zincBounds,
 } from './plausibleRanges';
+import type { CustomIssueParams } from './bounds';
+
+/** Outcomes of an examination recorded without a number (audiology, eye examination). */
+export const examinationOutcomes = ['normal', 'changed-from-baseline', 'not-done'] as const;
+
+/**
+ * The reporting laboratory's reference range, in the unit of the result
+ * (`low`, `high`, either may be absent). Rules that speak of the upper limit
+ * of normal use it where it is given (the deferasirox label's transaminase
+ * wording refers to the laboratory's limit).
+ */
+export const referenceRangeSchema = z
+  .strictObject({ low: z.number().min(0).optional(), high: z.number().positive().optional() })
+  .superRefine((range, ctx) => {
+    if (range.low === undefined || range.high === undefined || range.low < range.high) return;
+    ctx.addIssue({
+      code: 'custom',
+      path: ['high'],
+      message: `${range.high} is not above the lower limit ${range.low}; enter the laboratory's range as low and high.`,
+      params: { code: 'inconsistent' } satisfies CustomIssueParams,
+    });
+  });
 
 /** MRI field strengths a calibration may be tied to, tesla. A 1.5 T calibration never applies to a 3 T result (references.md §2). */
 export const fieldStrengthsT = [1.5, 3] as const;
@@ -31,13 +58,20 @@ export const liverIronMethods = ['biopsy', 'mri', 'mri-r2star', 'mri-t2star', 'm
  * (with the scanner's field strength and the calibration the report used), or
  * a raw R2*, T2* or R2 with the field strength and the calibration core/iron
  * should apply. Calibration ids are checked by core/iron, which owns them.
+ *
+ * Version 2 adds platelets, AST, bilirubin, the urine protein-to-creatinine
+ * ratio and zinc (each with an optional laboratory `referenceRange`), and the
+ * audiology and eye examinations, recorded by outcome (normal, changed from
+ * baseline, not done) rather than a number.
  */
 export function resultEntrySchemaAt(level: CheckLevel) {
   const base = { id: entryIdSchema, date: isoDateSchema, note: noteSchema.optional() };
   const fieldStrengthT = z.literal(fieldStrengthsT);
   const calibrationId = requiredTextSchema(64);
   const simple = <const Kind extends string, const Unit extends string>(kind: Kind, bounds: Readonly<Record<Unit, Bounds>>) =>
-    z.strictObject({ ...base, kind: z.literal(kind), measured: measuredQuantity(bounds, level) });
+    z.strictObject({ ...base, kind: z.literal(kind), measured: measuredQuantity(bounds, level), referenceRange: referenceRangeSchema.optional() });
+  const examination = <const Kind extends string>(kind: Kind) =>
+    z.strictObject({ ...base, kind: z.literal(kind), outcome: z.enum(examinationOutcomes) });
   const liver = <const Method extends (typeof liverIronMethods)[number], const Unit extends string>(
     method: Method,
     bounds: Readonly<Record<Unit, Bounds>>,
@@ -67,5 +101,13 @@ export function resultEntrySchemaAt(level: CheckLevel) {
     simple('haemoglobin', haemoglobinBounds),
     simple('blood-lead', bloodLeadBounds),
     simple('urinary-copper', urinaryCopperBounds),
+    // Version 2:
+    simple('platelets', plateletBounds),
+    simple('ast', astBounds),
+    simple('bilirubin', bilirubinBounds),
+    simple('urine-protein-creatinine-ratio', urineProteinCreatinineRatioBounds),
+    simple('zinc', zincBounds),
+    examination('audiology'),
+    examination('eye-examination'),
   ]);
 }

@@ -1,5 +1,6 @@
 import type { z } from 'zod';
 import { issue, issueCodes, type Issue, type IssueCode } from '../result';
+import { currentCaseFileVersion } from './caseFile';
 
 /**
  * Turn zod's issues into ours: a code from our closed set, a path into the
@@ -70,7 +71,7 @@ export interface DocumentWords {
   readonly fieldOf: string;
 }
 
-const caseFileWords: DocumentWords = { root: 'The case file', fieldOf: 'a version 1 case file' };
+const caseFileWords: DocumentWords = { root: 'The case file', fieldOf: `a version ${currentCaseFileVersion} case file` };
 
 function sentence(path: Path, rest: string, words: DocumentWords): string {
   return `${path.length === 0 ? words.root : pathText(path)} ${rest}`;

@@ -5,3 +5,4 @@ export * from './time';
 export * from './concentration';
 export * from './liverIron';
 export * from './displayUnit';
+export * from './unitSpellings';

@@ -1,6 +1,8 @@
 import { findChelator } from '../../chelators/catalogue';
 import { dfoTherapeuticIndex } from '../../chelators/formulas';
 import { runFormula } from '../../formulas/run';
+import { isAscorbicAcid } from '../../model/coMedication';
+import { coMedicationDoseMg } from '../coMedicationDose';
 import { continuousRunStart } from '../continuousRunStart';
 import type { ActiveRegimen } from '../context';
 import { defineRule } from '../rule';
@@ -232,7 +234,8 @@ export const ascorbicAcidRule = defineRule({
   uncertain: false,
   evaluate: (context) =>
     context.activeCoMedications.flatMap(({ coMedication, ref }): FindingDraft[] => {
-      const perDoseMg = coMedication.dose.unit === 'mg' ? coMedication.dose.value : coMedication.dose.value * context.weightKg;
+      if (!isAscorbicAcid(coMedication.name) || coMedication.dose === undefined) return [];
+      const perDoseMg = coMedicationDoseMg(coMedication.dose, context.weightKg);
       const deferoxamine = context.active.find((regimen) => regimen.period.drug === 'deferoxamine');
       // With each infusion: as many doses a day as deferoxamine administrations (one overnight infusion → one dose).
       const dosesPerDay = coMedication.timing === 'with-each-deferoxamine-infusion' ? (deferoxamine?.period.administrationsPerDay ?? 1) : 1;

@@ -106,7 +106,7 @@ describe('demo case TH-0093 (scenarios.md, scenario 3)', () => {
     const [current] = periodsActiveOn(theCase.chelationPeriods, reviewDate);
     expect(current).toMatchObject({ drug: 'deferoxamine', route: 'subcutaneous', dose: { value: 40, unit: 'mg/kg' }, daysPerWeek: 5, infusionHours: 10 });
     const [ascorbic] = periodsActiveOn(theCase.coMedications, reviewDate);
-    expect(ascorbic).toMatchObject({ substance: 'ascorbic-acid', dose: { value: 100, unit: 'mg' }, timing: 'with-each-deferoxamine-infusion' });
+    expect(ascorbic).toMatchObject({ name: 'ascorbic acid', dose: { value: 100, unit: 'mg' }, timing: 'with-each-deferoxamine-infusion' });
   });
 
   it('has ferritin falling from 1900 to 1250 µg/L', () => {

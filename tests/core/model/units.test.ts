@@ -34,9 +34,13 @@ function unitCodesInSchema(): Set<string> {
   const walk = (node: unknown): void => {
     if (Array.isArray(node)) return node.forEach(walk);
     if (typeof node !== 'object' || node === null) return;
-    const properties = (node as { properties?: Record<string, { enum?: unknown[]; const?: unknown }> }).properties;
+    type UnitNode = { enum?: unknown[]; const?: unknown; anyOf?: UnitNode[] };
+    const properties = (node as { properties?: Record<string, UnitNode> }).properties;
     const unit = properties?.['unit'];
-    for (const code of unit?.enum ?? (unit?.const === undefined ? [] : [unit.const])) found.add(String(code));
+    // A unit field lists its UCUM codes, beside the free spellings a person may type (read to those codes).
+    for (const option of unit ? [unit, ...(unit.anyOf ?? [])] : []) {
+      for (const code of option.enum ?? (option.const === undefined ? [] : [option.const])) found.add(String(code));
+    }
     Object.values(node).forEach(walk);
   };
   walk(z.toJSONSchema(caseSchemas.refuse, { unrepresentable: 'any', io: 'input' }));
@@ -81,6 +85,11 @@ describe('units of the case file', () => {
     { name: 'haemoglobin', byUnit: ranges.haemoglobinBounds, molarMassGPerMol: 16114.5 },
     { name: 'blood lead', byUnit: ranges.bloodLeadBounds, molarMassGPerMol: 207.2 },
     { name: 'urinary copper', byUnit: ranges.urinaryCopperBounds, molarMassGPerMol: 63.546 },
+    // Version 2 results: bilirubin C33H36N4O6 584.66 and Zn 65.38 (CIAAW); the ratio's denominator is creatinine (113.12).
+    { name: 'platelets', byUnit: ranges.plateletBounds },
+    { name: 'bilirubin', byUnit: ranges.bilirubinBounds, molarMassGPerMol: 584.66 },
+    { name: 'zinc', byUnit: ranges.zincBounds, molarMassGPerMol: 65.38 },
+    { name: 'urine protein-to-creatinine ratio', byUnit: ranges.urineProteinCreatinineRatioBounds, molarMassGPerMol: 113.12 },
   ];
 
   // Tolerance: a range in a second unit is the first unit's range converted and

@@ -76,7 +76,7 @@ describe('deferoxamine-hearing-eyes (deferoxamine label: yearly audiology and ey
 describe('ascorbic-acid-with-deferoxamine (guideline literature and label: 2–3 mg/kg/day, ≤ 200 mg/day, only with deferoxamine, not in cardiac failure)', () => {
   const ascorbic = (mg: number, startDaysBefore = 300) => ({
     id: `vc-${mg}`,
-    substance: 'ascorbic-acid',
+    name: 'ascorbic acid',
     dose: { value: mg, unit: 'mg' },
     timing: 'with-each-deferoxamine-infusion',
     startDate: addDaysIso(reviewDate, -startDaysBefore),

@@ -69,6 +69,8 @@ export interface SmallCaseOptions {
   readonly results?: readonly Record<string, unknown>[];
   readonly chelationPeriods?: readonly Record<string, unknown>[];
   readonly coMedications?: readonly Record<string, unknown>[];
+  readonly dispensings?: readonly Record<string, unknown>[];
+  readonly clinicalState?: Record<string, unknown>;
   /** Days between transfusions of 2 units (560 mL at 0.60) over the two years before the review; null for none. */
   readonly transfusionEveryDays?: number | null;
 }
@@ -122,7 +124,7 @@ export function smallCase(options: SmallCaseOptions = {}): Record<string, unknow
   ];
   return {
     format: 'chelation-ledger.case',
-    version: 1,
+    version: 2,
     patient: {
       label: 'XX-0001',
       age: { kind: 'years-on-date', years: options.ageYears ?? 30, onDate: reviewDate },
@@ -136,5 +138,7 @@ export function smallCase(options: SmallCaseOptions = {}): Record<string, unknow
     results,
     chelationPeriods: options.chelationPeriods ?? [],
     coMedications: options.coMedications ?? [],
+    dispensings: options.dispensings ?? [],
+    ...(options.clinicalState ? { clinicalState: options.clinicalState } : {}),
   };
 }
