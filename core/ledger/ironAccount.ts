@@ -1,4 +1,4 @@
-import { daysBetween, epochDayFromIso, isoFromEpochDay, monthKey, type IsoDate } from '../dates/isoDate';
+import { addMonthsIso, daysBetween, epochDayFromIso, isoFromEpochDay, monthKey, monthStartIso, type IsoDate } from '../dates/isoDate';
 import { angelucciSlopeMgPerKgPerMgPerGDry } from '../iron/bodyIron';
 import type { LedgerInput } from './ledgerInput';
 import { weightKgAt } from './weightAt';
@@ -88,16 +88,18 @@ export function computeIronAccount(input: LedgerInput): IronAccount {
     daily.transfusedInMg[index]! += movement.ironInMg;
     daily.removedWithBloodMg[index]! += movement.ironOutMg;
   }
-  // Weights change rarely: walk them in date order instead of searching per day.
-  const sortedWeights = [...input.weights].sort((a, b) => a.date.localeCompare(b.date));
+  // Weights change rarely: walk them in day order instead of searching per day.
+  // The loops below run over integer day numbers; ISO strings are made once per month,
+  // not once per day (a 20-year record has about 7,300 days).
+  const firstEpochDay = epochDayFromIso(firstDay);
+  const weightChanges = [...input.weights]
+    .sort((a, b) => a.date.localeCompare(b.date))
+    .map((entry) => ({ dayIndex: epochDayFromIso(entry.date) - firstEpochDay, weightKg: entry.weightKg }));
   let weightIndex = 0;
   let currentWeight = weightKgAt(input.weights, firstDay);
-  const firstEpochDay = epochDayFromIso(firstDay);
-  const dates = Array.from({ length: dayCount }, (_, index) => isoFromEpochDay(firstEpochDay + index));
   for (let index = 0; index < dayCount; index += 1) {
-    const date = dates[index]!;
-    while (weightIndex < sortedWeights.length && sortedWeights[weightIndex]!.date <= date) {
-      currentWeight = sortedWeights[weightIndex]!.weightKg;
+    while (weightIndex < weightChanges.length && weightChanges[weightIndex]!.dayIndex <= index) {
+      currentWeight = weightChanges[weightIndex]!.weightKg;
       weightIndex += 1;
     }
     daily.weightKg[index] = currentWeight;
@@ -120,46 +122,52 @@ export function computeIronAccount(input: LedgerInput): IronAccount {
 
   const months: MonthOfAccount[] = [];
   let bodyIronMg: number | null = null;
-  let open: Omit<MonthOfAccount, 'bodyIronMg' | 'licEstimateMgPerGDry' | 'lastDay' | 'weightKg' | 'netMg'> & {
-    measuredLic: { date: IsoDate; licMgPerGDry: number }[];
-  } | null = null;
-  const closeMonth = (lastIndex: number): void => {
-    if (!open) return;
+  for (let monthFirstIndex = 0; monthFirstIndex < dayCount; ) {
+    const monthFirstDay = isoFromEpochDay(firstEpochDay + monthFirstIndex);
+    const nextMonthIndex = Math.min(dayCount, epochDayFromIso(addMonthsIso(monthStartIso(monthFirstDay), 1)) - firstEpochDay);
+    let transfusedInMg = 0;
+    let removedWithBloodMg = 0;
+    let chelationOutMg = 0;
+    let basalLossMg = 0;
+    const measuredLic: { date: IsoDate; licMgPerGDry: number }[] = [];
+    for (let index = monthFirstIndex; index < nextMonthIndex; index += 1) {
+      const inMg = daily.transfusedInMg[index]!;
+      const bloodOutMg = daily.removedWithBloodMg[index]!;
+      const chelationMg = daily.chelationOutMg[index]!;
+      const basalMg = daily.basalLossMg[index]!;
+      transfusedInMg += inMg;
+      removedWithBloodMg += bloodOutMg;
+      chelationOutMg += chelationMg;
+      basalLossMg += basalMg;
+      if (bodyIronMg !== null) bodyIronMg += inMg - bloodOutMg - chelationMg - basalMg;
+      const measured = anchors.get(index);
+      if (measured) {
+        const meanLic = measured.reduce((sum, value) => sum + value, 0) / measured.length;
+        // The measurement describes the end of its day: it replaces the running estimate.
+        bodyIronMg = angelucciSlopeMgPerKgPerMgPerGDry * meanLic * daily.weightKg[index]!;
+        const date = isoFromEpochDay(firstEpochDay + index);
+        for (const value of measured) measuredLic.push({ date, licMgPerGDry: value });
+      }
+    }
+    const lastIndex = nextMonthIndex - 1;
     const weightKg = daily.weightKg[lastIndex]!;
     months.push({
-      ...open,
-      lastDay: dates[lastIndex]!,
-      netMg: open.transfusedInMg - open.removedWithBloodMg - open.chelationOutMg - open.basalLossMg,
+      month: monthKey(monthFirstDay),
+      firstDay: monthFirstDay,
+      days: nextMonthIndex - monthFirstIndex,
+      transfusedInMg,
+      removedWithBloodMg,
+      chelationOutMg,
+      basalLossMg,
+      measuredLic,
+      lastDay: isoFromEpochDay(firstEpochDay + lastIndex),
+      netMg: transfusedInMg - removedWithBloodMg - chelationOutMg - basalLossMg,
       weightKg,
       bodyIronMg,
       licEstimateMgPerGDry: bodyIronMg === null ? null : bodyIronMg / (angelucciSlopeMgPerKgPerMgPerGDry * weightKg),
     });
-  };
-  for (let index = 0; index < dayCount; index += 1) {
-    const date = dates[index]!;
-    if (!open || monthKey(date) !== open.month) {
-      closeMonth(index - 1);
-      open = { month: monthKey(date), firstDay: date, days: 0, transfusedInMg: 0, removedWithBloodMg: 0, chelationOutMg: 0, basalLossMg: 0, measuredLic: [] };
-    }
-    const net = daily.transfusedInMg[index]! - daily.removedWithBloodMg[index]! - daily.chelationOutMg[index]! - daily.basalLossMg[index]!;
-    open = {
-      ...open,
-      days: open.days + 1,
-      transfusedInMg: open.transfusedInMg + daily.transfusedInMg[index]!,
-      removedWithBloodMg: open.removedWithBloodMg + daily.removedWithBloodMg[index]!,
-      chelationOutMg: open.chelationOutMg + daily.chelationOutMg[index]!,
-      basalLossMg: open.basalLossMg + daily.basalLossMg[index]!,
-    };
-    if (bodyIronMg !== null) bodyIronMg += net;
-    const measured = anchors.get(index);
-    if (measured) {
-      const meanLic = measured.reduce((sum, value) => sum + value, 0) / measured.length;
-      // The measurement describes the end of its day: it replaces the running estimate.
-      bodyIronMg = angelucciSlopeMgPerKgPerMgPerGDry * meanLic * daily.weightKg[index]!;
-      for (const value of measured) open.measuredLic.push({ date, licMgPerGDry: value });
-    }
+    monthFirstIndex = nextMonthIndex;
   }
-  closeMonth(dayCount - 1);
   const weightAtAsOf = daily.weightKg[dayCount - 1]!;
   return {
     firstDay,
