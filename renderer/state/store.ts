@@ -1,0 +1,197 @@
+import { createStore, type StoreApi } from 'zustand/vanilla';
+import { useStore } from 'zustand';
+import type { Case } from '../../core/model/caseFile';
+import { formatIssues } from '../../core/result';
+import type { StoredCase, WorkspaceHost } from '../hostPort';
+import { checkDraft, draftFromJson, draftToJson, type Draft, type DraftCheck } from '../viewModels/draftCase';
+
+/**
+ * The one module that owns the workspace's state (zustand is used here and
+ * nowhere else). Views read it through `useWorkspace` and change it only
+ * through the intents below; each intent is a small function of the state.
+ */
+export const screens = ['cases', 'record', 'iron', 'regimens', 'findings', 'sheet', 'assumptions'] as const;
+export type Screen = (typeof screens)[number];
+export type UnitSystem = 'SI' | 'conventional';
+export type SaveState = 'saved' | 'saving' | 'unsaved-errors' | 'failed';
+
+const historyLimit = 200;
+
+export interface WorkspaceState {
+  readonly host: WorkspaceHost | null;
+  readonly screen: Screen;
+  readonly cases: readonly StoredCase[];
+  readonly openId: string | null;
+  readonly draft: Draft | null;
+  readonly check: DraftCheck | null;
+  /** The last draft core accepted: the screens keep showing it while the record has errors. */
+  readonly accepted: Case | null;
+  readonly past: readonly Draft[];
+  readonly future: readonly Draft[];
+  readonly saveState: SaveState;
+  readonly message: string | null;
+  readonly unitSystem: UnitSystem;
+  readonly lastExport: string | null;
+  readonly aboutOpen: boolean;
+}
+
+export interface WorkspaceIntents {
+  connect(host: WorkspaceHost): Promise<void>;
+  showScreen(screen: Screen): void;
+  openCase(id: string): void;
+  closeCase(): void;
+  createCase(json: unknown): Promise<void>;
+  importCase(text: string): Promise<void>;
+  /** Change the draft; recorded for undo and saved when core accepts it. */
+  edit(change: (draft: Draft) => Draft): void;
+  undo(): void;
+  redo(): void;
+  setUnitSystem(system: UnitSystem): void;
+  exportSheet(asOf: string): Promise<void>;
+  exportCalendar(asOf: string): Promise<void>;
+  setAboutOpen(open: boolean): void;
+  dismissMessage(): void;
+}
+
+export type Workspace = WorkspaceState & WorkspaceIntents;
+
+const initial: WorkspaceState = {
+  host: null,
+  screen: 'cases',
+  cases: [],
+  openId: null,
+  draft: null,
+  check: null,
+  accepted: null,
+  past: [],
+  future: [],
+  saveState: 'saved',
+  message: null,
+  unitSystem: 'conventional',
+  lastExport: null,
+  aboutOpen: false,
+};
+
+/** A new workspace store (one per page; tests make their own). */
+export function createWorkspaceStore(): StoreApi<Workspace> {
+  return createStore<Workspace>()((set, get) => {
+    const refresh = async () => {
+      const host = get().host;
+      if (!host) return;
+      const listed = await host.listCases();
+      if (listed.ok) set({ cases: listed.value });
+      else set({ message: `The case list could not be read: ${formatIssues(listed.issues)}` });
+    };
+    /** Check the draft with core and save it when it is accepted. */
+    const settle = async (draft: Draft) => {
+      const check = checkDraft(draft);
+      set({ check, accepted: check.caseFile ?? get().accepted });
+      const { host, openId } = get();
+      if (!host || !openId) return;
+      if (!check.caseFile) {
+        set({ saveState: 'unsaved-errors' });
+        return;
+      }
+      set({ saveState: 'saving' });
+      const json = draftToJson(draft);
+      const saved = await host.saveCase(openId, json);
+      if (get().draft !== draft) return; // a later edit saves itself
+      if (saved.ok) {
+        set({ saveState: 'saved', cases: get().cases.map((entry) => (entry.id === openId ? { id: openId, json } : entry)) });
+      } else {
+        set({ saveState: 'failed', message: `Not saved: ${formatIssues(saved.issues)} What you typed is still here.` });
+      }
+    };
+    const open = (id: string) => {
+      const stored = get().cases.find((entry) => entry.id === id);
+      if (!stored) return;
+      const draft = draftFromJson(stored.json);
+      const check = checkDraft(draft);
+      set({ openId: id, draft, check, accepted: check.caseFile, past: [], future: [], saveState: 'saved', screen: 'record', lastExport: null });
+    };
+    const exportWith = async (kind: 'sheet' | 'calendar', asOf: string) => {
+      const { host, openId } = get();
+      if (!host || !openId) return;
+      const written = kind === 'sheet' ? await host.exportSheet(openId, asOf) : await host.exportCalendar(openId, asOf);
+      if (written.ok) set({ lastExport: `${kind === 'sheet' ? 'Review sheet' : 'Monitoring calendar'} written to ${written.value.location}` });
+      else set({ message: `The ${kind} was not written: ${formatIssues(written.issues)}` });
+    };
+    return {
+      ...initial,
+      async connect(host) {
+        set({ host });
+        await refresh();
+      },
+      showScreen(screen) {
+        set({ screen });
+      },
+      openCase: open,
+      closeCase() {
+        set({ openId: null, draft: null, check: null, accepted: null, past: [], future: [], screen: 'cases' });
+      },
+      async createCase(json) {
+        const host = get().host;
+        if (!host) return;
+        const created = await host.createCase(json);
+        if (!created.ok) {
+          set({ message: `The case was not created: ${formatIssues(created.issues)}` });
+          return;
+        }
+        await refresh();
+        open(created.value.id);
+      },
+      async importCase(text) {
+        const host = get().host;
+        if (!host) return;
+        const imported = await host.importCase(text);
+        if (!imported.ok) {
+          set({ message: `The file was not imported: ${formatIssues(imported.issues)}` });
+          return;
+        }
+        await refresh();
+        set({ message: `Imported as ${imported.value.id}.` });
+      },
+      edit(change) {
+        const draft = get().draft;
+        if (!draft) return;
+        const next = change(draft);
+        if (next === draft) return;
+        set({ draft: next, past: [...get().past, draft].slice(-historyLimit), future: [] });
+        void settle(next);
+      },
+      undo() {
+        const { past, draft, future } = get();
+        const previous = past[past.length - 1];
+        if (!previous || !draft) return;
+        set({ draft: previous, past: past.slice(0, -1), future: [draft, ...future] });
+        void settle(previous);
+      },
+      redo() {
+        const { past, draft, future } = get();
+        const [next, ...rest] = future;
+        if (!next || !draft) return;
+        set({ draft: next, past: [...past, draft], future: rest });
+        void settle(next);
+      },
+      setUnitSystem(unitSystem) {
+        set({ unitSystem });
+      },
+      exportSheet: (asOf) => exportWith('sheet', asOf),
+      exportCalendar: (asOf) => exportWith('calendar', asOf),
+      setAboutOpen(aboutOpen) {
+        set({ aboutOpen });
+      },
+      dismissMessage() {
+        set({ message: null });
+      },
+    };
+  });
+}
+
+/** The page's store. */
+export const workspaceStore = createWorkspaceStore();
+
+/** Read a slice of the workspace in a component. */
+export function useWorkspace<Slice>(select: (state: Workspace) => Slice): Slice {
+  return useStore(workspaceStore, select);
+}

@@ -1,0 +1,349 @@
+import {
+  altBounds,
+  bloodLeadBounds,
+  cardiacT2StarBounds,
+  chelatorDrugs,
+  coMedicationTimings,
+  creatinineBounds,
+  deferasiroxFormulations,
+  deferiproneFormulations,
+  deferoxamineFormulations,
+  deferoxamineRoutes,
+  exchangeMethods,
+  ferritinBounds,
+  fieldStrengthsT,
+  haemoglobinBounds,
+  liverIronBounds,
+  liverIronMethods,
+  liverR2Bounds,
+  liverR2StarBounds,
+  liverT2StarBounds,
+  neutrophilBounds,
+  urinaryCopperBounds,
+} from '../../core/model';
+import { displayUnit } from '../../core/units/displayUnit';
+
+/**
+ * The four record tables as rows of cells. A cell keeps exactly what the user
+ * typed (nothing is rewritten); `rowToEntry` turns a row into the case-file
+ * entry that core/model then checks, so every message comes from core's
+ * schema in the trade's words.
+ */
+export const recordTableIds = ['transfusions', 'results', 'chelationPeriods', 'coMedications'] as const;
+export type RecordTableId = (typeof recordTableIds)[number];
+
+export type Cells = Readonly<Record<string, string>>;
+export interface Row {
+  /** The entry id in the case file (stable across edits). */
+  readonly id: string;
+  readonly cells: Cells;
+}
+
+export interface ColumnSpec {
+  readonly key: string;
+  readonly label: string;
+  /** Choices for a select; the first is the default of a new row. */
+  readonly choices?: (cells: Cells) => readonly string[];
+  /** Unit shown in the header (display form). */
+  readonly unit?: string;
+  readonly width: 'date' | 'narrow' | 'medium' | 'wide';
+  /** Path of the case-file field the cell fills, relative to the entry, for matching core's issues. */
+  readonly fieldPaths: readonly (readonly string[])[];
+}
+
+export const resultKinds = [
+  'liver-iron',
+  'ferritin',
+  'cardiac-t2star',
+  'creatinine',
+  'alt',
+  'neutrophils',
+  'haemoglobin',
+  'blood-lead',
+  'urinary-copper',
+] as const;
+type ResultKindName = (typeof resultKinds)[number];
+
+const liverUnitsByMethod: Readonly<Record<string, readonly string[]>> = {
+  biopsy: Object.keys(liverIronBounds),
+  mri: Object.keys(liverIronBounds),
+  'mri-r2star': Object.keys(liverR2StarBounds),
+  'mri-t2star': Object.keys(liverT2StarBounds),
+  'mri-r2': Object.keys(liverR2Bounds),
+};
+const unitsByKind: Readonly<Record<ResultKindName, readonly string[]>> = {
+  'liver-iron': Object.keys(liverIronBounds),
+  ferritin: Object.keys(ferritinBounds),
+  'cardiac-t2star': Object.keys(cardiacT2StarBounds),
+  creatinine: Object.keys(creatinineBounds),
+  alt: Object.keys(altBounds),
+  neutrophils: Object.keys(neutrophilBounds),
+  haemoglobin: Object.keys(haemoglobinBounds),
+  'blood-lead': Object.keys(bloodLeadBounds),
+  'urinary-copper': Object.keys(urinaryCopperBounds),
+};
+
+/** Units a result of this kind (and liver-iron method) may be entered in, UCUM codes. */
+export function unitsForResult(cells: Cells): readonly string[] {
+  const kind = cells.kind as ResultKindName;
+  if (kind === 'liver-iron') return liverUnitsByMethod[cells.method ?? 'mri'] ?? [];
+  return unitsByKind[kind] ?? [];
+}
+
+const formulationsByDrug: Readonly<Record<string, readonly string[]>> = {
+  deferoxamine: deferoxamineFormulations,
+  deferiprone: deferiproneFormulations,
+  deferasirox: deferasiroxFormulations,
+};
+const routesByDrug: Readonly<Record<string, readonly string[]>> = {
+  deferoxamine: deferoxamineRoutes,
+  deferiprone: ['oral'],
+  deferasirox: ['oral'],
+};
+
+const fixed = (choices: readonly string[]) => () => choices;
+
+export const tableColumns: Readonly<Record<RecordTableId, readonly ColumnSpec[]>> = {
+  transfusions: [
+    { key: 'date', label: 'Date', width: 'date', fieldPaths: [['date']] },
+    { key: 'kind', label: 'Kind', width: 'medium', choices: fixed(['simple', 'exchange', 'venesection']), fieldPaths: [['kind']] },
+    { key: 'volumeMl', label: 'Volume in', unit: 'mL', width: 'narrow', fieldPaths: [['volume'], ['volumeIn']] },
+    { key: 'unitHaematocrit', label: 'Unit haematocrit', unit: 'fraction', width: 'narrow', fieldPaths: [['unitHaematocrit']] },
+    { key: 'unitCount', label: 'Units', width: 'narrow', fieldPaths: [['unitCount']] },
+    { key: 'volumeRemovedMl', label: 'Volume removed', unit: 'mL', width: 'narrow', fieldPaths: [['volumeRemoved']] },
+    { key: 'patientHaematocrit', label: 'Patient haematocrit', unit: 'fraction', width: 'narrow', fieldPaths: [['patientHaematocrit']] },
+    { key: 'method', label: 'Exchange method', width: 'medium', choices: (cells) => (cells.kind === 'exchange' ? exchangeMethods : ['']), fieldPaths: [['method']] },
+    { key: 'note', label: 'Note', width: 'wide', fieldPaths: [['note']] },
+  ],
+  results: [
+    { key: 'date', label: 'Date', width: 'date', fieldPaths: [['date']] },
+    { key: 'kind', label: 'Result', width: 'medium', choices: fixed(resultKinds), fieldPaths: [['kind']] },
+    { key: 'method', label: 'Liver iron method', width: 'medium', choices: (cells) => (cells.kind === 'liver-iron' ? liverIronMethods : ['']), fieldPaths: [['method']] },
+    { key: 'value', label: 'Value', width: 'narrow', fieldPaths: [['measured', 'value'], ['measured']] },
+    { key: 'unit', label: 'Unit', width: 'medium', choices: unitsForResult, fieldPaths: [['measured', 'unit']] },
+    {
+      key: 'fieldStrengthT',
+      label: 'Field strength',
+      unit: 'T',
+      width: 'narrow',
+      choices: (cells) => (cells.kind === 'cardiac-t2star' || (cells.kind === 'liver-iron' && cells.method !== 'biopsy') ? fieldStrengthsT.map(String) : ['']),
+      fieldPaths: [['fieldStrengthT']],
+    },
+    { key: 'calibrationId', label: 'Calibration', width: 'medium', fieldPaths: [['calibrationId']] },
+    { key: 'note', label: 'Note', width: 'wide', fieldPaths: [['note']] },
+  ],
+  chelationPeriods: [
+    { key: 'drug', label: 'Drug', width: 'medium', choices: fixed(chelatorDrugs), fieldPaths: [['drug']] },
+    { key: 'formulation', label: 'Formulation', width: 'medium', choices: (cells) => formulationsByDrug[cells.drug ?? ''] ?? [''], fieldPaths: [['formulation']] },
+    { key: 'route', label: 'Route', width: 'medium', choices: (cells) => routesByDrug[cells.drug ?? ''] ?? [''], fieldPaths: [['route']] },
+    { key: 'dose', label: 'Dose per administration', width: 'narrow', fieldPaths: [['dose', 'value'], ['dose']] },
+    { key: 'doseUnit', label: 'Dose unit', width: 'narrow', choices: fixed(['mg/kg', 'mg']), fieldPaths: [['dose', 'unit']] },
+    { key: 'administrationsPerDay', label: 'Per day', width: 'narrow', fieldPaths: [['administrationsPerDay']] },
+    { key: 'daysPerWeek', label: 'Days a week', width: 'narrow', fieldPaths: [['daysPerWeek']] },
+    { key: 'infusionHours', label: 'Infusion hours', unit: 'h', width: 'narrow', fieldPaths: [['infusionHours']] },
+    { key: 'startDate', label: 'Start', width: 'date', fieldPaths: [['startDate']] },
+    { key: 'endDate', label: 'End (blank while ongoing)', width: 'date', fieldPaths: [['endDate']] },
+    { key: 'adherence', label: 'Estimated adherence', unit: 'fraction', width: 'narrow', fieldPaths: [['adherence']] },
+    { key: 'note', label: 'Note', width: 'wide', fieldPaths: [['note'], ['adherenceNote']] },
+  ],
+  coMedications: [
+    { key: 'substance', label: 'Substance', width: 'medium', choices: fixed(['ascorbic-acid']), fieldPaths: [['substance']] },
+    { key: 'dose', label: 'Dose', width: 'narrow', fieldPaths: [['dose', 'value'], ['dose']] },
+    { key: 'doseUnit', label: 'Dose unit', width: 'narrow', choices: fixed(['mg', 'mg/kg']), fieldPaths: [['dose', 'unit']] },
+    { key: 'timing', label: 'Timing', width: 'wide', choices: fixed(coMedicationTimings), fieldPaths: [['timing']] },
+    { key: 'startDate', label: 'Start', width: 'date', fieldPaths: [['startDate']] },
+    { key: 'endDate', label: 'End (blank while ongoing)', width: 'date', fieldPaths: [['endDate']] },
+    { key: 'note', label: 'Note', width: 'wide', fieldPaths: [['note']] },
+  ],
+};
+
+export const tableTitles: Readonly<Record<RecordTableId, string>> = {
+  transfusions: 'Transfusions and blood removed',
+  results: 'Results',
+  chelationPeriods: 'Chelation periods',
+  coMedications: 'Co-medications',
+};
+
+/** A header's unit as shown ('mL', 'µg/L'). */
+export function columnUnitText(column: ColumnSpec): string {
+  return column.unit ? displayUnit(column.unit) : '';
+}
+
+/** What a choice looks like in a select ('mg/g{dry}' → 'mg/g dry weight'). */
+export function choiceText(column: ColumnSpec, choice: string): string {
+  if (column.key === 'unit') return displayUnit(choice);
+  return choice.replace(/-/g, ' ');
+}
+
+// A number cell: blank is missing, a number is a number, anything else is kept
+// as typed so that core's schema names the field and the value.
+const numberOf = (text: string | undefined): unknown => {
+  const trimmed = (text ?? '').trim();
+  if (trimmed === '') return undefined;
+  const value = Number(trimmed);
+  return Number.isFinite(value) ? value : trimmed;
+};
+const textOf = (text: string | undefined): string | undefined => ((text ?? '').trim() === '' ? undefined : (text ?? '').trim());
+const dateOrNull = (text: string | undefined): unknown => textOf(text) ?? null;
+const withoutUndefined = (entry: Record<string, unknown>): Record<string, unknown> =>
+  Object.fromEntries(Object.entries(entry).filter(([, value]) => value !== undefined));
+
+/** The case-file entry a row stands for (unchecked: core/model checks it). */
+export function rowToEntry(table: RecordTableId, row: Row): Record<string, unknown> {
+  const c = row.cells;
+  switch (table) {
+    case 'transfusions': {
+      const haematocrit = textOf(c.unitHaematocrit) === undefined ? null : numberOf(c.unitHaematocrit);
+      if (c.kind === 'exchange') {
+        return withoutUndefined({
+          id: row.id, date: textOf(c.date), kind: 'exchange', method: textOf(c.method) ?? 'automated',
+          volumeIn: { value: numberOf(c.volumeMl), unit: 'mL' }, unitHaematocrit: haematocrit, unitCount: numberOf(c.unitCount),
+          volumeRemoved: { value: numberOf(c.volumeRemovedMl), unit: 'mL' }, patientHaematocrit: numberOf(c.patientHaematocrit), note: textOf(c.note),
+        });
+      }
+      if (c.kind === 'venesection') {
+        return withoutUndefined({
+          id: row.id, date: textOf(c.date), kind: 'venesection',
+          volumeRemoved: { value: numberOf(c.volumeRemovedMl), unit: 'mL' }, patientHaematocrit: numberOf(c.patientHaematocrit), note: textOf(c.note),
+        });
+      }
+      return withoutUndefined({
+        id: row.id, date: textOf(c.date), kind: 'simple', volume: { value: numberOf(c.volumeMl), unit: 'mL' },
+        unitHaematocrit: haematocrit, unitCount: numberOf(c.unitCount), note: textOf(c.note),
+      });
+    }
+    case 'results': {
+      const measured = { value: numberOf(c.value), unit: textOf(c.unit) };
+      const base = { id: row.id, date: textOf(c.date), kind: textOf(c.kind), measured, note: textOf(c.note) };
+      if (c.kind === 'liver-iron') {
+        const method = textOf(c.method) ?? 'mri';
+        if (method === 'biopsy') return withoutUndefined({ ...base, method });
+        return withoutUndefined({ ...base, method, fieldStrengthT: numberOf(c.fieldStrengthT), calibrationId: textOf(c.calibrationId) });
+      }
+      if (c.kind === 'cardiac-t2star') return withoutUndefined({ ...base, fieldStrengthT: numberOf(c.fieldStrengthT) });
+      return withoutUndefined(base);
+    }
+    case 'chelationPeriods':
+      return withoutUndefined({
+        id: row.id, drug: textOf(c.drug), formulation: textOf(c.formulation), route: textOf(c.route),
+        dose: { value: numberOf(c.dose), unit: textOf(c.doseUnit) ?? 'mg/kg' },
+        administrationsPerDay: numberOf(c.administrationsPerDay), daysPerWeek: numberOf(c.daysPerWeek),
+        infusionHours: c.drug === 'deferoxamine' ? numberOf(c.infusionHours) : undefined,
+        startDate: textOf(c.startDate), endDate: dateOrNull(c.endDate), adherence: numberOf(c.adherence) ?? 1,
+        adherenceNote: textOf(c.adherenceNote), note: textOf(c.note),
+      });
+    case 'coMedications':
+      return withoutUndefined({
+        id: row.id, substance: textOf(c.substance) ?? 'ascorbic-acid', dose: { value: numberOf(c.dose), unit: textOf(c.doseUnit) ?? 'mg' },
+        timing: textOf(c.timing), startDate: textOf(c.startDate), endDate: dateOrNull(c.endDate), note: textOf(c.note),
+      });
+  }
+}
+
+const text = (value: unknown): string => (value === undefined || value === null ? '' : String(value));
+const valueOf = (quantity: unknown): string => text((quantity as { value?: unknown } | undefined)?.value);
+const unitOf = (quantity: unknown): string => text((quantity as { unit?: unknown } | undefined)?.unit);
+
+/** The row showing a case-file entry: every field as text, exactly as stored. */
+export function entryToRow(table: RecordTableId, entry: Readonly<Record<string, unknown>>): Row {
+  const id = text(entry.id);
+  switch (table) {
+    case 'transfusions':
+      return {
+        id,
+        cells: {
+          date: text(entry.date), kind: text(entry.kind), volumeMl: valueOf(entry.volume ?? entry.volumeIn),
+          unitHaematocrit: text(entry.unitHaematocrit), unitCount: text(entry.unitCount), volumeRemovedMl: valueOf(entry.volumeRemoved),
+          patientHaematocrit: text(entry.patientHaematocrit), method: text(entry.method), note: text(entry.note),
+        },
+      };
+    case 'results':
+      return {
+        id,
+        cells: {
+          date: text(entry.date), kind: text(entry.kind), method: text(entry.method), value: valueOf(entry.measured), unit: unitOf(entry.measured),
+          fieldStrengthT: text(entry.fieldStrengthT), calibrationId: text(entry.calibrationId), note: text(entry.note),
+        },
+      };
+    case 'chelationPeriods':
+      return {
+        id,
+        cells: {
+          drug: text(entry.drug), formulation: text(entry.formulation), route: text(entry.route), dose: valueOf(entry.dose), doseUnit: unitOf(entry.dose),
+          administrationsPerDay: text(entry.administrationsPerDay), daysPerWeek: text(entry.daysPerWeek), infusionHours: text(entry.infusionHours),
+          startDate: text(entry.startDate), endDate: text(entry.endDate), adherence: text(entry.adherence), adherenceNote: text(entry.adherenceNote), note: text(entry.note),
+        },
+      };
+    case 'coMedications':
+      return {
+        id,
+        cells: {
+          substance: text(entry.substance), dose: valueOf(entry.dose), doseUnit: unitOf(entry.dose), timing: text(entry.timing),
+          startDate: text(entry.startDate), endDate: text(entry.endDate), note: text(entry.note),
+        },
+      };
+  }
+}
+
+/**
+ * A new row's cells: the first choice of each select (after the cells given),
+ * the unit of the chosen unit system for a result, blank elsewhere.
+ */
+export function newRowCells(table: RecordTableId, given: Cells = {}, preferredUnit?: (kind: string) => string | undefined): Cells {
+  const cells: Record<string, string> = { ...given };
+  for (const column of tableColumns[table]) {
+    if (cells[column.key] !== undefined) continue;
+    if (column.key === 'unit' && preferredUnit) {
+      const preferred = preferredUnit(cells.kind ?? '');
+      const allowed = unitsForResult(cells);
+      if (preferred && allowed.includes(preferred)) {
+        cells.unit = preferred;
+        continue;
+      }
+    }
+    cells[column.key] = column.choices ? (column.choices(cells)[0] ?? '') : '';
+  }
+  if (table === 'transfusions' && given.unitCount === undefined) cells.unitCount = '';
+  if (table === 'chelationPeriods' && given.adherence === undefined) cells.adherence = '1';
+  return cells;
+}
+
+/**
+ * A changed cell: the new text, and any select whose choices no longer hold
+ * the old value reset to its first choice (a deferasirox period cannot keep a
+ * subcutaneous route). Typed text is never changed.
+ */
+export function withCell(table: RecordTableId, cells: Cells, key: string, value: string): Cells {
+  const next: Record<string, string> = { ...cells, [key]: value };
+  for (const column of tableColumns[table]) {
+    if (!column.choices || column.key === key) continue;
+    const choices = column.choices(next);
+    if (!choices.includes(next[column.key] ?? '')) next[column.key] = choices[0] ?? '';
+  }
+  return next;
+}
+
+/**
+ * Rows pasted from a spreadsheet (tab-separated, one line per row), laid
+ * over the columns from `fromColumn` on. Empty trailing lines are dropped;
+ * extra cells beyond the last column are ignored.
+ */
+export function pastedCells(table: RecordTableId, text: string, fromColumn: string): Cells[] {
+  const columns = tableColumns[table];
+  const start = Math.max(0, columns.findIndex((column) => column.key === fromColumn));
+  const lines = text.replace(/\r\n?/g, '\n').split('\n');
+  while (lines.length > 0 && lines[lines.length - 1]!.trim() === '') lines.pop();
+  return lines.map((line) => {
+    const given: Record<string, string> = {};
+    line.split('\t').forEach((value, offset) => {
+      const column = columns[start + offset];
+      if (column) given[column.key] = value.trim();
+    });
+    return given;
+  });
+}
+
+/** True when a paste holds more than one cell (a tab or a line break). */
+export function isMultiCellPaste(text: string): boolean {
+  return /[\t\n]/.test(text.replace(/\r?\n$/, ''));
+}

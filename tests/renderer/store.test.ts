@@ -1,0 +1,64 @@
+import { readFileSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
+import { describe, expect, it } from 'vitest';
+import { createMemoryHost } from '../../renderer/fakeHost/memoryHost';
+import { createWorkspaceStore } from '../../renderer/state/store';
+import { setCell } from '../../renderer/viewModels/recordEdits';
+
+const demo = JSON.parse(readFileSync(fileURLToPath(new URL('../../assets/demo/th-0417.json', import.meta.url)), 'utf8')) as Record<string, unknown>;
+
+/** A storage that survives a "reload" (a second host on the same map), like localStorage. */
+function mapStorage() {
+  const values = new Map<string, string>();
+  return { getItem: (key: string) => values.get(key) ?? null, setItem: (key: string, value: string) => void values.set(key, value) };
+}
+
+const settle = () => new Promise((resolve) => setTimeout(resolve, 0));
+
+describe('the workspace store', () => {
+  it('saves an accepted edit through the host, keeps a refused one unsaved, and undo and redo walk the edits', async () => {
+    const storage = mapStorage();
+    const host = createMemoryHost([{ id: 'th-0417', json: demo }], storage);
+    const store = createWorkspaceStore();
+    await store.getState().connect(host);
+    store.getState().openCase('th-0417');
+    const rowId = store.getState().draft!.tables.transfusions[0]!.id;
+
+    store.getState().edit((draft) => setCell(draft, 'transfusions', rowId, 'volumeMl', '590'));
+    await settle();
+    expect(store.getState().saveState).toBe('saved');
+    const reloaded = createMemoryHost([], storage);
+    const listed = await reloaded.listCases();
+    const savedCase = listed.ok ? (listed.value[0]!.json as { transfusions: { volume: { value: number } }[] }) : null;
+    expect(savedCase?.transfusions[0]!.volume.value).toBe(590);
+
+    store.getState().edit((draft) => setCell(draft, 'transfusions', rowId, 'unitHaematocrit', '60'));
+    await settle();
+    expect(store.getState().saveState).toBe('unsaved-errors');
+    expect(store.getState().draft!.tables.transfusions[0]!.cells.unitHaematocrit).toBe('60');
+    const stillStored = await createMemoryHost([], storage).listCases();
+    expect(stillStored.ok && (stillStored.value[0]!.json as { transfusions: { unitHaematocrit: number }[] }).transfusions[0]!.unitHaematocrit).toBe(0.62);
+    // The screens keep the last accepted case while the record has errors.
+    expect(store.getState().accepted?.transfusions[0]).toMatchObject({ unitHaematocrit: 0.62 });
+
+    store.getState().undo();
+    await settle();
+    expect(store.getState().draft!.tables.transfusions[0]!.cells.unitHaematocrit).toBe('0.62');
+    expect(store.getState().saveState).toBe('saved');
+    store.getState().undo();
+    await settle();
+    expect(store.getState().draft!.tables.transfusions[0]!.cells.volumeMl).toBe(String((demo.transfusions as { volume: { value: number } }[])[0]!.volume.value));
+    store.getState().redo();
+    await settle();
+    expect(store.getState().draft!.tables.transfusions[0]!.cells.volumeMl).toBe('590');
+  });
+
+  it('refuses an import that is not JSON with a message, and lists an imported case', async () => {
+    const store = createWorkspaceStore();
+    await store.getState().connect(createMemoryHost([]));
+    await store.getState().importCase('{ not json');
+    expect(store.getState().message).toMatch(/not JSON/);
+    await store.getState().importCase(JSON.stringify(demo));
+    expect(store.getState().cases.map((entry) => entry.id)).toEqual(['th-0417']);
+  });
+});
