@@ -1,34 +1,110 @@
-import type { Result } from '../core/result';
+import type { HostApi } from '../core/contract';
+import { caseIdSchema } from '../core/contract';
+import { fail, issue, ok, type Result } from '../core/result';
 
 /**
- * What the workspace asks of its host: the case store and the exports. The
- * Electron preload and the preview server implement it through the host
- * contract (renderer/host, core/contract); renderer/fakeHost/memoryHost.ts
- * implements it in the page for tests and for a build served without a host.
- * Case files travel as JSON values; the renderer parses them with core/model.
+ * What the workspace store asks of its host, built on the host contract
+ * (core/contract's HostApi, which renderer/host's client and the in-page
+ * host both implement): cases with their documents, saves that carry the
+ * revision they started from, exports, and the unit-system setting.
  */
 export interface StoredCase {
-  /** The store's id of the case (a file name in the case folder). */
+  /** The case's file name in the workspace ('th-0417.json'). */
   readonly id: string;
-  /** The case file as stored (parsed by the renderer with core/model parseCase). */
+  /** The case file as stored (the renderer parses it with core/model). */
   readonly json: unknown;
 }
 
-export interface ExportReceipt {
-  /** Where the host wrote the file, as the user would find it. */
-  readonly location: string;
-  readonly bytes: number;
-}
-
 export interface WorkspaceHost {
-  /** A short name of the transport, shown in the about box ('in-page store', 'desktop', 'preview'). */
-  readonly kind: string;
   listCases(): Promise<Result<readonly StoredCase[]>>;
   saveCase(id: string, json: unknown): Promise<Result<{ readonly id: string }>>;
-  /** A new case id from a label (the host decides the file name). */
   createCase(json: unknown): Promise<Result<{ readonly id: string }>>;
-  /** Import a case file's text; the host stores it and returns its id. */
+  /** A whole case file, as text, added to the workspace under a name from its label. */
   importCase(text: string): Promise<Result<{ readonly id: string }>>;
-  exportSheet(id: string, asOf: string): Promise<Result<ExportReceipt>>;
-  exportCalendar(id: string, asOf: string): Promise<Result<ExportReceipt>>;
+  exportSheet(id: string, asOf: string): Promise<Result<{ readonly location: string }>>;
+  exportCalendar(id: string, asOf: string): Promise<Result<{ readonly location: string }>>;
+  readUnitSystem(): Promise<'si' | 'conventional'>;
+  writeUnitSystem(system: 'si' | 'conventional'): Promise<void>;
+  appVersion(): Promise<string>;
+}
+
+/** A case file name from a label: 'TH-0417' → 'th-0417.json', then 'th-0417 (2).json' when taken. */
+export function caseIdFor(label: unknown, taken: ReadonlySet<string>): string {
+  const base = (typeof label === 'string' ? label : '').trim().toLowerCase().replace(/[^a-z0-9._-]+/g, '-').replace(/^[^a-z0-9]+/, '').slice(0, 100) || 'case';
+  let id = `${base}.json`;
+  for (let count = 2; taken.has(id) || !caseIdSchema.safeParse(id).success; count += 1) id = `${base} (${count}).json`;
+  return id;
+}
+
+const labelOf = (json: unknown) => (json as { patient?: { label?: unknown } } | null)?.patient?.label;
+
+/** The workspace's view of a host that speaks the contract. */
+export function workspaceHostOver(api: HostApi): WorkspaceHost {
+  const revisions = new Map<string, string>();
+  const create = async (json: unknown): Promise<Result<{ readonly id: string }>> => {
+    if (typeof json !== 'object' || json === null || Array.isArray(json)) return fail(issue('invalid_file', ['file'], 'A case file is a JSON object; this one is not.'));
+    const listed = await api.listCases({});
+    const taken = new Set(listed.ok ? listed.value.map((it) => it.caseId) : []);
+    const caseId = caseIdFor(labelOf(json), taken);
+    const created = await api.createCase({ caseId, document: json as Record<string, unknown> });
+    if (!created.ok) return created;
+    revisions.set(caseId, created.value.revision);
+    return ok({ id: caseId });
+  };
+  return {
+    async listCases() {
+      const listed = await api.listCases({});
+      if (!listed.ok) return listed;
+      const cases: StoredCase[] = [];
+      for (const summary of listed.value.filter((it) => !it.archived)) {
+        const opened = await api.openCase({ caseId: summary.caseId });
+        if (opened.ok) {
+          revisions.set(summary.caseId, opened.value.revision);
+          cases.push({ id: summary.caseId, json: opened.value.document });
+        } else {
+          cases.push({ id: summary.caseId, json: null });
+        }
+      }
+      return ok(cases);
+    },
+    async saveCase(id, json) {
+      const baseRevision = revisions.get(id);
+      if (baseRevision === undefined) return fail(issue('host_failed', ['caseId'], `"${id}" was not opened from this workspace; reopen it.`));
+      const saved = await api.saveCase({ caseId: id, document: json as Record<string, unknown>, baseRevision });
+      if (!saved.ok) return saved;
+      revisions.set(id, saved.value.revision);
+      return ok({ id });
+    },
+    createCase: create,
+    async importCase(text) {
+      let json: unknown;
+      try {
+        json = JSON.parse(text);
+      } catch {
+        return fail(issue('invalid_file', ['file'], 'The file is not JSON: a case file is the JSON this program saves.'));
+      }
+      return create(json);
+    },
+    async exportSheet(id, asOf) {
+      const listedSettings = await api.readSettings({});
+      const written = await api.exportSheetPdf({ caseId: id, asOfDate: asOf, paper: listedSettings.ok ? listedSettings.value.paper : 'a4' });
+      return written.ok ? ok({ location: written.value.path }) : written;
+    },
+    async exportCalendar(id, asOf) {
+      const written = await api.exportCalendar({ caseId: id, asOfDate: asOf });
+      return written.ok ? ok({ location: written.value.path }) : written;
+    },
+    async readUnitSystem() {
+      const settings = await api.readSettings({});
+      return settings.ok ? settings.value.units : 'si';
+    },
+    async writeUnitSystem(units) {
+      const settings = await api.readSettings({});
+      if (settings.ok) await api.writeSettings({ ...settings.value, units });
+    },
+    async appVersion() {
+      const info = await api.appInfo({});
+      return info.ok ? info.value.version : 'unknown';
+    },
+  };
 }

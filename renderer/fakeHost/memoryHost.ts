@@ -1,78 +1,138 @@
+import { defaultSettings, settingsSchema, type HostApi, type HostValue, type Settings } from '../../core/contract';
+import { parseCase } from '../../core/model/parseCase';
 import { fail, issue, ok, type Result } from '../../core/result';
-import type { ExportReceipt, StoredCase, WorkspaceHost } from '../hostPort';
 
-/** Where the in-page store keeps the workspace between reloads. */
-export const memoryHostStorageKey = 'chelation-ledger.workspace';
+/** Where the in-page host keeps the workspace between reloads. */
+export const memoryHostStorageKey = 'chelation-ledger.in-page-workspace';
 
 interface KeyValueStorage {
   getItem(key: string): string | null;
   setItem(key: string, value: string): void;
 }
 
+interface StoredEntry {
+  readonly document: Record<string, unknown>;
+  readonly revision: number;
+  readonly archived: boolean;
+}
+
+interface Persisted {
+  readonly cases: Readonly<Record<string, StoredEntry>>;
+  readonly settings: Settings;
+  readonly exports: readonly string[];
+}
+
+/** What the in-page host records beyond the contract, for tests. */
+export interface MemoryHostRecord {
+  readonly exports: () => readonly string[];
+}
+
+const refusedHere = (what: string) =>
+  fail(issue('host_failed', [], `${what} needs the desktop app or the preview server; this page keeps its cases in the browser only.`));
+
 /**
- * A workspace host that lives in the page: the cases in memory, mirrored to
- * `storage` (localStorage in a browser) so a reload reopens them. It stands in
- * for the desktop and preview hosts in tests and when the built renderer is
- * served on its own; exports are recorded, not written to disk.
+ * The host contract (core/contract) answered inside the page: cases in
+ * memory, mirrored to `storage` (localStorage in a browser) so a reload
+ * reopens them; exports are recorded by name, not written. It stands in for
+ * the desktop and preview hosts in tests and when the built renderer is
+ * served on its own, and keeps their rules that the workspace relies on: a
+ * taken name is refused, a save must name the revision it started from.
  */
-export function createMemoryHost(seed: readonly StoredCase[], storage?: KeyValueStorage): WorkspaceHost & { readonly exports: readonly string[] } {
-  const cases = new Map<string, unknown>();
-  const exports: string[] = [];
+export function createMemoryHost(seed: Readonly<Record<string, unknown>>, storage?: KeyValueStorage, version = '0.0.0'): HostApi & MemoryHostRecord {
   const stored = storage?.getItem(memoryHostStorageKey);
-  if (stored) {
-    for (const entry of JSON.parse(stored) as StoredCase[]) cases.set(entry.id, entry.json);
-  } else {
-    for (const entry of seed) cases.set(entry.id, entry.json);
-  }
-  const persist = () => storage?.setItem(memoryHostStorageKey, JSON.stringify([...cases].map(([id, json]) => ({ id, json }))));
+  let state: Persisted = stored
+    ? (JSON.parse(stored) as Persisted)
+    : {
+        cases: Object.fromEntries(Object.entries(seed).map(([caseId, document]) => [caseId, { document: document as Record<string, unknown>, revision: 1, archived: false }])),
+        settings: defaultSettings,
+        exports: [],
+      };
+  const persist = () => storage?.setItem(memoryHostStorageKey, JSON.stringify(state));
   persist();
-  const freshId = (json: unknown): string => {
-    const label = (json as { patient?: { label?: unknown } } | null)?.patient?.label;
-    const base = typeof label === 'string' && label.trim() !== '' ? label.trim().toLowerCase().replace(/[^a-z0-9]+/g, '-') : 'case';
-    let id = base;
-    for (let count = 2; cases.has(id); count += 1) id = `${base}-${count}`;
-    return id;
+  const put = (caseId: string, entry: StoredEntry) => {
+    state = { ...state, cases: { ...state.cases, [caseId]: entry } };
+    persist();
   };
-  const record = (kind: string, id: string, asOf: string): Result<ExportReceipt> => {
-    if (!cases.has(id)) return fail(issue('unknown_choice', ['id'], `No case "${id}" in this workspace.`));
-    const location = `${kind}/${id}-${asOf}.${kind === 'sheet' ? 'pdf' : 'ics'}`;
-    exports.push(location);
-    return ok({ location, bytes: JSON.stringify(cases.get(id)).length });
+  const missing = (caseId: string) => fail(issue('invalid_file', ['caseId'], `No case "${caseId}" in this workspace.`));
+  const warningsOf = (document: unknown) => {
+    const parsed = parseCase(document);
+    return parsed.ok ? [...(parsed.warnings ?? [])] : [];
+  };
+  const saved = (caseId: string): Result<HostValue<'saveCase'>> => ok({ caseId, revision: String(state.cases[caseId]!.revision), warnings: warningsOf(state.cases[caseId]!.document) });
+  const summary = (caseId: string): HostValue<'listCases'>[number] => {
+    const entry = state.cases[caseId]!;
+    const parsed = parseCase(entry.document);
+    const label = (entry.document.patient as { label?: unknown } | undefined)?.label;
+    return { caseId, patientLabel: typeof label === 'string' ? label : null, archived: entry.archived, modifiedAt: null, issues: parsed.ok ? [...(parsed.warnings ?? [])] : [...parsed.issues] };
+  };
+  const exportOf = (kind: string, caseId: string, asOfDate: string): Result<HostValue<'exportCalendar'>> => {
+    if (!state.cases[caseId]) return missing(caseId);
+    const path = `in-page/${caseId.replace(/\.json$/, '')}-${asOfDate}.${kind}`;
+    state = { ...state, exports: [...state.exports, path] };
+    persist();
+    return ok({ path });
   };
   return {
-    kind: 'in-page store',
-    exports,
-    async listCases() {
-      return ok([...cases].map(([id, json]) => ({ id, json })));
+    exports: () => state.exports,
+    appInfo: async () => ok({ name: 'chelation-ledger', version }),
+    currentWorkspace: async () => ok({ folder: null }),
+    chooseWorkspace: async () => ok({ folder: null }),
+    listCases: async () => ok(Object.keys(state.cases).sort().map(summary)),
+    openCase: async ({ caseId }) => {
+      const entry = state.cases[caseId];
+      if (!entry) return missing(caseId);
+      return ok({ caseId, document: entry.document, revision: String(entry.revision), warnings: warningsOf(entry.document) });
     },
-    async saveCase(id, json) {
-      cases.set(id, json);
-      persist();
-      return ok({ id });
+    createCase: async ({ caseId, document }) => {
+      if (state.cases[caseId]) return fail(issue('inconsistent', ['caseId'], `A case named "${caseId}" already exists; choose another name.`));
+      put(caseId, { document, revision: 1, archived: false });
+      return saved(caseId);
     },
-    async createCase(json) {
-      const id = freshId(json);
-      cases.set(id, json);
-      persist();
-      return ok({ id });
-    },
-    async importCase(text) {
-      let json: unknown;
-      try {
-        json = JSON.parse(text);
-      } catch {
-        return fail(issue('invalid_file', ['file'], 'The file is not JSON: a case file is the JSON this program saves.'));
+    saveCase: async ({ caseId, document, baseRevision }) => {
+      const entry = state.cases[caseId];
+      if (!entry) return missing(caseId);
+      if (String(entry.revision) !== baseRevision) {
+        return fail(issue('inconsistent', ['baseRevision'], `"${caseId}" changed since it was opened; reopen it to see the other change.`));
       }
-      const id = freshId(json);
-      cases.set(id, json);
+      put(caseId, { ...entry, document, revision: entry.revision + 1 });
+      return saved(caseId);
+    },
+    saveCaseAs: async ({ newCaseId, document }) => {
+      if (state.cases[newCaseId]) return fail(issue('inconsistent', ['newCaseId'], `A case named "${newCaseId}" already exists; choose another name.`));
+      put(newCaseId, { document, revision: 1, archived: false });
+      return saved(newCaseId);
+    },
+    renameCase: async ({ caseId, newCaseId }) => {
+      const entry = state.cases[caseId];
+      if (!entry) return missing(caseId);
+      if (state.cases[newCaseId]) return fail(issue('inconsistent', ['newCaseId'], `A case named "${newCaseId}" already exists.`));
+      const { [caseId]: _moved, ...rest } = state.cases;
+      state = { ...state, cases: { ...rest, [newCaseId]: entry } };
       persist();
-      return ok({ id });
+      return ok(summary(newCaseId));
     },
-    async exportSheet(id, asOf) {
-      return record('sheet', id, asOf);
+    archiveCase: async ({ caseId }) => {
+      const entry = state.cases[caseId];
+      if (!entry) return missing(caseId);
+      put(caseId, { ...entry, archived: true });
+      return ok(summary(caseId));
     },
-    async exportCalendar(id, asOf) {
-      return record('calendar', id, asOf);
+    recoverCase: async ({ caseId }) => {
+      const entry = state.cases[caseId];
+      if (!entry) return missing(caseId);
+      return ok({ caseId, document: entry.document, revision: String(entry.revision), history: [] });
+    },
+    importDryRun: async () => refusedHere('Importing CSV or FHIR records'),
+    importCommit: async () => refusedHere('Importing CSV or FHIR records'),
+    exportSheetPdf: async ({ caseId, asOfDate }) => exportOf('pdf', caseId, asOfDate),
+    exportCalendar: async ({ caseId, asOfDate }) => exportOf('ics', caseId, asOfDate),
+    readSettings: async () => ok(state.settings),
+    writeSettings: async (settings) => {
+      const checked = settingsSchema.safeParse(settings);
+      if (!checked.success) return fail(issue('invalid_file', ['settings'], 'The settings were refused.'));
+      state = { ...state, settings: checked.data };
+      persist();
+      return ok(state.settings);
     },
   };
 }

@@ -12,13 +12,16 @@ import { checkDraft, draftFromJson, draftToJson, type Draft, type DraftCheck } f
  */
 export const screens = ['cases', 'record', 'iron', 'regimens', 'findings', 'sheet', 'assumptions'] as const;
 export type Screen = (typeof screens)[number];
-export type UnitSystem = 'SI' | 'conventional';
+export type UnitSystem = 'si' | 'conventional';
 export type SaveState = 'saved' | 'saving' | 'unsaved-errors' | 'failed';
 
 const historyLimit = 200;
 
 export interface WorkspaceState {
   readonly host: WorkspaceHost | null;
+  /** Which host answers, in words ('desktop or preview', 'in-page store'), for the about box. */
+  readonly hostKind: string;
+  readonly version: string;
   readonly screen: Screen;
   readonly cases: readonly StoredCase[];
   readonly openId: string | null;
@@ -36,7 +39,7 @@ export interface WorkspaceState {
 }
 
 export interface WorkspaceIntents {
-  connect(host: WorkspaceHost): Promise<void>;
+  connect(host: WorkspaceHost, hostKind: string): Promise<void>;
   showScreen(screen: Screen): void;
   openCase(id: string): void;
   closeCase(): void;
@@ -57,6 +60,8 @@ export type Workspace = WorkspaceState & WorkspaceIntents;
 
 const initial: WorkspaceState = {
   host: null,
+  hostKind: 'none',
+  version: '',
   screen: 'cases',
   cases: [],
   openId: null,
@@ -67,7 +72,7 @@ const initial: WorkspaceState = {
   future: [],
   saveState: 'saved',
   message: null,
-  unitSystem: 'conventional',
+  unitSystem: 'si',
   lastExport: null,
   aboutOpen: false,
 };
@@ -118,8 +123,10 @@ export function createWorkspaceStore(): StoreApi<Workspace> {
     };
     return {
       ...initial,
-      async connect(host) {
-        set({ host });
+      async connect(host, hostKind) {
+        set({ host, hostKind });
+        const [unitSystem, version] = await Promise.all([host.readUnitSystem(), host.appVersion()]);
+        set({ unitSystem, version });
         await refresh();
       },
       showScreen(screen) {
@@ -175,6 +182,7 @@ export function createWorkspaceStore(): StoreApi<Workspace> {
       },
       setUnitSystem(unitSystem) {
         set({ unitSystem });
+        void get().host?.writeUnitSystem(unitSystem);
       },
       exportSheet: (asOf) => exportWith('sheet', asOf),
       exportCalendar: (asOf) => exportWith('calendar', asOf),

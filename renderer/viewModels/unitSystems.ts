@@ -11,7 +11,7 @@ import { licMgPerGDryFromUmolPerGDry, licUmolPerGDryFromMgPerGDry } from '../../
 import { formatQuantity } from './format';
 import type { Cells } from './recordTables';
 
-export type UnitSystemName = 'SI' | 'conventional';
+export type UnitSystemName = 'si' | 'conventional';
 
 /**
  * The unit each system shows for a result kind, and core's conversion between
@@ -20,26 +20,26 @@ export type UnitSystemName = 'SI' | 'conventional';
  * SI: substance concentration where a lab reports one (µmol/L, g/L);
  * conventional: mass concentration (mg/dL, µg/dL, g/dL), common practice in US reporting.
  */
-const pairs: Readonly<Record<string, { readonly SI: string; readonly conventional: string; readonly toSI: (value: number) => number; readonly toConventional: (value: number) => number; readonly decimals: { readonly SI: number; readonly conventional: number } }>> = {
+const pairs: Readonly<Record<string, { readonly si: string; readonly conventional: string; readonly toSI: (value: number) => number; readonly toConventional: (value: number) => number; readonly decimals: { readonly si: number; readonly conventional: number } }>> = {
   creatinine: {
-    SI: 'umol/L', conventional: 'mg/dL',
+    si: 'umol/L', conventional: 'mg/dL',
     toSI: (value) => creatinineUmolPerLFromMgPerDl(value as MgPerDl), toConventional: (value) => creatinineMgPerDlFromUmolPerL(value as UmolPerL),
-    decimals: { SI: 0, conventional: 2 },
+    decimals: { si: 0, conventional: 2 },
   },
   haemoglobin: {
-    SI: 'g/L', conventional: 'g/dL',
+    si: 'g/L', conventional: 'g/dL',
     toSI: (value) => gPerLFromGPerDl(value as GPerDl), toConventional: (value) => gPerDlFromGPerL(value as GPerL),
-    decimals: { SI: 0, conventional: 1 },
+    decimals: { si: 0, conventional: 1 },
   },
   'blood-lead': {
-    SI: 'umol/L', conventional: 'ug/dL',
+    si: 'umol/L', conventional: 'ug/dL',
     toSI: (value) => bloodLeadUmolPerLFromUgPerDl(value as MicrogramsPerDl), toConventional: (value) => bloodLeadUgPerDlFromUmolPerL(value as UmolPerL),
-    decimals: { SI: 2, conventional: 1 },
+    decimals: { si: 2, conventional: 1 },
   },
   'liver-iron': {
-    SI: 'umol/g{dry}', conventional: 'mg/g{dry}',
+    si: 'umol/g{dry}', conventional: 'mg/g{dry}',
     toSI: (value) => licUmolPerGDryFromMgPerGDry(value as MgPerGDry), toConventional: (value) => licMgPerGDryFromUmolPerGDry(value as UmolPerGDry),
-    decimals: { SI: 0, conventional: 1 },
+    decimals: { si: 0, conventional: 1 },
   },
 };
 
@@ -50,7 +50,7 @@ export function preferredUnit(system: UnitSystemName, kind: string): string | un
 
 /**
  * A result row's value in the chosen system, when it was entered in the other
- * one: '97 µmol/L' for 1.1 mg/dL under SI. Empty when nothing to convert.
+ * one: '97 µmol/L' for 1.1 mg/dL under SI ('si'). Empty when nothing to convert.
  */
 export function convertedText(system: UnitSystemName, cells: Cells): string {
   const pair = pairs[cells.kind ?? ''];
@@ -58,8 +58,8 @@ export function convertedText(system: UnitSystemName, cells: Cells): string {
   if (!pair || (cells.value ?? '').trim() === '' || !Number.isFinite(value)) return '';
   if (cells.kind === 'liver-iron' && !['biopsy', 'mri'].includes(cells.method ?? '')) return '';
   if (cells.unit === pair[system]) return '';
-  const other: UnitSystemName = system === 'SI' ? 'conventional' : 'SI';
+  const other: UnitSystemName = system === 'si' ? 'conventional' : 'si';
   if (cells.unit !== pair[other]) return '';
-  const converted = system === 'SI' ? pair.toSI(value) : pair.toConventional(value);
+  const converted = system === 'si' ? pair.toSI(value) : pair.toConventional(value);
   return formatQuantity(converted, pair.decimals[system], pair[system]);
 }

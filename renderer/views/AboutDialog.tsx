@@ -3,12 +3,11 @@ import { sourceCatalogue } from '../../core/references';
 import { useWorkspace, workspaceStore } from '../state/store';
 import { sourceLine } from '../viewModels/sources';
 
-declare const __APP_VERSION__: string;
-
 /** The about box: version, what the tool is and is not, and every source it cites. */
 export function AboutDialog() {
   const open = useWorkspace((state) => state.aboutOpen);
-  const hostKind = useWorkspace((state) => state.host?.kind ?? 'none');
+  const hostKind = useWorkspace((state) => state.hostKind);
+  const version = useWorkspace((state) => state.version);
   const ref = useRef<HTMLDialogElement>(null);
   useEffect(() => {
     const dialog = ref.current;
@@ -19,7 +18,7 @@ export function AboutDialog() {
   return (
     <dialog ref={ref} aria-labelledby="about-title" onClose={() => workspaceStore.getState().setAboutOpen(false)}>
       <h2 id="about-title">About chelation-ledger</h2>
-      <p>Version {__APP_VERSION__}. Host: {hostKind}.</p>
+      <p>Version {version}. Host: {hostKind}.</p>
       <p>
         Decision support for clinical pharmacists reviewing chelation therapy: transfusional iron, body iron, chelator removal, projections and
         safety checks. It supports the prescriber's decision and never replaces it; follow local protocols.

@@ -24,9 +24,9 @@ export function RecordView() {
       <div className="toolbar">
         <fieldset className="unit-system">
           <legend>Units shown beside results</legend>
-          {(['conventional', 'SI'] as const satisfies readonly UnitSystem[]).map((system) => (
+          {(['si', 'conventional'] as const satisfies readonly UnitSystem[]).map((system) => (
             <label key={system}>
-              <input type="radio" name="unit-system" value={system} checked={unitSystem === system} onChange={() => setUnitSystem(system)} /> {system}
+              <input type="radio" name="unit-system" value={system} checked={unitSystem === system} onChange={() => setUnitSystem(system)} /> {system === 'si' ? 'SI' : 'conventional'}
             </label>
           ))}
         </fieldset>
@@ -42,7 +42,7 @@ export function RecordView() {
           rows={draft.tables[table]}
           issues={check?.cellIssues.filter((it) => it.table === table) ?? []}
           intents={intentsOf(table)}
-          {...(table === 'results' ? { extraColumn: { label: `In ${unitSystem} units`, value: (row) => convertedText(unitSystem, row.cells) } } : {})}
+          {...(table === 'results' ? { extraColumn: { label: `In ${unitSystem === 'si' ? 'SI' : 'conventional'} units`, value: (row) => convertedText(unitSystem, row.cells) } } : {})}
         />
       ))}
     </>
