@@ -1,6 +1,10 @@
 import { writeCalendarFile } from '../host/icalendar';
 import { readCaseFile } from '../host/caseFiles';
+import { homedir } from 'node:os';
+import { join } from 'node:path';
 import { readTextFile } from '../host/textFiles';
+import { userConfigFolder } from '../host/userFolders';
+import { runPreview } from '../preview/runPreview';
 import { runAtBoundary } from './boundary';
 import { runCli, type CliHostIo } from './main';
 
@@ -17,6 +21,12 @@ const io: CliHostIo = {
   },
   now: () => new Date(),
   writeCalendar: writeCalendarFile,
+  startPreview: (options) => {
+    // dist/cli.cjs sits in <app folder>/dist.
+    const appFolder = join(__dirname, '..');
+    const { name, version } = require(join(appFolder, 'package.json')) as { name: string; version: string };
+    return runPreview({ appName: name, appVersion: version, appFolder, configFolder: userConfigFolder(process.env, process.platform, homedir()), ...options });
+  },
 };
 
 void runAtBoundary(process.argv.slice(2), io, (argv) => runCli(argv, io)).then((code) => {

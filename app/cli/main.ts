@@ -7,6 +7,7 @@ import type { CaseIo } from './caseReview';
 import { explainCommand } from './explainCommand';
 import { doseCommand } from './doseCommand';
 import { findingsCommand } from './findingsCommand';
+import { previewCommand, type PreviewHostIo } from './previewCommand';
 import { decisionSupportCaution } from './format';
 import { exitCodes, type TextIo } from './io';
 
@@ -31,13 +32,14 @@ Commands:
                                             nearest practical regimen from the available strengths (dose --list)
   calendar <case.json> [--as-of YYYY-MM-DD] [-o due.ics] [--force]
                                             monitoring due for the active regimens; -o writes an iCalendar file
+  preview [--port N] [--workspace DIR]      the app in a browser on this computer only; prints its address
 
 ${calcUsage}
 
 ${decisionSupportCaution}`;
 
 /** Everything the host hands the command line: streams, the case reader, the clock, file reading and writing. */
-export type CliHostIo = CaseIo & CalendarHostIo & TextIo;
+export type CliHostIo = CaseIo & CalendarHostIo & TextIo & PreviewHostIo;
 
 /** A subcommand: parsed arguments and the host io in, the exit code out (it may be async). */
 export type Command = (args: ParsedArgs, io: CliHostIo) => number | Promise<number>;
@@ -51,6 +53,7 @@ const commands: Readonly<Record<string, Command>> = {
   compute: computeCommand,
   findings: findingsCommand,
   explain: explainCommand,
+  preview: previewCommand,
 };
 
 /**
