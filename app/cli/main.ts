@@ -3,6 +3,7 @@ import { bindingCommand } from './bindingCommand';
 import { calcCommand, calcUsage } from './calcCommand';
 import { calendarCommand, type CalendarHostIo } from './calendarCommand';
 import { checkCommand, computeCommand } from './caseCommands';
+import { courseCommand, type CourseHostIo } from './courseCommand';
 import type { CaseIo } from './caseReview';
 import { explainCommand } from './explainCommand';
 import { doseCommand } from './doseCommand';
@@ -33,13 +34,15 @@ Commands:
   calendar <case.json> [--as-of YYYY-MM-DD] [-o due.ics] [--force]
                                             monitoring due for the active regimens; -o writes an iCalendar file
   preview [--port N] [--workspace DIR]      the app in a browser on this computer only; prints its address
+  course --list [--json] | course <regimen> --weight-kg N [--height-cm N] [--age-years N] --start YYYY-MM-DDTHH:mm [-o course.ics]
+                                            a heavy-metal course planned to the dose, the day and the salt (course --help)
 
 ${calcUsage}
 
 ${decisionSupportCaution}`;
 
 /** Everything the host hands the command line: streams, the case reader, the clock, file reading and writing. */
-export type CliHostIo = CaseIo & CalendarHostIo & TextIo & PreviewHostIo;
+export type CliHostIo = CaseIo & CalendarHostIo & TextIo & PreviewHostIo & CourseHostIo;
 
 /** A subcommand: parsed arguments and the host io in, the exit code out (it may be async). */
 export type Command = (args: ParsedArgs, io: CliHostIo) => number | Promise<number>;
@@ -70,6 +73,8 @@ export async function runCli(argv: readonly string[], io: CliHostIo): Promise<nu
   }
   // binding parses its own arguments (it has a --sweep switch).
   if (command === 'binding') return bindingCommand(rest, io);
+  // course parses its own arguments (it has an --encephalopathy switch).
+  if (command === 'course') return courseCommand(rest, io);
   const run = Object.hasOwn(commands, command) ? commands[command] : undefined;
   if (run === undefined) {
     io.err(`Unknown command "${command}".\n\n${usage}`);

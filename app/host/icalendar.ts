@@ -78,15 +78,29 @@ export interface IcsAllDayEvent {
   readonly categories?: readonly string[];
 }
 
+/**
+ * A timed event (RFC 5545 §3.3.5 form 2): DTSTART in UTC with a trailing Z, so
+ * every calendar shows it at the right instant in its own zone; DTEND when a
+ * duration is known (an infusion), none otherwise (an instant, §3.6.1).
+ */
+export interface IcsTimedEvent {
+  readonly uid: string;
+  readonly startUtc: Date;
+  readonly durationMinutes?: number;
+  readonly summary: string;
+  readonly description: string;
+  readonly categories?: readonly string[];
+}
+
 export interface IcsCalendar {
   readonly name: string;
-  readonly events: readonly IcsAllDayEvent[];
+  readonly events: readonly (IcsAllDayEvent | IcsTimedEvent)[];
   /** The instant the file is written, passed in by the host (DTSTAMP). */
   readonly dtStamp: Date;
 }
 
 /**
- * Write a calendar of all-day events as RFC 5545 text: CRLF line endings,
+ * Write a calendar of all-day and timed events as RFC 5545 text: CRLF line endings,
  * folded lines, escaped TEXT values.
  * @param calendar - name, events (any number), the DTSTAMP instant
  * @returns the .ics text, ending in CRLF
@@ -104,12 +118,16 @@ export function writeIcs(calendar: IcsCalendar): string {
       'BEGIN:VEVENT',
       `UID:${escapeIcsText(event.uid)}`,
       `DTSTAMP:${stamp}`,
-      `DTSTART;VALUE=DATE:${icsDate(event.date)}`,
-      `DTEND;VALUE=DATE:${icsDate(addDaysIso(event.date, 1))}`,
+      ...('startUtc' in event
+        ? [
+            `DTSTART:${icsUtcDateTime(event.startUtc)}`,
+            ...(event.durationMinutes !== undefined ? [`DTEND:${icsUtcDateTime(new Date(event.startUtc.getTime() + event.durationMinutes * 60_000))}`] : []),
+          ]
+        : [`DTSTART;VALUE=DATE:${icsDate(event.date)}`, `DTEND;VALUE=DATE:${icsDate(addDaysIso(event.date, 1))}`]),
       `SUMMARY:${escapeIcsText(event.summary)}`,
       `DESCRIPTION:${escapeIcsText(event.description)}`,
       ...(event.categories && event.categories.length > 0 ? [`CATEGORIES:${event.categories.map(escapeIcsText).join(',')}`] : []),
-      'TRANSP:TRANSPARENT',
+      `TRANSP:${'startUtc' in event ? 'OPAQUE' : 'TRANSPARENT'}`,
       'END:VEVENT',
     ]),
     'END:VCALENDAR',

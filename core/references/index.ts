@@ -1,5 +1,6 @@
 import { chelatorsSources } from './chelators';
 import { chemistrySources } from './chemistry';
+import { coursesSources } from './courses';
 import { dosingSources } from './dosing';
 import { ironSources } from './iron';
 import { patientSources } from './patient';
@@ -18,6 +19,7 @@ export const sourceCatalogue: readonly Source[] = [
   ...chemistrySources,
   ...dosingSources,
   ...safetySources,
+  ...coursesSources,
 ];
 
 const byId = new Map<string, Source>();

@@ -6,9 +6,11 @@ import type {
   GramsPerMole,
   MgPerDl,
   MicrogramsPerDl,
+  MicrogramsPer24h,
   MicrogramsPerLitre,
   MmolPerL,
   NanogramsPerMl,
+  UmolPer24h,
   UmolPerL,
 } from './quantity';
 
@@ -61,3 +63,13 @@ export const bloodLeadUmolPerLFromUgPerDl = (lead: MicrogramsPerDl): UmolPerL =>
 /** Blood lead µmol/L → µg/dL. */
 export const bloodLeadUgPerDlFromUmolPerL = (lead: UmolPerL): MicrogramsPerDl =>
   ((lead * atomicWeight('Pb')) / 10) as MicrogramsPerDl;
+
+/**
+ * Urinary copper µg/24 h → µmol/24 h: ÷ 63.546 (Ar(Cu), CIAAW 2021 single value).
+ * @example urinaryCopperUmolPer24hFromUgPer24h(500) ≈ 7.87
+ */
+export const urinaryCopperUmolPer24hFromUgPer24h = (copper: MicrogramsPer24h): UmolPer24h =>
+  (copper / atomicWeight('Cu')) as UmolPer24h;
+/** Urinary copper µmol/24 h → µg/24 h (× 63.546). @example ≈ 500 for 7.868 */
+export const urinaryCopperUgPer24hFromUmolPer24h = (copper: UmolPer24h): MicrogramsPer24h =>
+  (copper * atomicWeight('Cu')) as MicrogramsPer24h;

@@ -55,6 +55,9 @@ export type MicrogramsPerDl = Quantity<'ug/dL'>;
 export type MlPerMin = Quantity<'mL/min'>;
 /** eGFR normalised to 1.73 m² body-surface area. */
 export type MlPerMinPer173M2 = Quantity<'mL/min/{1.73_m2}'>;
+/** Urinary excretion over a 24-hour collection (UCUM 'ug/(24.h)', 'umol/(24.h)'). */
+export type MicrogramsPer24h = Quantity<'ug/(24.h)'>;
+export type UmolPer24h = Quantity<'umol/(24.h)'>;
 export type PerNanoLitre = Quantity<'10*9/L'>;
 
 /** Attach a unit to a plain number (the only cast in the units layer). */
