@@ -43,3 +43,20 @@ export function parseArgs(argv: readonly string[], switchNames: readonly string[
   }
   return { positionals, options, switches, missingValues };
 }
+
+/** `-o FILE` arrives as two positionals (the parser reads only --flags); take it out. */
+export function splitOutput(positionals: readonly string[], problems: string[]): { rest: string[]; output: string | undefined } {
+  const rest: string[] = [];
+  let output: string | undefined;
+  for (let index = 0; index < positionals.length; index += 1) {
+    const word = positionals[index]!;
+    if (word === '-o') {
+      output = positionals[index + 1];
+      if (output === undefined) problems.push('-o: a file name is missing after the flag.');
+      index += 1;
+    } else {
+      rest.push(word);
+    }
+  }
+  return { rest, output };
+}

@@ -2,7 +2,7 @@ import { isIsoDate } from '../../core/dates/isoDate';
 import { monitoringCalendar, type MonitoringCalendar, type MonitoringItem } from '../../core/monitoring';
 import { formatIssues, type Result } from '../../core/result';
 import { itemSources, monitoringIcs, writeCalendarFile } from '../host/icalendar';
-import type { ParsedArgs } from './args';
+import { splitOutput, type ParsedArgs } from './args';
 import type { CaseIo } from './caseReview';
 import { decisionSupportCaution } from './format';
 import { exitCodes } from './io';
@@ -52,22 +52,6 @@ export function formatMonitoringCalendar(calendar: MonitoringCalendar): string {
   ].join('\n');
 }
 
-/** `-o FILE` arrives as two positionals (the parser reads only --flags); take it out. */
-function splitOutput(positionals: readonly string[], problems: string[]): { rest: string[]; output: string | undefined } {
-  const rest: string[] = [];
-  let output: string | undefined;
-  for (let index = 0; index < positionals.length; index += 1) {
-    const word = positionals[index]!;
-    if (word === '-o') {
-      output = positionals[index + 1];
-      if (output === undefined) problems.push('-o: a file name is missing after the flag.');
-      index += 1;
-    } else {
-      rest.push(word);
-    }
-  }
-  return { rest, output };
-}
 
 /**
  * `calendar <case.json> [--as-of DATE] [--anc-interval-days N] [-o due.ics] [--force] [--json]`:

@@ -17,7 +17,7 @@ import { formatIssues, type Result } from '../../core/result';
 import { bloodLead, checkLabValue, serumCreatinine } from '../../core/units/formulas';
 import { courseIcs } from '../host/courseCalendar';
 import { writeCalendarFile } from '../host/icalendar';
-import { parseArgs } from './args';
+import { parseArgs, splitOutput } from './args';
 import { formatNumber } from './format';
 import { exitCodes, type CliIo } from './io';
 
@@ -196,20 +196,6 @@ export function formatCoursePlan(plan: CoursePlan, label: string | undefined): s
   return lines.join('\n');
 }
 
-/** `-o FILE` arrives as two positionals; take it out. */
-function splitOutput(positionals: readonly string[], problems: string[]): { rest: string[]; output: string | undefined } {
-  const rest: string[] = [];
-  let output: string | undefined;
-  for (let index = 0; index < positionals.length; index += 1) {
-    const word = positionals[index]!;
-    if (word === '-o') {
-      output = positionals[index + 1];
-      if (output === undefined) problems.push('-o: a file name is missing after the flag.');
-      index += 1;
-    } else rest.push(word);
-  }
-  return { rest, output };
-}
 
 /** Each issue path of the planner, as the flag the user typed. */
 const flagOfPath: Readonly<Record<string, string>> = {

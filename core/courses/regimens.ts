@@ -384,50 +384,27 @@ const unithiol: CourseRegimen = {
 const wilsonDays = { default: 14, min: 1, max: 90 };
 const wilsonDaysWhy = 'a maintenance drug has no fixed end: the plan lists the first days only (14 by default, a modelling choice; change with --days)';
 
+const penicillaminePhase = (perDay: { readonly default: number; readonly min: number; readonly max: number }, dose: DoseOption): PhaseSpec => ({
+  id: 'maintenance',
+  label: 'in divided doses through the day',
+  drug: 'penicillamine',
+  route: 'oral',
+  track: 0,
+  perDay,
+  length: { days: wilsonDays, why: wilsonDaysWhy },
+  doseOptions: [dose],
+  maxPer24h: { mg: 2000, sourceIds: ['penicillamine-wilson'] }, // seldom above 2 g/day
+  sourceIds: ['penicillamine-wilson'],
+});
+
 const penicillamine: CourseRegimen = {
   id: 'penicillamine-wilson',
   title: 'Penicillamine for Wilson disease (copper)',
   metals: ['copper'],
   frame: ['Wilson disease; dose adjusted to 24-hour urinary copper and non-caeruloplasmin copper (EASL 2012).'],
   populations: [
-    {
-      id: 'child',
-      label: 'children (under 18 years)',
-      belowAgeYears: 18,
-      phases: [
-        {
-          id: 'maintenance',
-          label: 'in two or three divided doses a day',
-          drug: 'penicillamine',
-          route: 'oral',
-          track: 0,
-          perDay: { default: 2, min: 2, max: 3 },
-          length: { days: wilsonDays, why: wilsonDaysWhy },
-          doseOptions: [{ basis: 'daily-mg-per-kg-rounded', mgPerKgPerDay: 20, roundToMg: 250, sourceIds: ['penicillamine-wilson'] }], // 20 mg/kg/day to the nearest 250 mg
-          maxPer24h: { mg: 2000, sourceIds: ['penicillamine-wilson'] }, // seldom above 2 g/day
-          sourceIds: ['penicillamine-wilson'],
-        },
-      ],
-    },
-    {
-      id: 'adult',
-      label: 'adults',
-      minAgeYears: 18,
-      phases: [
-        {
-          id: 'maintenance',
-          label: 'in two or three divided doses a day',
-          drug: 'penicillamine',
-          route: 'oral',
-          track: 0,
-          perDay: { default: 3, min: 2, max: 4 },
-          length: { days: wilsonDays, why: wilsonDaysWhy },
-          doseOptions: [{ basis: 'daily-mg', minMgPerDay: 750, maxMgPerDay: 1500, sourceIds: ['penicillamine-wilson'] }], // 750–1,500 mg/day
-          maxPer24h: { mg: 2000, sourceIds: ['penicillamine-wilson'] }, // seldom above 2 g/day
-          sourceIds: ['penicillamine-wilson'],
-        },
-      ],
-    },
+    { id: 'child', label: 'children (under 18 years)', belowAgeYears: 18, phases: [penicillaminePhase({ default: 2, min: 2, max: 3 }, { basis: 'daily-mg-per-kg-rounded', mgPerKgPerDay: 20, roundToMg: 250, sourceIds: ['penicillamine-wilson'] })] }, // 20 mg/kg/day to the nearest 250 mg
+    { id: 'adult', label: 'adults', minAgeYears: 18, phases: [penicillaminePhase({ default: 3, min: 2, max: 3 }, { basis: 'daily-mg', minMgPerDay: 750, maxMgPerDay: 1500, sourceIds: ['penicillamine-wilson'] })] }, // 750–1,500 mg/day
   ],
   courses: { default: 1, min: 1, max: 1 },
   restDays: null,

@@ -65,9 +65,10 @@ export function coreArea(path: string): string | undefined {
 /**
  * Packages core may use: pure libraries with no I/O, DOM or clock — the schema and date
  * libraries (design.md §2: "uses zod"), and d3's scales, shapes and arrays for the
- * pure chart builders in core/report (stack-notes.md: "pure and DOM-free").
+ * pure chart builders in core/report (stack-notes.md: "pure and DOM-free"); @date-fns/tz
+ * reads the runtime's time-zone rules (no clock) for the course planner's ward clock.
  */
-export const corePackages: readonly string[] = ['zod', 'date-fns', '@date-fns/utc', 'd3-array', 'd3-scale', 'd3-shape'];
+export const corePackages: readonly string[] = ['zod', 'date-fns', '@date-fns/utc', '@date-fns/tz', 'd3-array', 'd3-scale', 'd3-shape'];
 
 /**
  * The directions the project allows (DEVELOPERS.md, "Dependencies"), as messages for
