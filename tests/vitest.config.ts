@@ -11,6 +11,10 @@ export default defineConfig({
     environment: 'node',
     // Two cores on every machine here: keep one worker per core.
     maxWorkers: 2,
+    // A guard against a hung test, not a speed check (speed lives in `npm run bench`): generous, because
+    // property tests and schema compiles can take several seconds on a loaded two-core machine.
+    testTimeout: 60_000,
+    hookTimeout: 120_000,
     benchmark: { include: ['tests/bench/**/*.bench.ts'] },
   },
 });
