@@ -1,4 +1,5 @@
 import type { Case } from '../../core/model/caseFile';
+import { migrateCase } from '../../core/model/migrate';
 import { parseCase } from '../../core/model/parseCase';
 import type { Issue } from '../../core/result';
 import { entryToRow, recordTableIds, rowToEntry, tableColumns, type RecordTableId, type Row } from './recordTables';
@@ -13,9 +14,14 @@ export interface Draft {
   readonly tables: Readonly<Record<RecordTableId, readonly Row[]>>;
 }
 
-/** The draft of a stored case file. */
+/**
+ * The draft of a stored case file, migrated to the current version first
+ * (an older file is saved in the current version from its first change on;
+ * it is never written back in an older version).
+ */
 export function draftFromJson(json: unknown): Draft {
-  const source = (json ?? {}) as Record<string, unknown>;
+  const migrated = migrateCase(json);
+  const source = ((migrated.ok ? migrated.value : json) ?? {}) as Record<string, unknown>;
   const base: Record<string, unknown> = { ...source };
   const tables = {} as Record<RecordTableId, Row[]>;
   for (const table of recordTableIds) {

@@ -1,5 +1,5 @@
 import { freshEntryId, type Draft } from './draftCase';
-import { newRowCells, withCell, type Cells, type RecordTableId, type Row } from './recordTables';
+import { choiceFromText, newRowCells, withCell, type Cells, type RecordTableId, type Row } from './recordTables';
 
 /** Pure edits of a draft's tables: each returns a new draft, the input is untouched (undo keeps the old one). */
 const withTable = (draft: Draft, table: RecordTableId, rows: readonly Row[]): Draft => ({ ...draft, tables: { ...draft.tables, [table]: rows } });
@@ -13,7 +13,7 @@ export function setCell(draft: Draft, table: RecordTableId, rowId: string, key: 
   const row = rows[index];
   if (!row || row.cells[key] === value) return draft;
   const next = [...rows];
-  next[index] = { id: row.id, cells: withCell(table, row.cells, key, value) };
+  next[index] = { ...row, cells: withCell(table, row.cells, key, value) };
   return withTable(draft, table, next);
 }
 
@@ -48,10 +48,17 @@ export function pasteRows(draft: Draft, table: RecordTableId, rowId: string, pas
   if (!row || pasted.length === 0) return draft;
   const [first, ...rest] = pasted;
   let cells = row.cells;
-  for (const [key, value] of Object.entries(first!)) cells = withCell(table, cells, key, value);
+  for (const [key, value] of Object.entries(first!)) cells = withCell(table, cells, key, choiceFromText(table, cells, key, value));
   const next = [...rows];
-  next[index] = { id: row.id, cells };
-  return addRows(withTable(draft, table, next), table, rest, index, preferred);
+  next[index] = { ...row, cells };
+  return addRows(withTable(draft, table, next), table, rest.map((given) => asChoices(table, given)), index, preferred);
+}
+
+/** Pasted cells with select texts read as their choices, column by column in order. */
+function asChoices(table: RecordTableId, given: Cells): Cells {
+  let cells: Record<string, string> = {};
+  for (const [key, value] of Object.entries(given)) cells = { ...cells, [key]: choiceFromText(table, cells, key, value) };
+  return cells;
 }
 
 /** A row removed. */

@@ -1,8 +1,11 @@
 import {
   altBounds,
+  astBounds,
+  bilirubinBounds,
   bloodLeadBounds,
   cardiacT2StarBounds,
   chelatorDrugs,
+  coMedicationDoseBounds,
   coMedicationTimings,
   creatinineBounds,
   deferasiroxFormulations,
@@ -19,8 +22,12 @@ import {
   liverR2StarBounds,
   liverT2StarBounds,
   neutrophilBounds,
+  plateletBounds,
   urinaryCopperBounds,
+  urineProteinCreatinineRatioBounds,
+  zincBounds,
 } from '../../core/model';
+import { examinationOutcomes } from '../../core/model/resultEntry';
 import { displayUnit } from '../../core/units/displayUnit';
 
 /**
@@ -37,6 +44,8 @@ export interface Row {
   /** The entry id in the case file (stable across edits). */
   readonly id: string;
   readonly cells: Cells;
+  /** Fields of the entry that no column shows (a laboratory reference range, a product id): kept as they were. */
+  readonly extra?: Readonly<Record<string, unknown>>;
 }
 
 export interface ColumnSpec {
@@ -61,7 +70,16 @@ export const resultKinds = [
   'haemoglobin',
   'blood-lead',
   'urinary-copper',
+  'platelets',
+  'ast',
+  'bilirubin',
+  'urine-protein-creatinine-ratio',
+  'zinc',
+  'audiology',
+  'eye-examination',
 ] as const;
+/** Results recorded by outcome rather than by a number. */
+const examinationKinds: readonly string[] = ['audiology', 'eye-examination'];
 type ResultKindName = (typeof resultKinds)[number];
 
 const liverUnitsByMethod: Readonly<Record<string, readonly string[]>> = {
@@ -81,6 +99,13 @@ const unitsByKind: Readonly<Record<ResultKindName, readonly string[]>> = {
   haemoglobin: Object.keys(haemoglobinBounds),
   'blood-lead': Object.keys(bloodLeadBounds),
   'urinary-copper': Object.keys(urinaryCopperBounds),
+  platelets: Object.keys(plateletBounds),
+  ast: Object.keys(astBounds),
+  bilirubin: Object.keys(bilirubinBounds),
+  'urine-protein-creatinine-ratio': Object.keys(urineProteinCreatinineRatioBounds),
+  zinc: Object.keys(zincBounds),
+  audiology: [''],
+  'eye-examination': [''],
 };
 
 /** Units a result of this kind (and liver-iron method) may be entered in, UCUM codes. */
@@ -130,6 +155,7 @@ export const tableColumns: Readonly<Record<RecordTableId, readonly ColumnSpec[]>
       fieldPaths: [['fieldStrengthT']],
     },
     { key: 'calibrationId', label: 'Calibration', width: 'medium', fieldPaths: [['calibrationId']] },
+    { key: 'outcome', label: 'Outcome', width: 'medium', choices: (cells) => (examinationKinds.includes(cells.kind ?? '') ? examinationOutcomes : ['']), fieldPaths: [['outcome']] },
     { key: 'note', label: 'Note', width: 'wide', fieldPaths: [['note']] },
   ],
   chelationPeriods: [
@@ -147,10 +173,10 @@ export const tableColumns: Readonly<Record<RecordTableId, readonly ColumnSpec[]>
     { key: 'note', label: 'Note', width: 'wide', fieldPaths: [['note'], ['adherenceNote']] },
   ],
   coMedications: [
-    { key: 'substance', label: 'Substance', width: 'medium', choices: fixed(['ascorbic-acid']), fieldPaths: [['substance']] },
+    { key: 'name', label: 'Generic name', width: 'wide', fieldPaths: [['name']] },
     { key: 'dose', label: 'Dose', width: 'narrow', fieldPaths: [['dose', 'value'], ['dose']] },
-    { key: 'doseUnit', label: 'Dose unit', width: 'narrow', choices: fixed(['mg', 'mg/kg']), fieldPaths: [['dose', 'unit']] },
-    { key: 'timing', label: 'Timing', width: 'wide', choices: fixed(coMedicationTimings), fieldPaths: [['timing']] },
+    { key: 'doseUnit', label: 'Dose unit', width: 'narrow', choices: fixed(Object.keys(coMedicationDoseBounds)), fieldPaths: [['dose', 'unit']] },
+    { key: 'timing', label: 'Timing', width: 'wide', choices: fixed(['', ...coMedicationTimings]), fieldPaths: [['timing']] },
     { key: 'startDate', label: 'Start', width: 'date', fieldPaths: [['startDate']] },
     { key: 'endDate', label: 'End (blank while ongoing)', width: 'date', fieldPaths: [['endDate']] },
     { key: 'note', label: 'Note', width: 'wide', fieldPaths: [['note']] },
@@ -196,25 +222,28 @@ export function rowToEntry(table: RecordTableId, row: Row): Record<string, unkno
       const haematocrit = textOf(c.unitHaematocrit) === undefined ? null : numberOf(c.unitHaematocrit);
       if (c.kind === 'exchange') {
         return withoutUndefined({
-          id: row.id, date: textOf(c.date), kind: 'exchange', method: textOf(c.method) ?? 'automated',
+          ...row.extra, id: row.id, date: textOf(c.date), kind: 'exchange', method: textOf(c.method) ?? 'automated',
           volumeIn: { value: numberOf(c.volumeMl), unit: 'mL' }, unitHaematocrit: haematocrit, unitCount: numberOf(c.unitCount),
           volumeRemoved: { value: numberOf(c.volumeRemovedMl), unit: 'mL' }, patientHaematocrit: numberOf(c.patientHaematocrit), note: textOf(c.note),
         });
       }
       if (c.kind === 'venesection') {
         return withoutUndefined({
-          id: row.id, date: textOf(c.date), kind: 'venesection',
+          ...row.extra, id: row.id, date: textOf(c.date), kind: 'venesection',
           volumeRemoved: { value: numberOf(c.volumeRemovedMl), unit: 'mL' }, patientHaematocrit: numberOf(c.patientHaematocrit), note: textOf(c.note),
         });
       }
       return withoutUndefined({
-        id: row.id, date: textOf(c.date), kind: 'simple', volume: { value: numberOf(c.volumeMl), unit: 'mL' },
+        ...row.extra, id: row.id, date: textOf(c.date), kind: 'simple', volume: { value: numberOf(c.volumeMl), unit: 'mL' },
         unitHaematocrit: haematocrit, unitCount: numberOf(c.unitCount), note: textOf(c.note),
       });
     }
     case 'results': {
       const measured = { value: numberOf(c.value), unit: textOf(c.unit) };
-      const base = { id: row.id, date: textOf(c.date), kind: textOf(c.kind), measured, note: textOf(c.note) };
+      if (examinationKinds.includes(c.kind ?? '')) {
+        return withoutUndefined({ ...row.extra, id: row.id, date: textOf(c.date), kind: textOf(c.kind), outcome: textOf(c.outcome), note: textOf(c.note) });
+      }
+      const base = { ...row.extra, id: row.id, date: textOf(c.date), kind: textOf(c.kind), measured, note: textOf(c.note) };
       if (c.kind === 'liver-iron') {
         const method = textOf(c.method) ?? 'mri';
         if (method === 'biopsy') return withoutUndefined({ ...base, method });
@@ -225,7 +254,7 @@ export function rowToEntry(table: RecordTableId, row: Row): Record<string, unkno
     }
     case 'chelationPeriods':
       return withoutUndefined({
-        id: row.id, drug: textOf(c.drug), formulation: textOf(c.formulation), route: textOf(c.route),
+        ...row.extra, id: row.id, drug: textOf(c.drug), formulation: textOf(c.formulation), route: textOf(c.route),
         dose: { value: numberOf(c.dose), unit: textOf(c.doseUnit) ?? 'mg/kg' },
         administrationsPerDay: numberOf(c.administrationsPerDay), daysPerWeek: numberOf(c.daysPerWeek),
         infusionHours: c.drug === 'deferoxamine' ? numberOf(c.infusionHours) : undefined,
@@ -234,7 +263,8 @@ export function rowToEntry(table: RecordTableId, row: Row): Record<string, unkno
       });
     case 'coMedications':
       return withoutUndefined({
-        id: row.id, substance: textOf(c.substance) ?? 'ascorbic-acid', dose: { value: numberOf(c.dose), unit: textOf(c.doseUnit) ?? 'mg' },
+        ...row.extra, id: row.id, name: textOf(c.name),
+        dose: textOf(c.dose) === undefined ? undefined : { value: numberOf(c.dose), unit: textOf(c.doseUnit) ?? 'mg' },
         timing: textOf(c.timing), startDate: textOf(c.startDate), endDate: dateOrNull(c.endDate), note: textOf(c.note),
       });
   }
@@ -244,8 +274,22 @@ const text = (value: unknown): string => (value === undefined || value === null 
 const valueOf = (quantity: unknown): string => text((quantity as { value?: unknown } | undefined)?.value);
 const unitOf = (quantity: unknown): string => text((quantity as { unit?: unknown } | undefined)?.unit);
 
-/** The row showing a case-file entry: every field as text, exactly as stored. */
+/** Entry fields each table's columns show; anything else rides along in `Row.extra`. */
+const shownFields: Readonly<Record<RecordTableId, readonly string[]>> = {
+  transfusions: ['id', 'date', 'kind', 'method', 'volume', 'volumeIn', 'unitHaematocrit', 'unitCount', 'volumeRemoved', 'patientHaematocrit', 'note'],
+  results: ['id', 'date', 'kind', 'method', 'measured', 'outcome', 'fieldStrengthT', 'calibrationId', 'note'],
+  chelationPeriods: ['id', 'drug', 'formulation', 'route', 'dose', 'administrationsPerDay', 'daysPerWeek', 'infusionHours', 'startDate', 'endDate', 'adherence', 'adherenceNote', 'note'],
+  coMedications: ['id', 'name', 'dose', 'timing', 'startDate', 'endDate', 'note'],
+};
+
+/** The row showing a case-file entry: every field as text, exactly as stored; fields without a column kept aside. */
 export function entryToRow(table: RecordTableId, entry: Readonly<Record<string, unknown>>): Row {
+  const row = cellsOfEntry(table, entry);
+  const extra = Object.fromEntries(Object.entries(entry).filter(([key]) => !shownFields[table].includes(key)));
+  return Object.keys(extra).length > 0 ? { ...row, extra } : row;
+}
+
+function cellsOfEntry(table: RecordTableId, entry: Readonly<Record<string, unknown>>): Row {
   const id = text(entry.id);
   switch (table) {
     case 'transfusions':
@@ -261,7 +305,7 @@ export function entryToRow(table: RecordTableId, entry: Readonly<Record<string, 
       return {
         id,
         cells: {
-          date: text(entry.date), kind: text(entry.kind), method: text(entry.method), value: valueOf(entry.measured), unit: unitOf(entry.measured),
+          date: text(entry.date), kind: text(entry.kind), method: text(entry.method), value: valueOf(entry.measured), unit: unitOf(entry.measured), outcome: text(entry.outcome),
           fieldStrengthT: text(entry.fieldStrengthT), calibrationId: text(entry.calibrationId), note: text(entry.note),
         },
       };
@@ -278,7 +322,7 @@ export function entryToRow(table: RecordTableId, entry: Readonly<Record<string, 
       return {
         id,
         cells: {
-          substance: text(entry.substance), dose: valueOf(entry.dose), doseUnit: unitOf(entry.dose), timing: text(entry.timing),
+          name: text(entry.name), dose: valueOf(entry.dose), doseUnit: unitOf(entry.dose), timing: text(entry.timing),
           startDate: text(entry.startDate), endDate: text(entry.endDate), note: text(entry.note),
         },
       };
@@ -304,8 +348,26 @@ export function newRowCells(table: RecordTableId, given: Cells = {}, preferredUn
     cells[column.key] = column.choices ? (column.choices(cells)[0] ?? '') : '';
   }
   if (table === 'transfusions' && given.unitCount === undefined) cells.unitCount = '';
-  if (table === 'chelationPeriods' && given.adherence === undefined) cells.adherence = '1';
+  if (table === 'chelationPeriods') {
+    // Once a day, every day, fully taken: the form's starting values (common practice for a new period), never a dose.
+    if (given.adherence === undefined) cells.adherence = '1';
+    if (given.administrationsPerDay === undefined) cells.administrationsPerDay = '1';
+    if (given.daysPerWeek === undefined) cells.daysPerWeek = '7';
+  }
   return cells;
+}
+
+/**
+ * The choice a pasted or typed text stands for in a select: the code itself,
+ * or the words the select shows ('liver iron' → 'liver-iron', 'mg/g dry
+ * weight' → 'mg/g{dry}'), compared without case. Other text is kept as typed.
+ */
+export function choiceFromText(table: RecordTableId, cells: Cells, key: string, text: string): string {
+  const column = tableColumns[table].find((it) => it.key === key);
+  const choices = column?.choices?.(cells);
+  if (!column || !choices) return text;
+  const wanted = text.trim().toLowerCase();
+  return choices.find((choice) => choice.toLowerCase() === wanted || choiceText(column, choice).toLowerCase() === wanted) ?? text;
 }
 
 /**
@@ -346,4 +408,20 @@ export function pastedCells(table: RecordTableId, text: string, fromColumn: stri
 /** True when a paste holds more than one cell (a tab or a line break). */
 export function isMultiCellPaste(text: string): boolean {
   return /[\t\n]/.test(text.replace(/\r?\n$/, ''));
+}
+
+/** Rows a table shows by default: the latest ones, where a review adds and checks entries. */
+export const latestRowsShown = 15;
+
+/**
+ * The rows a table shows with their positions: every row when asked, or
+ * when an earlier row carries a message (nothing with a problem is hidden);
+ * otherwise the latest {@link latestRowsShown}.
+ */
+export function visibleRows(rows: readonly Row[], rowIdsWithIssues: readonly string[], showAll: boolean): { readonly rows: readonly { readonly row: Row; readonly rowIndex: number }[]; readonly hiddenCount: number } {
+  const indexed = rows.map((row, rowIndex) => ({ row, rowIndex }));
+  const firstShown = Math.max(0, rows.length - latestRowsShown);
+  const earlierIssue = indexed.slice(0, firstShown).some(({ row }) => rowIdsWithIssues.includes(row.id));
+  if (showAll || earlierIssue) return { rows: indexed, hiddenCount: 0 };
+  return { rows: indexed.slice(firstShown), hiddenCount: firstShown };
 }

@@ -31,7 +31,7 @@ export function withoutPeriod(form: WhatIfForm, index: number): WhatIfForm {
 /** The name core shows for a what-if: its periods in words. */
 export function whatIfName(form: WhatIfForm): string {
   return form.periods
-    .map((cells) => `${cells.drug ?? ''} ${(cells.formulation ?? '').replace(/-/g, ' ')} ${cells.dose ?? ''} ${cells.doseUnit ?? ''}${cells.daysPerWeek && cells.daysPerWeek !== '7' ? ` on ${cells.daysPerWeek} days a week` : ''}`.replace(/\s+/g, ' ').trim())
+    .map((cells) => `${cells.drug ?? ''} ${cells.dose ?? ''} ${cells.doseUnit ?? ''}${cells.daysPerWeek && cells.daysPerWeek !== '7' ? ` on ${cells.daysPerWeek} days a week` : ''}`.replace(/\s+/g, ' ').trim())
     .join(' with ')
     .slice(0, 80);
 }

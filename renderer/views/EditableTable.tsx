@@ -1,7 +1,7 @@
-import { useEffect, useRef, type ClipboardEvent, type KeyboardEvent } from 'react';
+import { useEffect, useRef, useState, type ClipboardEvent, type KeyboardEvent } from 'react';
 import { pathText } from '../../core/model/zodIssues';
 import type { CellIssue } from '../viewModels/draftCase';
-import { choiceText, columnUnitText, isMultiCellPaste, tableColumns, tableTitles, type RecordTableId, type Row } from '../viewModels/recordTables';
+import { choiceText, columnUnitText, isMultiCellPaste, tableColumns, tableTitles, visibleRows, type RecordTableId, type Row } from '../viewModels/recordTables';
 
 export interface TableIntents {
   readonly onCell: (rowId: string, key: string, value: string) => void;
@@ -30,6 +30,8 @@ export function EditableTable({ table, rows, issues, intents, extraColumn }: {
   readonly extraColumn?: { readonly label: string; readonly value: (row: Row) => string };
 }) {
   const columns = tableColumns[table];
+  const [showAll, setShowAll] = useState(false);
+  const shown = visibleRows(rows, issues.map((it) => it.rowId), showAll);
   const tableRef = useRef<HTMLTableElement>(null);
   const scrollRef = useRef<HTMLDivElement>(null);
   // A focus asked for before the row exists (Enter on the last row, Add a row) lands once it is rendered.
@@ -99,7 +101,7 @@ export function EditableTable({ table, rows, issues, intents, extraColumn }: {
             </tr>
           </thead>
           <tbody>
-            {rows.map((row, rowIndex) => {
+            {shown.rows.map(({ row, rowIndex }) => {
               const rowIssues = issues.filter((it) => it.rowId === row.id);
               const rowLevel = rowIssues.filter((it) => it.column === null);
               return (
@@ -156,6 +158,9 @@ export function EditableTable({ table, rows, issues, intents, extraColumn }: {
           </tbody>
         </table>
       </div>
+      {shown.hiddenCount > 0 || showAll ? (
+        <button type="button" onClick={() => setShowAll(!showAll)}>{showAll ? 'Show the latest rows only' : `Show all ${rows.length} rows (${shown.hiddenCount} earlier ones hidden)`}</button>
+      ) : null}{' '}
       <button type="button" onClick={addRowAndFocus}>Add a row to {tableTitles[table].toLowerCase()}</button>
     </section>
   );

@@ -2,7 +2,8 @@ import { useState } from 'react';
 import type { Derivation } from '../../core/formulas/derivation';
 import { useOpenReview } from '../hooks/useReview';
 import { ironCourseView } from '../viewModels/ironCourse';
-import { ChartPlaceholder } from './ChartPlaceholder';
+import { licChartView, ironFlowChartView } from '../viewModels/charts';
+import { ChartFigure } from './ChartFigure';
 import { DerivationTree } from './DerivationTree';
 import { ExplainedNumber } from './ExplainedNumber';
 import { ReviewProblem } from './ReviewProblem';
@@ -29,6 +30,10 @@ export function IronCourseView() {
           </dl>
           {view.notices.length > 0 ? <ul className="notices">{view.notices.map((notice) => <li key={notice.text}><strong>{notice.severity}:</strong> {notice.text}</li>)}</ul> : null}
         </section>
+        <section aria-labelledby="lic-title">
+          <h2 id="lic-title">Liver iron over time</h2>
+          <ChartFigure chart={licChartView(outcome.review, ['current'])} id="lic-chart" />
+        </section>
         <section aria-labelledby="intervals-title">
           <h2 id="intervals-title">Measured against expected removal, per LIC interval</h2>
           <table>
@@ -47,10 +52,10 @@ export function IronCourseView() {
         </section>
         <section aria-labelledby="account-title">
           <h2 id="account-title">Iron in and out by month</h2>
-          <ChartPlaceholder title="LIC and body iron over time; iron in against out by month" />
-          <div className="table-scroll short">
+          <ChartFigure chart={ironFlowChartView(outcome.review)} id="flow-chart" />
+          <div className="table-scroll short" tabIndex={0} role="region" aria-label="Monthly iron account, scrollable">
             <table>
-              <caption>Monthly iron account, mg (the values the chart plots)</caption>
+              <caption>Monthly iron account, mg, every month on record</caption>
               <thead><tr><th scope="col">Month</th><th scope="col">In with red cells</th><th scope="col">Out with removed blood</th><th scope="col">Expected chelation</th><th scope="col">Basal loss</th><th scope="col">Net</th></tr></thead>
               <tbody>
                 {view.months.map((month) => (

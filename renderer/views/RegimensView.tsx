@@ -7,6 +7,8 @@ import { setBaseField } from '../viewModels/recordEdits';
 import { choiceText, tableColumns } from '../viewModels/recordTables';
 import { regimensView } from '../viewModels/regimens';
 import { whatIfFromCurrent, withAddedPeriod, withPeriodCell, withoutPeriod, withWhatIf, type WhatIfForm } from '../viewModels/whatIf';
+import { licChartView } from '../viewModels/charts';
+import { ChartFigure } from './ChartFigure';
 import { DerivationTree } from './DerivationTree';
 import { ExplainedNumber } from './ExplainedNumber';
 import { ReviewProblem } from './ReviewProblem';
@@ -74,6 +76,7 @@ export function RegimensView() {
             </tbody>
           </table>
         </div>
+        <ChartFigure chart={licChartView(outcome.review)} id="regimens-lic-chart" />
         {proposalIssues.length > 0 ? <ul className="field-errors" role="alert">{proposalIssues.map((issue) => <li key={issue.message}>{issue.message}</li>)}</ul> : null}
         <section aria-labelledby="what-if-title" className="what-if-form">
           <h2 id="what-if-title">Add a what-if</h2>

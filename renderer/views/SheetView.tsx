@@ -5,7 +5,8 @@ import { ironCourseView } from '../viewModels/ironCourse';
 import { methodsOf } from '../viewModels/review';
 import { regimensView } from '../viewModels/regimens';
 import { cautionText } from './cautionText';
-import { ChartPlaceholder } from './ChartPlaceholder';
+import { licChartView } from '../viewModels/charts';
+import { ChartFigure } from './ChartFigure';
 import { ReviewProblem } from './ReviewProblem';
 
 /** A preview of the review sheet, and its exports through the host (PDF, calendar). */
@@ -32,7 +33,7 @@ export function SheetView() {
         <p className="caution"><strong>Caution.</strong> {cautionText}</p>
         <h3>Summary</h3>
         <ul>{iron.summary.map((item) => <li key={item.label}>{item.label}: {item.text}</li>)}</ul>
-        <ChartPlaceholder title="Liver iron over time with projection band" valuesWhere="on the Iron course and Regimens screens" />
+        <ChartFigure chart={licChartView(outcome.review)} id="sheet-lic-chart" />
         <h3>Regimens (what-if for the prescriber's review)</h3>
         <ul>{regimens.columns.map((column) => <li key={column.id}>{column.name}: {column.milestones.map((it) => `${it.months} months ${it.central} (${it.band})`).join('; ')}</li>)}</ul>
         <h3>Findings</h3>

@@ -1,0 +1,70 @@
+import { spawnSync } from 'node:child_process';
+import { mkdirSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
+import { chromium, type Browser, type Page } from 'playwright-core';
+import { serveFolder } from './staticServer';
+
+export const repoRoot = fileURLToPath(new URL('../..', import.meta.url));
+export const artifactsDir = fileURLToPath(new URL('./artifacts/', import.meta.url));
+
+/** Debian's Chromium with the flags this machine needs (stack-notes.md). */
+const chromiumFlags = ['--headless', '--no-sandbox', '--disable-gpu', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'];
+
+/** Build the renderer (the same command as `npm run build:renderer`), serve it, start Chromium. */
+export async function startWorkspace(): Promise<{ readonly url: string; readonly browser: Browser; readonly stop: () => Promise<void> }> {
+  const built = spawnSync('npx', ['vite', 'build', '--config', 'renderer/vite.config.ts'], { cwd: repoRoot, encoding: 'utf8' });
+  if (built.status !== 0) throw new Error(`the renderer build failed:\n${built.stdout}\n${built.stderr}`);
+  mkdirSync(artifactsDir, { recursive: true });
+  const server = await serveFolder(`${repoRoot}dist/renderer`);
+  const browser = await chromium.launch({ executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium', args: chromiumFlags });
+  return {
+    url: server.url,
+    browser,
+    stop: async () => {
+      await browser.close();
+      await server.close();
+    },
+  };
+}
+
+/**
+ * A user's actions, counted: a click, a key chord, a paste, or typing a value
+ * into a field counts as one (issue 15's rule for the 25-action review).
+ */
+export class CountedUser {
+  count = 0;
+  constructor(private readonly page: Page) {}
+
+  async click(selector: string): Promise<void> {
+    this.count += 1;
+    await this.page.locator(selector).first().click();
+  }
+
+  /** Typing one value into a field (focus by click is counted separately when needed). */
+  async type(selector: string, value: string): Promise<void> {
+    this.count += 1;
+    await this.page.locator(selector).first().fill(value);
+  }
+
+  async select(selector: string, value: string): Promise<void> {
+    this.count += 1;
+    await this.page.locator(selector).first().selectOption(value);
+  }
+
+  async press(chord: string): Promise<void> {
+    this.count += 1;
+    await this.page.keyboard.press(chord);
+  }
+
+  /** A paste of spreadsheet cells into the focused field (the clipboard as a spreadsheet fills it: tab-separated, CR LF). */
+  async paste(text: string): Promise<void> {
+    this.count += 1;
+    await this.page.evaluate((pasted) => {
+      const target = document.activeElement;
+      if (!target) throw new Error('nothing has the focus to paste into');
+      const data = new DataTransfer();
+      data.setData('text/plain', pasted);
+      target.dispatchEvent(new ClipboardEvent('paste', { clipboardData: data, bubbles: true, cancelable: true }));
+    }, text);
+  }
+}

@@ -1,0 +1,254 @@
+// End-to-end: the built renderer in Chromium, served on loopback with the
+// in-page host (app/preview is not on main yet; the page then keeps its cases
+// in localStorage, which is what "reload and reopen" exercises).
+import { readFileSync } from 'node:fs';
+import { AxeBuilder } from '@axe-core/playwright';
+import type { Browser, BrowserContext, Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { memoryHostStorageKey } from '../../renderer/fakeHost/memoryHost';
+import { artifactsDir, CountedUser, repoRoot, startWorkspace } from './browser';
+
+const demo = JSON.parse(readFileSync(`${repoRoot}assets/demo/th-0417.json`, 'utf8')) as {
+  transfusions: { date: string }[];
+  results: { date: string }[];
+  proposedRegimens: unknown[];
+} & Record<string, unknown>;
+
+/**
+ * Scenario 1 (scenarios.md §1) as it stood before this quarter's review:
+ * the invented TH-0417 without the three latest transfusions, the November
+ * ferritin, liver iron and cardiac T2*, and without the proposed regimens.
+ */
+function lastQuarterCase() {
+  const latestTransfusions = demo.transfusions.map((it) => it.date).sort().slice(-3);
+  return {
+    ...demo,
+    transfusions: demo.transfusions.filter((it) => !latestTransfusions.includes(it.date)),
+    results: demo.results.filter((it) => it.date < '2026-11-01'),
+    proposedRegimens: [],
+  };
+}
+
+const seedStorage = (cases: Record<string, unknown>) =>
+  JSON.stringify({ cases: Object.fromEntries(Object.entries(cases).map(([id, document]) => [id, { document, revision: 1, archived: false }])), settings: { version: 1, units: 'si', paper: 'a4', localFormulary: null, assumptionDefaults: {}, thresholdDefaults: {} }, exports: [] });
+
+let workspace: Awaited<ReturnType<typeof startWorkspace>>;
+let browser: Browser;
+
+beforeAll(async () => {
+  workspace = await startWorkspace();
+  browser = workspace.browser;
+}, 120_000);
+
+afterAll(async () => {
+  await workspace?.stop();
+});
+
+async function openPage(seed?: Record<string, unknown>, options: { bypassCSP?: boolean } = {}): Promise<{ context: BrowserContext; page: Page; errors: string[] }> {
+  const context = await browser.newContext({ viewport: { width: 1400, height: 900 }, bypassCSP: options.bypassCSP ?? false });
+  if (seed) {
+    await context.addInitScript(([key, value]) => {
+      if (!sessionStorage.getItem('seeded')) {
+        localStorage.setItem(key, value);
+        sessionStorage.setItem('seeded', '1');
+      }
+    }, [memoryHostStorageKey, seedStorage(seed)] as const);
+  }
+  const page = await context.newPage();
+  const errors: string[] = [];
+  page.on('pageerror', (error) => errors.push(error.message));
+  page.on('console', (message) => {
+    if (message.type() === 'error') errors.push(message.text());
+  });
+  await page.goto(workspace.url);
+  await page.locator('table.cases').waitFor();
+  await expect.poll(() => page.locator('main p').first().textContent()).toMatch(/case/);
+  return { context, page, errors };
+}
+
+const savedState = (page: Page) => page.locator('.save-state');
+
+describe('the scenario-1 quarterly review', () => {
+  it('opens TH-0417, adds three transfusions, the new liver iron and ferritin, compares two regimens, reads the findings and exports the sheet in at most 25 actions', async () => {
+    const { context, page, errors } = await openPage({ 'th-0417.json': lastQuarterCase() });
+    const user = new CountedUser(page);
+
+    await user.click('button[aria-label="Open TH-0417"]');
+    await expect.poll(() => page.locator('h1').textContent()).toBe('Record');
+
+    // Three transfusions pasted from the unit's spreadsheet (date, kind, volume, unit haematocrit, units).
+    await user.click('button:has-text("Add a row to transfusions")');
+    await user.paste('2026-09-22\tsimple\t575\t0.61\t2\r\n2026-10-13\tsimple\t540\t0.57\t2\r\n2026-11-03\tsimple\t540\t0.62\t2\r\n');
+    // The new liver iron and ferritin, pasted the same way (date, result, method, value, unit, field strength, calibration).
+    await user.click('button:has-text("Add a row to results")');
+    await user.paste('2026-11-17\tliver iron\tmri\t11.4\tmg/g dry weight\t1.5\thernando-1.5t\r\n2026-11-10\tferritin\t\t2900\tµg/L\r\n');
+    await expect.poll(() => savedState(page).textContent()).toBe('All changes saved');
+
+    await user.click('nav button:has-text("Iron course")');
+    await expect(page.locator('.summary').textContent()).resolves.toContain('11.4 mg/g dry weight on 2026-11-17');
+
+    // Two what-ifs: deferasirox 28 mg/kg/day; the same with deferoxamine 40 mg/kg on 5 nights.
+    await user.click('nav button:has-text("Regimens")');
+    await user.type('input[aria-label="Dose per administration, what-if drug 1"]', '28');
+    await user.click('button:has-text("Add this what-if")');
+    await user.click('button:has-text("Add the second drug")');
+    await user.type('input[aria-label="Dose per administration, what-if drug 2"]', '40');
+    await user.type('input[aria-label="Days a week, what-if drug 2"]', '5');
+    await user.click('button:has-text("Add this what-if")');
+    await expect.poll(() => page.locator('.side-by-side thead th').count()).toBe(4);
+    await expect.poll(() => savedState(page).textContent()).toBe('All changes saved');
+    const header = await page.locator('.side-by-side thead').textContent();
+    expect(header).toContain('What-if: deferasirox 28 mg/kg');
+    expect(header).toContain('deferasirox 28 mg/kg with deferoxamine 40 mg/kg on 5 days a week');
+    // Each column shows the projected LIC at 6, 12 and 24 months with its band, and the crossings of 7.
+    expect(await page.locator('.side-by-side tbody tr').nth(3).locator('td').count()).toBe(3);
+    expect(await page.locator('.side-by-side').textContent()).toMatch(/falls below 7 at month \d+/);
+
+    await user.click('nav button:has-text("Findings")');
+    expect(await page.locator('article.finding').count()).toBeGreaterThan(0);
+
+    await user.click('nav button:has-text("Sheet")');
+    await user.click('button:has-text("Export the sheet as PDF")');
+    await expect.poll(() => page.locator('.toolbar [role="status"]').textContent()).toMatch(/Review sheet written to in-page\/th-0417-2026-11-20\.pdf/);
+
+    expect(user.count).toBeLessThanOrEqual(25);
+    console.log(`scenario-1 quarterly review: ${user.count} user actions`);
+    expect(errors).toEqual([]);
+    await context.close();
+  }, 120_000);
+});
+
+describe('a new case from the keyboard', () => {
+  it('is created, takes transfusions typed and pasted, a liver iron result and a regimen, updates the iron course and the findings, takes a what-if, exports, and reopens after a reload', async () => {
+    const { context, page, errors } = await openPage({});
+    await page.fill('label:has-text("Label") input', 'ZZ-0001');
+    await page.fill('label:has-text("Birth date") input', '2012-03-01');
+    await page.fill('label:has-text("Weight, kg") input', '41');
+    await page.fill('label:has-text("Weighed on") input', '2025-01-10');
+    await page.click('button:has-text("Create the case")');
+    await expect.poll(() => page.locator('.case-label').textContent()).toBe('ZZ-0001');
+
+    // Keyboard entry: Tab along the row, Enter for the next row in the same column.
+    await page.click('button:has-text("Add a row to transfusions")');
+    await page.keyboard.type('2025-01-14');
+    await page.keyboard.press('Tab'); // kind: simple (a select; left as it is)
+    await page.keyboard.press('Tab');
+    await page.keyboard.type('560');
+    await page.keyboard.press('Tab');
+    await page.keyboard.type('0.6');
+    await page.keyboard.press('Tab');
+    await page.keyboard.type('2');
+    await expect.poll(() => page.locator('input[aria-label="Units, row 1"]').inputValue()).toBe('2');
+    // A paste below it.
+    await page.click('button:has-text("Add a row to transfusions")');
+    await page.evaluate(() => {
+      const data = new DataTransfer();
+      data.setData('text/plain', '2025-02-04\tsimple\t550\t0.6\t2\n2025-02-25\tsimple\t560\t0.6\t2\n');
+      document.activeElement!.dispatchEvent(new ClipboardEvent('paste', { clipboardData: data, bubbles: true, cancelable: true }));
+    });
+    await expect.poll(() => page.locator('.record-table').first().locator('tbody tr').count()).toBe(3);
+    // A bad value is kept as typed and explained beside the field; Ctrl+Z takes it back.
+    await page.fill('input[aria-label="Unit haematocrit, row 2"]', '60');
+    await expect.poll(() => page.locator('.field-message.error').first().textContent()).toContain('enter it as a fraction (0.60)');
+    expect(await page.locator('input[aria-label="Unit haematocrit, row 2"]').inputValue()).toBe('60');
+    await expect.poll(() => savedState(page).textContent()).toContain('Not saved');
+    await page.locator('body').click({ position: { x: 5, y: 300 } });
+    await page.keyboard.press('Control+z');
+    await expect.poll(() => page.locator('input[aria-label="Unit haematocrit, row 2"]').inputValue()).toBe('0.6');
+
+    // Liver iron and a chelation period.
+    await page.click('button:has-text("Add a row to results")');
+    await page.evaluate(() => {
+      const data = new DataTransfer();
+      data.setData('text/plain', '2025-01-10\tliver iron\tbiopsy\t8.2\tmg/g dry weight\n2025-12-16\tliver iron\tbiopsy\t7.1\tmg/g dry weight\n');
+      document.activeElement!.dispatchEvent(new ClipboardEvent('paste', { clipboardData: data, bubbles: true, cancelable: true }));
+    });
+    await page.click('button:has-text("Add a row to chelation periods")');
+    await page.selectOption('select[aria-label="Drug, row 1"]', 'deferasirox');
+    await page.selectOption('select[aria-label="Formulation, row 1"]', 'film-coated-tablet');
+    await page.fill('input[aria-label="Dose per administration, row 1"]', '21');
+    await page.fill('input[aria-label="Start, row 1"]', '2025-01-10');
+    await expect.poll(() => savedState(page).textContent()).toBe('All changes saved');
+
+    await page.click('nav button:has-text("Iron course")');
+    const summary = await page.locator('.summary').textContent();
+    expect(summary).toContain('7.1 mg/g dry weight on 2025-12-16');
+    expect(summary).toContain('Expected removal, deferasirox');
+    expect(await page.locator('.chart-image').count()).toBe(2);
+    // Focusing a number shows its derivation from core.
+    await page.locator('.summary button.explained').first().focus();
+    await expect.poll(() => page.locator('.explain-panel .derivation').count()).toBeGreaterThan(0);
+
+    await page.click('nav button:has-text("Findings")');
+    await page.click('nav button:has-text("Regimens")');
+    await page.fill('input[aria-label="Dose per administration, what-if drug 1"]', '28');
+    await page.click('button:has-text("Add this what-if")');
+    await expect.poll(() => page.locator('.side-by-side thead th').count()).toBe(3);
+    await expect.poll(() => savedState(page).textContent()).toBe('All changes saved');
+    await page.click('nav button:has-text("Sheet")');
+    await page.click('button:has-text("Export the monitoring calendar")');
+    await expect.poll(() => page.locator('.toolbar [role="status"]').textContent()).toContain('Monitoring calendar written to');
+
+    await page.reload();
+    await page.locator('button[aria-label="Open ZZ-0001"]').click();
+    expect(await page.locator('.record-table').first().locator('tbody tr').count()).toBe(3);
+    await page.click('nav button:has-text("Regimens")');
+    expect(await page.locator('.side-by-side thead th').count()).toBe(3);
+    expect(errors).toEqual([]);
+    await context.close();
+  }, 120_000);
+});
+
+describe('accessibility of every screen', () => {
+  const screens = ['Cases', 'Record', 'Iron course', 'Regimens', 'Findings', 'Sheet', 'Assumptions'] as const;
+
+  it('has no serious or critical axe-core violations (WCAG 2.0–2.2 A and AA rules, contrast included), and a screenshot of each screen is saved', async () => {
+    // axe is injected into the page, which the page's Content-Security-Policy would refuse.
+    const { context, page } = await openPage({ 'th-0417.json': demo }, { bypassCSP: true });
+    const problems: string[] = [];
+    for (const screen of screens) {
+      if (screen !== 'Cases') {
+        if (screen === 'Record') await page.click('button[aria-label="Open TH-0417"]');
+        else await page.click(`nav button:has-text("${screen}")`);
+      }
+      await expect.poll(() => page.locator('h1').textContent()).toBe(screen);
+      await page.screenshot({ path: `${artifactsDir}${screen.toLowerCase().replace(/ /g, '-')}.png`, fullPage: false });
+      const results = await new AxeBuilder({ page }).options({ resultTypes: ['violations'] }).withTags(['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa', 'wcag22aa']).analyze();
+      for (const violation of results.violations.filter((it) => it.impact === 'serious' || it.impact === 'critical')) {
+        problems.push(`${screen}: ${violation.id} (${violation.impact}) — ${violation.nodes.slice(0, 3).map((node) => node.target.join(' ')).join('; ')}`);
+      }
+    }
+    await page.click('button:has-text("About")');
+    await page.screenshot({ path: `${artifactsDir}about.png` });
+    const about = await new AxeBuilder({ page }).options({ resultTypes: ['violations'] }).withTags(['wcag2a', 'wcag2aa', 'wcag21aa']).analyze();
+    problems.push(...about.violations.filter((it) => it.impact === 'serious' || it.impact === 'critical').map((it) => `About: ${it.id}`));
+    expect(problems).toEqual([]);
+    await context.close();
+  }, 180_000);
+
+  it('can be used from the keyboard alone, with a visible focus and the caution line on every screen', async () => {
+    const { context, page } = await openPage({ 'th-0417.json': demo });
+    // Tab from the top of the page reaches the case's Open button.
+    let reached = false;
+    for (let step = 0; step < 30 && !reached; step += 1) {
+      await page.keyboard.press('Tab');
+      reached = (await page.evaluate(() => document.activeElement?.getAttribute('aria-label'))) === 'Open TH-0417';
+      const outline = await page.evaluate(() => {
+        const focused = document.activeElement as HTMLElement | null;
+        return focused && focused !== document.body ? getComputedStyle(focused).outlineStyle : 'n/a';
+      });
+      expect(outline === 'n/a' || outline !== 'none').toBe(true);
+    }
+    expect(reached).toBe(true);
+    await page.keyboard.press('Enter');
+    await expect.poll(() => page.locator('h1').textContent()).toBe('Record');
+    // Every screen from the navigation, by keyboard: focus a screen's button, Enter.
+    for (const screen of ['Iron course', 'Regimens', 'Findings', 'Sheet', 'Assumptions', 'Cases']) {
+      await page.locator(`nav button:has-text("${screen}")`).focus();
+      await page.keyboard.press('Enter');
+      await expect.poll(() => page.locator('h1').textContent()).toBe(screen);
+      expect(await page.locator('.caution').first().textContent()).toContain('for review by the prescriber');
+    }
+    await context.close();
+  }, 120_000);
+});
