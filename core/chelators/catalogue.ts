@@ -121,8 +121,9 @@ export const chelatorCatalogue = [
     formulation: 'powder-for-injection',
     routes: ['subcutaneous', 'intravenous', 'intramuscular'],
     dose: {
-      // 20–60 mg/kg/day SC over 8–12 h, 5–7 days a week; at most 40 mg/kg/day while growing;
-      // IV at most 15 mg/kg/h: deferoxamine label; Brittenham, N Engl J Med 2011;364:146 (references.md §3, confirmed).
+      // 20–60 mg/kg/day SC over 8–12 h, 5–7 days a week; at most 40 mg/kg/day in children and 60 in adults;
+      // IV at most 15 mg/kg/h: US deferoxamine labels 2023/2025 §2 (references.md §9, confirmed); Brittenham,
+      // N Engl J Med 2011;364:146 gives the same range.
       usualMgPerKgPerDay: null,
       minMgPerKgPerDay: 20,
       maxMgPerKgPerDay: 60,
@@ -134,7 +135,7 @@ export const chelatorCatalogue = [
       infusionHoursMax: 12,
       growingMaxMgPerKgPerDay: 40,
       intravenousMaxMgPerKgPerHour: 15,
-      sourceIds: ['deferoxamine-label'],
+      sourceIds: ['deferoxamine-label', 'brittenham-2011'],
       status: 'confirmed',
     },
     efficiencyAssumptionId: 'efficiency-deferoxamine',

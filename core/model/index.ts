@@ -26,3 +26,4 @@ export { latestWeightOnOrBefore } from './latestWeight';
 export { periodsActiveOn, type DatedPeriod } from './periodsActiveOn';
 export { periodsOverlapping } from './periodsOverlapping';
 export { resultsOfKindBetween } from './resultsOfKindBetween';
+export { continuousRunStart } from './continuousRunStart';

@@ -5,11 +5,20 @@ import { resultsOfKindBetween } from '../model/resultsOfKindBetween';
 import { earliestCaseDate } from '../model/caseDate';
 import { ageOnDate } from '../patient/ageOnDate';
 import { fail, issue, ok, type Result } from '../result';
-import { defaultAncIntervalDays, monitoringRules, type MonitoringInterval, type MonitoringItemId, type MonitoringRule } from './monitoringRules';
+import { creatinineMgPerDlFromUmolPerL } from '../units/concentration';
+import type { UmolPerL } from '../units/quantity';
+import { continuousRunStart } from '../model/continuousRunStart';
+import { deferiproneAncInterval } from './deferiproneAncSchedule';
+import { monitoringRules, weeklyThroughoutAncIntervalDays, type MonitoringInterval, type MonitoringItemId, type MonitoringRule } from './monitoringRules';
 
 export interface MonitoringOptions {
-  /** Days between ANC checks on deferiprone, 1–90; default 7 (weekly: older labels and the EU text). */
+  /**
+   * A local protocol's fixed interval of ANC checks on deferiprone, 1–90 days.
+   * Without it the 2025 US label's schedule by time on the drug applies.
+   */
   readonly ancIntervalDays?: number;
+  /** 'weekly-throughout' (the older texts) as a named local protocol: the same as ancIntervalDays 7. */
+  readonly ancSchedule?: 'label-2025' | 'weekly-throughout';
 }
 
 export type MonitoringStatus = 'overdue' | 'due-now' | 'upcoming';
@@ -95,10 +104,61 @@ function applicability(rule: MonitoringRule, theCase: Case, asOf: IsoDate, activ
   }
 }
 
-function ruleInterval(rule: MonitoringRule, asOf: IsoDate, active: readonly ChelationPeriod[], drugs: readonly ChelationPeriod['drug'][]): MonitoringInterval {
-  if (!rule.firstMonthInterval) return rule.interval;
-  const inFirstMonth = active.some((period) => drugs.includes(period.drug) && asOf < addMonthsIso(period.startDate, 1));
-  return inFirstMonth ? rule.firstMonthInterval : rule.interval;
+function inFirstMonthOfPeriod(asOf: IsoDate, active: readonly ChelationPeriod[], drugs: readonly ChelationPeriod['drug'][]): boolean {
+  return active.some((period) => drugs.includes(period.drug) && asOf < addMonthsIso(period.startDate, 1));
+}
+
+/** A renal risk factor recorded as present on the review date (the latest entry of each factor counts). */
+function renalRiskRecorded(theCase: Case, asOf: IsoDate): boolean {
+  const latestByFactor = new Map<string, string>();
+  for (const entry of [...theCase.clinicalState.renalRiskFactors].filter((it) => it.date <= asOf).sort((first, second) => (first.date < second.date ? -1 : 1))) {
+    latestByFactor.set(entry.factor, entry.status);
+  }
+  return [...latestByFactor.values()].includes('present');
+}
+
+/** Rise of creatinine over baseline above which the label asks for closer checks: 33 % (US label, references.md §4; secondary). */
+const creatinineRisePercent = 33;
+
+/**
+ * Whether creatinine is rising on deferasirox: the latest result more than
+ * 33 % above the baseline (the latest before the run began, or the first on
+ * the drug). The label asks for more frequent checks while it rises.
+ */
+function creatinineRising(theCase: Case, asOf: IsoDate): boolean {
+  const runStart = continuousRunStart(theCase.chelationPeriods, 'deferasirox', asOf);
+  if (runStart === null) return false;
+  const all = resultsOfKindBetween(theCase.results, 'creatinine', earliestCaseDate, asOf);
+  const mgPerDl = (entry: (typeof all)[number]) => (entry.measured.unit === 'mg/dL' ? entry.measured.value : creatinineMgPerDlFromUmolPerL(entry.measured.value as UmolPerL));
+  const baseline = all.filter((it) => it.date <= runStart).at(-1) ?? all.find((it) => it.date > runStart);
+  const latest = all.at(-1);
+  if (!baseline || !latest || latest === baseline) return false;
+  return (mgPerDl(latest) / mgPerDl(baseline) - 1) * 100 > creatinineRisePercent;
+}
+
+interface RuleInterval {
+  readonly interval: MonitoringInterval;
+  /** Why this interval, when it is not the rule's usual one. */
+  readonly why?: string;
+}
+
+function ruleInterval(rule: MonitoringRule, theCase: Case, asOf: IsoDate, active: readonly ChelationPeriod[], drugs: readonly ChelationPeriod['drug'][], localAncDays: number | undefined): RuleInterval {
+  if (rule.dynamic === 'deferiprone-anc') {
+    const runStart = continuousRunStart(theCase.chelationPeriods, 'deferiprone', asOf) ?? asOf;
+    const anc = deferiproneAncInterval(theCase, runStart, asOf, localAncDays);
+    return { interval: { days: anc.days }, why: anc.why };
+  }
+  if (rule.dynamic === 'deferasirox-creatinine') {
+    if (creatinineRising(theCase, asOf)) {
+      return { interval: { days: 7 }, why: `On deferasirox with the latest creatinine more than ${creatinineRisePercent} % above its baseline: weekly here, as the label asks for more frequent checks while creatinine rises (US label boxed warning).` };
+    }
+    if (inFirstMonthOfPeriod(asOf, active, drugs) && renalRiskRecorded(theCase, asOf)) {
+      return { interval: { days: 7 }, why: 'On deferasirox in the first month of a period with a renal risk factor recorded: serum creatinine weekly (US label boxed warning and §2.1).' };
+    }
+    return { interval: rule.interval };
+  }
+  if (rule.firstMonthInterval && inFirstMonthOfPeriod(asOf, active, drugs)) return { interval: rule.firstMonthInterval };
+  return { interval: rule.interval };
 }
 
 /**
@@ -116,7 +176,7 @@ function ruleInterval(rule: MonitoringRule, asOf: IsoDate, active: readonly Chel
  *
  * @param theCase - a parsed case (core/model); not changed
  * @param asOf - the review date 'YYYY-MM-DD' (1900–2100); results after it are ignored
- * @param options - ancIntervalDays 1–90 (default 7)
+ * @param options - a local protocol's fixed ANC interval, ancIntervalDays 1–90, or ancSchedule 'weekly-throughout' (default: the 2025 US label's schedule)
  * @returns the calendar, or an issue naming the field, the value and the range
  * @example monitoringCalendar(TH-0417, '2026-11-20') → creatinine: last 2026-09-29, due 2026-10-29, overdue by 22 days;
  *   hearing: none on record, due 2026-11-20 (due now)
@@ -125,8 +185,8 @@ export function monitoringCalendar(theCase: Case, asOf: IsoDate, options: Monito
   if (!isIsoDate(asOf) || asOf < earliestCaseDate) {
     return fail(issue('invalid_date', ['asOf'], `Review date "${asOf}" is not a calendar date; enter it as YYYY-MM-DD.`));
   }
-  const ancIntervalDays = options.ancIntervalDays ?? defaultAncIntervalDays;
-  if (!Number.isInteger(ancIntervalDays) || ancIntervalDays < ancIntervalRange.min || ancIntervalDays > ancIntervalRange.max) {
+  const ancIntervalDays = options.ancIntervalDays ?? (options.ancSchedule === 'weekly-throughout' ? weeklyThroughoutAncIntervalDays : undefined);
+  if (ancIntervalDays !== undefined && (!Number.isInteger(ancIntervalDays) || ancIntervalDays < ancIntervalRange.min || ancIntervalDays > ancIntervalRange.max)) {
     return fail(
       issue('out_of_range', ['ancIntervalDays'], `ANC interval ${ancIntervalDays} days is outside the plausible range ${ancIntervalRange.min}–${ancIntervalRange.max} whole days.`),
     );
@@ -134,14 +194,16 @@ export function monitoringCalendar(theCase: Case, asOf: IsoDate, options: Monito
   const active = periodsActiveOn(theCase.chelationPeriods, asOf);
   const items: MonitoringItem[] = [];
   const notApplicable: MonitoringSkipped[] = [];
-  for (const rule of monitoringRules(ancIntervalDays)) {
+  for (const rule of monitoringRules()) {
     const fit = applicability(rule, theCase, asOf, active);
     if (!fit.applies) {
       notApplicable.push({ id: rule.itemId, what: rule.what, reason: fit.reason });
       continue;
     }
-    const interval = ruleInterval(rule, asOf, active, fit.drugs);
-    const lastDate = rule.resultKind === null ? null : (resultsOfKindBetween(theCase.results, rule.resultKind, earliestCaseDate, asOf).at(-1)?.date ?? null);
+    const { interval, why: intervalWhy } = ruleInterval(rule, theCase, asOf, active, fit.drugs, ancIntervalDays);
+    // An examination recorded as not done does not count as done.
+    const done = rule.resultKind === null ? [] : resultsOfKindBetween(theCase.results, rule.resultKind, earliestCaseDate, asOf).filter((it) => !('outcome' in it) || it.outcome !== 'not-done');
+    const lastDate = done.at(-1)?.date ?? null;
     const dueDate = lastDate === null ? asOf : addInterval(lastDate, interval);
     const status: MonitoringStatus = dueDate < asOf ? 'overdue' : dueDate === asOf ? 'due-now' : 'upcoming';
     const perDrug = rule.byDrug ? fit.drugs.map((drug) => rule.byDrug![drug]).filter((it) => it !== undefined) : [];
@@ -149,7 +211,7 @@ export function monitoringCalendar(theCase: Case, asOf: IsoDate, options: Monito
       id: rule.itemId,
       ruleId: rule.id,
       what: rule.what,
-      why: perDrug.length > 0 ? perDrug.map((it) => it.why).join(' ') : rule.why,
+      why: intervalWhy ?? (perDrug.length > 0 ? perDrug.map((it) => it.why).join(' ') : rule.why),
       sourceIds: perDrug.length > 0 ? [...new Set(perDrug.flatMap((it) => it.sourceIds))] : rule.sourceIds,
       drugs: fit.drugs,
       interval,
@@ -169,8 +231,10 @@ export function monitoringCalendar(theCase: Case, asOf: IsoDate, options: Monito
     items,
     notApplicable,
     assumptions: [
-      'A check with no result on record is shown as due on the review date; the case file has no field for hearing or eye results, so those are always "none on record".',
-      `ANC on deferiprone every ${ancIntervalDays} days${ancIntervalDays === defaultAncIntervalDays ? ' (the default; the 2025 US label allows less frequent checks case by case)' : ''}.`,
+      'A check with no result on record is shown as due on the review date; a hearing or eye examination recorded as not done does not count as done.',
+      ancIntervalDays === undefined
+        ? 'ANC on deferiprone by time on the drug (US label, March 2025): weekly for 6 months, every 2 weeks for the next 6, then up to every 4 weeks; daily while the latest ANC is below 1.5 × 10⁹/L.'
+        : `ANC on deferiprone every ${ancIntervalDays} days by the local protocol (the label's schedule by time on the drug is replaced); daily while the latest ANC is below 1.5 × 10⁹/L.`,
       'Intervals run from the last result on record on or before the review date; a calendar month ends on the same day of the next month, or on its last day.',
     ],
   });

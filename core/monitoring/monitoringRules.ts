@@ -7,7 +7,7 @@ import type { ResultKind } from '../model/caseFile';
  * or days.
  */
 
-export const monitoringItemIds = ['creatinine', 'alt', 'neutrophils', 'ferritin', 'liver-iron', 'cardiac-t2star', 'hearing', 'eyes'] as const;
+export const monitoringItemIds = ['creatinine', 'alt', 'ast', 'bilirubin', 'neutrophils', 'ferritin', 'liver-iron', 'cardiac-t2star', 'hearing', 'eyes'] as const;
 export type MonitoringItemId = (typeof monitoringItemIds)[number];
 
 export type MonitoringInterval = { readonly months: number } | { readonly days: number };
@@ -25,8 +25,14 @@ export interface MonitoringRule {
   readonly itemId: MonitoringItemId;
   /** What is checked, in the trade's words. */
   readonly what: string;
-  /** The result kind in the case file that records it; null when the case model has none (hearing, eyes). */
+  /** The result kind in the case file that records it (version 2 records hearing and eyes as audiology and eye-examination results). */
   readonly resultKind: ResultKind | null;
+  /**
+   * An interval that depends on the case, computed by the calendar: the
+   * deferiprone ANC schedule by time on the drug, creatinine on deferasirox
+   * (weekly in the first month with renal risk, or while it is rising).
+   */
+  readonly dynamic?: 'deferiprone-anc' | 'deferasirox-creatinine';
   readonly condition: MonitoringCondition;
   readonly interval: MonitoringInterval;
   /**
@@ -44,28 +50,41 @@ export interface MonitoringRule {
   readonly byDrug?: Readonly<Partial<Record<'deferasirox' | 'deferiprone' | 'deferoxamine', { readonly why: string; readonly sourceIds: readonly string[] }>>>;
 }
 
-/** Default interval of ANC checks on deferiprone, days: weekly per older labels and the EU text; configurable (monitoring-deferiprone-anc). */
-export const defaultAncIntervalDays = 7;
+/** A local protocol's fixed ANC interval on deferiprone when one is chosen as "weekly throughout" (the older texts). */
+export const weeklyThroughoutAncIntervalDays = 7;
 
 /**
  * The rules. Intervals and sources:
- * - creatinine and ALT monthly on deferasirox, creatinine weekly and ALT every
- *   two weeks in the first month: deferasirox label (monitoring-deferasirox-label;
- *   secondary; the first-month frequencies from memory);
- * - ANC on deferiprone every `ancIntervalDays` (default 7): older labels and EU
- *   weekly; the 2025 US label allows less frequent checks case by case
- *   (monitoring-deferiprone-anc);
+ * - on deferasirox: AST, ALT and bilirubin every 2 weeks in the first month
+ *   of a period, then monthly (US label §5.2; references.md §9, confirmed);
+ *   creatinine monthly, weekly in the first month when renal risk factors are
+ *   recorded, and weekly while it is rising (US label boxed warning and §2.1;
+ *   confirmed) — computed by the calendar ('deferasirox-creatinine');
+ * - ANC on deferiprone by time on the drug (US label March 2025 §2.1, §5.1;
+ *   confirmed), or a local protocol's fixed interval — computed by the
+ *   calendar ('deferiprone-anc', deferiproneAncSchedule.ts);
  * - ferritin every 3 months: common practice (monitoring-ferritin-quarterly);
  * - liver iron by MRI yearly; cardiac T2* yearly in thalassaemia major from
  *   10 years: guideline literature, secondary (monitoring-mri-yearly);
- * - hearing and eyes yearly on deferoxamine (label, confirmed per
- *   references.md §4) and on deferasirox (label; secondary, from memory).
+ * - hearing and eyes yearly on deferoxamine (label, confirmed) and on
+ *   deferasirox (label; secondary, from memory), read from the audiology and
+ *   eye-examination results.
  *
- * @param ancIntervalDays - days between ANC checks on deferiprone, 1–90 (validated by the calendar)
  * @returns the rules, in the order the calendar lists items due on the same date
- * @example monitoringRules(7).find((it) => it.itemId === 'neutrophils')?.interval → { days: 7 }
+ * @example monitoringRules().find((it) => it.itemId === 'alt')?.firstMonthInterval → { days: 14 }
  */
-export function monitoringRules(ancIntervalDays: number): readonly MonitoringRule[] {
+export function monitoringRules(): readonly MonitoringRule[] {
+  const liverTest = (itemId: 'alt' | 'ast' | 'bilirubin', what: string): MonitoringRule => ({
+    id: `${itemId}-on-deferasirox`,
+    itemId,
+    what,
+    resultKind: itemId,
+    condition: { kind: 'on-drug', drugs: ['deferasirox'] },
+    interval: { months: 1 },
+    firstMonthInterval: { days: 14 },
+    why: `On deferasirox: ${what} every 2 weeks during the first month of a period, then at least monthly (US label §5.2).`,
+    sourceIds: ['deferasirox-label-us-hepatic'],
+  });
   return [
     {
       id: 'creatinine-on-deferasirox',
@@ -74,29 +93,22 @@ export function monitoringRules(ancIntervalDays: number): readonly MonitoringRul
       resultKind: 'creatinine',
       condition: { kind: 'on-drug', drugs: ['deferasirox'] },
       interval: { months: 1 },
-      firstMonthInterval: { days: 7 },
-      why: 'On deferasirox: serum creatinine monthly, weekly in the first month of a new period or a new dose (deferasirox label; secondary, first-month frequency from memory).',
-      sourceIds: ['monitoring-deferasirox-label'],
+      dynamic: 'deferasirox-creatinine',
+      why: 'On deferasirox: serum creatinine at least monthly; weekly in the first month when there is renal risk, and more often while it rises (US label boxed warning and §2.1).',
+      sourceIds: ['monitoring-deferasirox-label', 'deferasirox-label-renal'],
     },
-    {
-      id: 'alt-on-deferasirox',
-      itemId: 'alt',
-      what: 'ALT (liver transaminases)',
-      resultKind: 'alt',
-      condition: { kind: 'on-drug', drugs: ['deferasirox'] },
-      interval: { months: 1 },
-      firstMonthInterval: { days: 14 },
-      why: 'On deferasirox: ALT monthly, every two weeks in the first month of a new period or a new dose (deferasirox label; secondary, first-month frequency from memory).',
-      sourceIds: ['monitoring-deferasirox-label'],
-    },
+    liverTest('alt', 'ALT (liver transaminases)'),
+    liverTest('ast', 'AST'),
+    liverTest('bilirubin', 'serum bilirubin'),
     {
       id: 'anc-on-deferiprone',
       itemId: 'neutrophils',
       what: 'absolute neutrophil count (ANC)',
       resultKind: 'neutrophils',
       condition: { kind: 'on-drug', drugs: ['deferiprone'] },
-      interval: { days: ancIntervalDays },
-      why: `On deferiprone: ANC every ${ancIntervalDays} days (${ancIntervalDays === defaultAncIntervalDays ? 'the default: weekly per older labels and the EU text' : 'interval set for this review'}; the 2025 US label allows less frequent checks case by case; secondary).`,
+      interval: { days: 7 },
+      dynamic: 'deferiprone-anc',
+      why: 'On deferiprone: ANC by time on the drug (US label 2025 §2.1, §5.1).',
       sourceIds: ['monitoring-deferiprone-anc'],
     },
     {
@@ -133,7 +145,7 @@ export function monitoringRules(ancIntervalDays: number): readonly MonitoringRul
       id: 'hearing-yearly',
       itemId: 'hearing',
       what: 'hearing (audiometry)',
-      resultKind: null,
+      resultKind: 'audiology',
       condition: { kind: 'on-drug', drugs: ['deferoxamine', 'deferasirox'] },
       interval: { months: 12 },
       why: 'On deferoxamine: hearing yearly (label; confirmed). On deferasirox: auditory testing yearly (label; secondary, from memory).',
@@ -147,7 +159,7 @@ export function monitoringRules(ancIntervalDays: number): readonly MonitoringRul
       id: 'eyes-yearly',
       itemId: 'eyes',
       what: 'eye examination (ophthalmology)',
-      resultKind: null,
+      resultKind: 'eye-examination',
       condition: { kind: 'on-drug', drugs: ['deferoxamine', 'deferasirox'] },
       interval: { months: 12 },
       why: 'On deferoxamine: eye examination yearly (label; confirmed). On deferasirox: ophthalmic testing yearly (label; secondary, from memory).',

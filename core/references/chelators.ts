@@ -32,12 +32,13 @@ export const chelatorsSources = [
   },
   {
     id: 'deferoxamine-label',
-    authors: 'Marketing authorisation holder; Brittenham GM',
-    title: 'Deferoxamine mesylate prescribing information; Iron-chelating therapy for transfusional iron overload (Brittenham)',
-    publication: 'product label (US); N Engl J Med 2011;364:146-156',
-    year: 2011,
+    authors: 'Marketing authorisation holder',
+    title: 'Deferoxamine mesylate for injection, prescribing information (US)',
+    publication: 'US product labels (2023 and 2025 revisions)',
+    year: 2025,
+    locator: '§2 dosage and administration, §3 dosage forms, §11 description',
     status: 'confirmed',
-    note: 'Doses stated as the mesylate: 20–60 mg/kg/day by subcutaneous infusion over 8–12 hours, 5–7 days a week; at most 40 mg/kg/day while growing; intravenous at most 15 mg/kg/h (references.md §3). A drug handbook page (AHFS, Handbook on Injectable Drugs) repeats the 8–12 h and 15 mg/kg/h and states 500 mg of the mesylate ≈ 426.82 mg of base.',
+    note: 'Read again for references.md §9. Doses stated as the mesylate: 20–60 mg/kg/day by subcutaneous infusion over 8–12 hours, 5–7 days a week; at most 40 mg/kg/day in children and 60 mg/kg/day in adults; usual starting doses by ferritin: below 2,000 µg/L about 25, 2,000–3,000 about 35, higher up to 55 mg/kg/day; intravenous at most 15 mg/kg/h (read in the acute section). Vials 500 mg (426.82 mg base) and 2 g. Brittenham 2011 is cited separately (brittenham-2011).',
   },
   {
     id: 'deferoxamine-aluminium-memory',

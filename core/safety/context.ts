@@ -6,6 +6,7 @@ import type { Case, ChelationPeriod, CoMedication, HeightEntry, ResultEntry, Res
 import { periodsActiveOn } from '../model/periodsActiveOn';
 import { sortedByDate } from '../model/sortedByDate';
 import { ageOnDate } from '../patient/ageOnDate';
+import { monitoringCalendar, type MonitoringCalendar } from '../monitoring/monitoringCalendar';
 import { applyThreshold, type AppliedThreshold, type FixedThresholdId, type ThresholdOverrides } from '../thresholds';
 
 /** A chelation period running on the review date, with its dose per kg per dosing day. */
@@ -44,6 +45,26 @@ export interface SafetyContext {
   /** Latest height on or before a date. */
   heightOn(date: IsoDate): HeightEntry | undefined;
   threshold(id: FixedThresholdId | string): AppliedThreshold;
+  /**
+   * The monitoring calendar on the review date (core/monitoring), with the
+   * local protocol's ANC interval when 'deferiprone-anc-interval' is
+   * overridden: findings about what is due read it, so they and the calendar
+   * never disagree.
+   */
+  readonly monitoring: MonitoringCalendar;
+  /** The latest Child-Pugh class recorded on or before the review date, with its entry. */
+  readonly childPugh: { readonly childPughClass: 'A' | 'B' | 'C'; readonly date: IsoDate; readonly ref: string } | null;
+  /** Cardiac failure as last recorded on or before the review date: 'present', 'absent', or null when not recorded. */
+  readonly cardiacFailure: { readonly status: 'present' | 'absent'; readonly date: IsoDate; readonly ref: string } | null;
+}
+
+/** The latest dated entry of a list on or before a date, with its index. */
+function latestOnOrBefore<Entry extends { readonly date: IsoDate }>(entries: readonly Entry[], asOf: IsoDate): { entry: Entry; index: number } | null {
+  let found: { entry: Entry; index: number } | null = null;
+  entries.forEach((entry, index) => {
+    if (entry.date <= asOf && (found === null || entry.date >= found.entry.date)) found = { entry, index };
+  });
+  return found;
 }
 
 /**
@@ -78,10 +99,19 @@ export function safetyContext(caseFile: Case, results: CaseResults, asOf: IsoDat
   const indexed = caseFile.results.map((entry, index) => ({ entry, ref: `results[${index}] ${entry.date}`, date: entry.date }));
   const sorted = sortedByDate(indexed).filter((it) => it.date <= asOf);
   const ageOn = (date: IsoDate): number | null => ageOnDate(caseFile.patient.age, date);
+  const ancOverride = overrides['deferiprone-anc-interval'];
+  const calendar = monitoringCalendar(caseFile, asOf, ancOverride ? { ancIntervalDays: Math.min(90, Math.max(1, Math.round(ancOverride.value))) } : {});
+  // The review date and a checked override are valid inputs of the calendar: a failure here is a bug.
+  if (!calendar.ok) throw new Error(`Monitoring calendar refused a checked review: ${calendar.issues.map((it) => it.message).join(' ')}`);
+  const childPugh = latestOnOrBefore(caseFile.clinicalState.hepaticImpairment, asOf);
+  const cardiacFailure = latestOnOrBefore(caseFile.clinicalState.cardiacFailure, asOf);
   return {
     caseFile,
     results,
     asOf,
+    monitoring: calendar.value,
+    childPugh: childPugh ? { childPughClass: childPugh.entry.childPughClass, date: childPugh.entry.date, ref: `clinicalState.hepaticImpairment[${childPugh.index}] ${childPugh.entry.id}` } : null,
+    cardiacFailure: cardiacFailure ? { status: cardiacFailure.entry.status, date: cardiacFailure.entry.date, ref: `clinicalState.cardiacFailure[${cardiacFailure.index}] ${cardiacFailure.entry.id}` } : null,
     ageYears: ageOn(asOf),
     weightKg: results.patient.weightKg,
     active,

@@ -7,4 +7,4 @@ export * from '../thresholds';
 export type { SafetyRule } from './rule';
 export { safetyRules } from './rules';
 export { evaluateFindings } from './evaluateFindings';
-export { continuousRunStart } from './continuousRunStart';
+export { continuousRunStart } from '../model/continuousRunStart';

@@ -51,10 +51,10 @@ const fixedThresholds = [
   { id: 'deferasirox-crcl-lower', label: 'deferasirox creatinine clearance threshold (EU, from memory)', value: 60, unit: 'mL/min', sourceIds: ['deferasirox-eu-crcl-memory'], overrideMin: 10, overrideMax: 120 },
   // US deferasirox label: creatinine more than 33 % above baseline on two consecutive results (references.md §4, secondary).
   { id: 'deferasirox-creatinine-rise', label: 'creatinine rise over baseline on deferasirox', value: 33, unit: '%', sourceIds: ['deferasirox-label-renal', 'deferasirox-creatinine-baseline'], overrideMin: 5, overrideMax: 200 },
-  // ALT upper limit of normal: an assumption (laboratories differ), from memory.
-  { id: 'alt-upper-limit-of-normal', label: 'ALT upper limit of normal (assumed)', value: 40, unit: 'U/L', sourceIds: ['alt-uln-memory'], overrideMin: 10, overrideMax: 100 },
-  // 5 × ULN: a common grading cut-off, from memory.
-  { id: 'alt-multiple-of-uln', label: 'ALT review threshold, multiple of the upper limit of normal', value: 5, unit: '1', sourceIds: ['alt-uln-memory'], overrideMin: 1, overrideMax: 20 },
+  // Transaminase upper limit of normal when the result carries no laboratory range: an assumption (laboratories differ), from memory.
+  { id: 'alt-upper-limit-of-normal', label: 'transaminase upper limit of normal when the laboratory gives none (assumed)', value: 40, unit: 'U/L', sourceIds: ['alt-uln-memory'], overrideMin: 10, overrideMax: 100 },
+  // 5 × ULN is a study protocol's cut-off, not a label value (references.md §9): a local-protocol option only.
+  { id: 'alt-multiple-of-uln', label: 'local-protocol multiple of the upper limit of normal (a study protocol’s cut-off; the labels give none)', value: 5, unit: '1', sourceIds: ['alt-uln-memory', 'deferasirox-label-us-hepatic'], overrideMin: 1, overrideMax: 20 },
   // Ferritin consistently below 500 µg/L on deferasirox or deferiprone (labels, references.md §4, secondary).
   { id: 'ferritin-low', label: 'low ferritin on deferasirox or deferiprone', value: 500, unit: 'ug/L', sourceIds: ['low-iron-interruption-labels'], overrideMin: 50, overrideMax: 2000 },
   // LIC below 3 mg/g dry (US deferasirox label; LIC bands of Olivieri & Brittenham 1997 put 3–7 as the target).
@@ -63,8 +63,9 @@ const fixedThresholds = [
   { id: 'deferiprone-anc-neutropenia', label: 'deferiprone ANC interruption threshold (neutropenia below)', value: 1.5, unit: '10*9/L', sourceIds: ['deferiprone-label-us-2025'], overrideMin: 0.5, overrideMax: 3 },
   { id: 'deferiprone-anc-severe', label: 'severe neutropenia below', value: 0.5, unit: '10*9/L', sourceIds: ['deferiprone-label-us-2025'], overrideMin: 0.1, overrideMax: 1.5 },
   { id: 'deferiprone-anc-agranulocytosis', label: 'agranulocytosis below (US label 2025; older and EU texts 0.5)', value: 0.2, unit: '10*9/L', sourceIds: ['deferiprone-label-us-2025'], overrideMin: 0.05, overrideMax: 0.5 },
-  // Older labels: weekly ANC; the 2025 US label says "regularly" (references.md §4).
-  { id: 'deferiprone-anc-interval', label: 'days since the last ANC on deferiprone', value: 7, unit: 'd', sourceIds: ['deferiprone-label-us-2025'], overrideMin: 1, overrideMax: 92 },
+  // A local protocol's fixed ANC interval on deferiprone ("weekly throughout", the older texts). Not applied unless
+  // overridden: by default the 2025 US label's schedule by time on the drug applies (core/monitoring, references.md §9).
+  { id: 'deferiprone-anc-interval', label: 'local-protocol fixed interval of ANC checks on deferiprone (weekly throughout in the older texts)', value: 7, unit: 'd', sourceIds: ['deferiprone-label-us-2025-anc-schedule'], overrideMin: 1, overrideMax: 92 },
   // Deferasirox: creatinine (and ALT) monthly (references.md §4); a calendar month is at most 31 days.
   { id: 'deferasirox-monthly-test-interval', label: 'days since the last creatinine or ALT on deferasirox', value: 31, unit: 'd', sourceIds: ['deferasirox-label-renal'], overrideMin: 7, overrideMax: 184 },
   // Liver iron about yearly on chelation (from memory).
@@ -82,7 +83,13 @@ const fixedThresholds = [
   // Ascorbic acid with deferoxamine: about 2–3 mg/kg/day, at most 200 mg/day (references.md §3, secondary).
   { id: 'ascorbic-acid-usual-low', label: 'ascorbic acid usual dose, lower end', value: 2, unit: 'mg/kg/d', sourceIds: ['ascorbic-acid-deferoxamine'], overrideMin: 0.5, overrideMax: 10 },
   { id: 'ascorbic-acid-usual-high', label: 'ascorbic acid usual dose, upper end', value: 3, unit: 'mg/kg/d', sourceIds: ['ascorbic-acid-deferoxamine'], overrideMin: 1, overrideMax: 10 },
-  { id: 'ascorbic-acid-daily-cap', label: 'ascorbic acid daily cap', value: 200, unit: 'mg/d', sourceIds: ['ascorbic-acid-deferoxamine'], overrideMin: 25, overrideMax: 1000 },
+  { id: 'ascorbic-acid-daily-cap', label: 'ascorbic acid daily cap, adults', value: 200, unit: 'mg/d', sourceIds: ['ascorbic-acid-deferoxamine', 'deferoxamine-label-interactions'], overrideMin: 25, overrideMax: 1000 },
+  // Older US deferoxamine label, vitamin C: about 50 mg/day under 10 years, 100 mg/day in older children (references.md §9, confirmed).
+  { id: 'ascorbic-acid-daily-cap-under-10', label: 'ascorbic acid daily amount, children under 10 years', value: 50, unit: 'mg/d', sourceIds: ['ascorbic-acid-deferoxamine', 'deferoxamine-label-interactions'], overrideMin: 10, overrideMax: 500 },
+  { id: 'ascorbic-acid-daily-cap-older-child', label: 'ascorbic acid daily amount, older children', value: 100, unit: 'mg/d', sourceIds: ['ascorbic-acid-deferoxamine', 'deferoxamine-label-interactions'], overrideMin: 10, overrideMax: 500 },
+  // A daily dose more than this multiple of the labelled daily maximum is urgent: likely a daily dose typed per
+  // administration (75 mg/kg three times a day). A modelling choice of ours (dose-far-above-maximum-choice).
+  { id: 'dose-far-above-maximum-multiple', label: 'multiple of the labelled daily maximum above which a dose is urgent', value: 1.5, unit: '1', sourceIds: ['dose-far-above-maximum-choice'], overrideMin: 1.05, overrideMax: 5 },
 ] as const satisfies readonly Threshold[];
 
 /** Dose-range thresholds from the chelator catalogue (core/chelators/catalogue.ts carries their sources). */

@@ -123,13 +123,14 @@ export const liverIronOverdueRule = defineRule({
 
 export const cardiacT2StarOverdueRule = defineRule({
   id: 'cardiac-t2star-overdue',
-  title: 'Thalassaemia major: no cardiac T2* in the last 12–24 months',
+  title: 'Thalassaemia major from 10 years: no cardiac T2* in the last 12–24 months',
   severity: 'review',
   drugs: [],
   sourceIds: ['mri-monitoring-interval-memory'],
   uncertain: true,
   evaluate: (context) => {
-    if (context.caseFile.patient.diagnosisGroup !== 'thalassaemia-major') return [];
+    // The same applicability as the monitoring calendar (thalassaemia major from 10 years), so the two never disagree.
+    if (context.monitoring.notApplicable.some((it) => it.id === 'cardiac-t2star')) return [];
     const short = context.threshold('cardiac-t2star-interval-short');
     const long = context.threshold('cardiac-t2star-interval-long');
     const latest = context.resultsOf('cardiac-t2star').at(-1);

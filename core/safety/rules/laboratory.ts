@@ -1,6 +1,8 @@
 import { daysBetween } from '../../dates/isoDate';
 import type { LigandId } from '../../chelators/catalogue';
-import { continuousRunStart } from '../continuousRunStart';
+import { continuousRunStart } from '../../model/continuousRunStart';
+import type { MonitoringItem } from '../../monitoring/monitoringCalendar';
+import type { AppliedThreshold } from '../../thresholds';
 import type { SafetyContext } from '../context';
 import { defineRule } from '../rule';
 import { thresholdText } from '../../thresholds';
@@ -14,32 +16,48 @@ function activeAmong(context: SafetyContext, drugs: readonly LigandId[]): Ligand
 
 const drugList = (drugs: readonly LigandId[]) => capitalised(drugs.join(' and '));
 
+/** The upper limit of normal of a transaminase result: the laboratory's, or the assumed one (threshold) when the result carries none. */
+function upperLimitOf(entry: { readonly referenceRange?: { readonly high?: number } }, assumed: AppliedThreshold): { value: number; text: string } {
+  const high = entry.referenceRange?.high;
+  if (high !== undefined) return { value: high, text: `the reporting laboratory’s upper limit of normal of ${shown(high, 0)} U/L` };
+  return assumed.overridden
+    ? { value: assumed.value, text: `a local upper limit of normal of ${assumed.value} U/L (${assumed.reason}, ${assumed.by}; the result gives no laboratory range)` }
+    : { value: assumed.value, text: `an assumed upper limit of normal of ${assumed.value} U/L (from memory; the result gives no laboratory range, and the laboratory’s own limit applies)` };
+}
+
 export const altRaisedRule = defineRule({
   id: 'alt-raised',
-  title: 'Liver tests: ALT above a multiple of the upper limit of normal',
+  title: 'Liver tests: transaminases above the upper limit of normal (labels: severe or persistent elevations)',
   severity: 'review',
   drugs: ['deferasirox', 'deferiprone'],
-  sourceIds: ['alt-uln-memory', 'deferasirox-label-renal'],
-  uncertain: true,
+  sourceIds: ['deferasirox-label-us-hepatic'],
+  uncertain: false,
   evaluate: (context) => {
     const drugs = activeAmong(context, ['deferasirox', 'deferiprone']);
-    const latest = context.resultsOf('alt').at(-1);
-    if (drugs.length === 0 || !latest) return [];
-    const uln = context.threshold('alt-upper-limit-of-normal');
+    if (drugs.length === 0) return [];
+    const assumed = context.threshold('alt-upper-limit-of-normal');
     const multiple = context.threshold('alt-multiple-of-uln');
-    const limitUPerL = uln.value * multiple.value;
-    const alt = latest.entry.measured.value;
-    if (!(alt > limitUPerL)) return [];
-    const ulnText = uln.overridden ? `a local upper limit of normal of ${uln.value} U/L (${uln.reason}, ${uln.by})` : `an assumed upper limit of normal of ${uln.value} U/L (from memory; the reporting laboratory’s own limit applies)`;
-    return [
-      {
-        severity: 'review',
-        text: `${drugList(drugs)} with ALT ${shown(alt, 0)} U/L (${latest.entry.date}): above ${shown(multiple.value, 2)} × ${ulnText}, that is ${shown(limitUPerL, 0)} U/L; ${forPrescriberReview}.`,
-        triggers: [{ name: 'ALT', value: alt, unit: 'U/L', date: latest.entry.date, ref: latest.ref }],
-        thresholds: [uln, multiple],
-        drugs,
-      },
-    ];
+    return (['alt', 'ast'] as const).flatMap((kind): FindingDraft[] => {
+      const name = kind === 'alt' ? 'ALT' : 'AST';
+      const [previous, latest] = [context.resultsOf(kind).at(-2), context.resultsOf(kind).at(-1)];
+      if (!latest) return [];
+      const limit = upperLimitOf(latest.entry, assumed);
+      const value = latest.entry.measured.value;
+      const usedThresholds = latest.entry.referenceRange?.high === undefined ? [assumed] : [];
+      const trigger = (it: NonNullable<typeof latest>): TriggerValue => ({ name, value: it.entry.measured.value, unit: 'U/L', date: it.entry.date, ref: it.ref });
+      const wording = 'the deferasirox label asks for dose modification or interruption to be considered for severe or persistent elevations and gives no multiple of the upper limit';
+      const sourceUncertain = usedThresholds.length > 0 ? ['alt-uln-memory'] : [];
+      if (!(value > limit.value)) return [];
+      // A local protocol's multiple (5 × ULN is a study protocol's cut-off, not a label value) applies only when set.
+      if (multiple.overridden && value > limit.value * multiple.value) {
+        return [{ severity: 'review', text: `${drugList(drugs)} with ${name} ${shown(value, 0)} U/L (${latest.entry.date}): above ${thresholdText(multiple, 'study-protocol')} × ${limit.text}; ${wording}; ${forPrescriberReview}.`, triggers: [trigger(latest)], thresholds: [...usedThresholds, multiple], drugs, extraSourceIds: sourceUncertain }];
+      }
+      const previousLimit = previous ? upperLimitOf(previous.entry, assumed) : null;
+      if (previous && previousLimit && previous.entry.measured.value > previousLimit.value) {
+        return [{ severity: 'review', text: `${drugList(drugs)} with ${name} above the upper limit of normal on two consecutive results, ${shown(previous.entry.measured.value, 0)} U/L (${previous.entry.date}) and ${shown(value, 0)} U/L (${latest.entry.date}), against ${limit.text}: a persistent elevation; ${wording}; ${forPrescriberReview}.`, triggers: [trigger(previous), trigger(latest)], thresholds: usedThresholds, drugs, extraSourceIds: sourceUncertain }];
+      }
+      return [{ severity: 'information', text: `${drugList(drugs)} with ${name} ${shown(value, 0)} U/L (${latest.entry.date}), above ${limit.text} on this result only; ${wording}.`, triggers: [trigger(latest)], thresholds: usedThresholds, drugs, extraSourceIds: sourceUncertain }];
+    });
   },
 });
 
@@ -114,74 +132,64 @@ export const deferiproneNeutrophilsRule = defineRule({
   },
 });
 
+/** An item of the monitoring calendar as a finding's trigger. */
+function lastTrigger(item: MonitoringItem, name: string): TriggerValue[] {
+  return item.lastDate ? [{ name: `last ${name}`, value: item.lastDate, unit: '', date: item.lastDate, ref: null }] : [];
+}
+
 export const deferiproneAncMonitoringRule = defineRule({
   id: 'deferiprone-anc-monitoring',
-  title: 'Deferiprone: neutrophil counts on record',
+  title: 'Deferiprone: neutrophil counts by time on the drug (US label 2025)',
   severity: 'review',
   drugs: ['deferiprone'],
-  sourceIds: ['deferiprone-label-us-2025'],
+  sourceIds: ['deferiprone-label-us-2025-anc-schedule'],
   uncertain: false,
   evaluate: (context) => {
     const runStart = continuousRunStart(context.caseFile.chelationPeriods, 'deferiprone', context.asOf);
-    if (runStart === null) return [];
-    const interval = context.threshold('deferiprone-anc-interval');
-    const latest = context.resultsOf('neutrophils').at(-1);
-    const wording = 'older labels asked for weekly counts; the 2025 US label asks for counts regularly and lets the frequency be reduced case by case';
-    if (!latest || latest.entry.date < runStart) {
-      return [
-        {
-          severity: 'review',
-          text: `Deferiprone since ${runStart}: no absolute neutrophil count on record since then${latest ? ` (last ${latest.entry.date})` : ''}; ${wording}; ${forPrescriberReview}.`,
-          triggers: latest ? [{ name: 'last absolute neutrophil count', value: latest.entry.measured.value, unit: latest.entry.measured.unit, date: latest.entry.date, ref: latest.ref }] : [],
-          thresholds: [interval],
-        },
-      ];
+    const item = context.monitoring.items.find((it) => it.id === 'neutrophils');
+    if (runStart === null || !item || (item.status !== 'overdue' && item.lastDate !== null)) return [];
+    const local = context.threshold('deferiprone-anc-interval');
+    const thresholds = local.overridden ? [local] : [];
+    const since = item.lastDate === null ? 'none on record' : `the last is from ${item.lastDate}`;
+    if (item.lastDate === null || item.lastDate < runStart) {
+      return [{ severity: 'review', text: `Deferiprone since ${runStart}: no absolute neutrophil count on record since then (${since}); ${item.why} ${capitalised(forPrescriberReview)}.`, triggers: lastTrigger(item, 'absolute neutrophil count'), thresholds }];
     }
-    const days = daysBetween(latest.entry.date, context.asOf);
-    if (days <= interval.value) return [];
     return [
       {
-        severity: 'information',
-        text: `Deferiprone: the last absolute neutrophil count is from ${latest.entry.date}, ${days} days before the review date (more than ${interval.overridden ? thresholdText(interval, 'weekly') : interval.value} days); ${wording}.`,
-        triggers: [
-          { name: 'last absolute neutrophil count', value: latest.entry.measured.value, unit: latest.entry.measured.unit, date: latest.entry.date, ref: latest.ref },
-          { name: 'days since the last count', value: days, unit: 'd', date: context.asOf, ref: null },
-        ],
-        thresholds: [interval],
+        severity: 'days' in item.interval && item.interval.days === 1 ? 'review' : 'information',
+        text: `Deferiprone: the absolute neutrophil count was due on ${item.dueDate} (${item.intervalText}; ${since}, ${item.daysOverdue} days overdue on the review date). ${item.why}`,
+        triggers: [...lastTrigger(item, 'absolute neutrophil count'), { name: 'days overdue', value: item.daysOverdue, unit: 'd', date: context.asOf, ref: null }],
+        thresholds,
       },
     ];
   },
 });
 
-/** A result kind the case may be missing, with the words for it. */
-const monthlyTests = [
-  { kind: 'creatinine', name: 'serum creatinine' },
-  { kind: 'alt', name: 'ALT' },
+const deferasiroxTests = [
+  { id: 'creatinine', name: 'serum creatinine' },
+  { id: 'alt', name: 'ALT' },
+  { id: 'ast', name: 'AST' },
+  { id: 'bilirubin', name: 'serum bilirubin' },
 ] as const;
 
 export const deferasiroxMonthlyTestsRule = defineRule({
   id: 'deferasirox-monthly-tests',
-  title: 'Deferasirox: creatinine and ALT within the last month',
+  title: 'Deferasirox: creatinine and liver tests due (monthly; more often in the first month and with renal risk)',
   severity: 'review',
   drugs: ['deferasirox'],
-  sourceIds: ['deferasirox-label-renal'],
+  sourceIds: ['deferasirox-label-renal', 'deferasirox-label-us-hepatic'],
   uncertain: false,
   evaluate: (context) => {
     if (!context.activeDrugs.has('deferasirox')) return [];
-    const interval = context.threshold('deferasirox-monthly-test-interval');
-    return monthlyTests.flatMap(({ kind, name }): FindingDraft[] => {
-      const latest = context.resultsOf(kind).at(-1);
-      if (latest && daysBetween(latest.entry.date, context.asOf) <= interval.value) return [];
-      const trigger: TriggerValue[] = latest
-        ? [{ name: `last ${name}`, value: latest.entry.measured.value, unit: latest.entry.measured.unit, date: latest.entry.date, ref: latest.ref }]
-        : [];
-      const since = latest ? `the last is from ${latest.entry.date}, ${daysBetween(latest.entry.date, context.asOf)} days before the review date` : 'none is on record';
+    return deferasiroxTests.flatMap(({ id, name }): FindingDraft[] => {
+      const item = context.monitoring.items.find((it) => it.id === id);
+      if (!item || (item.status !== 'overdue' && item.lastDate !== null)) return [];
+      const since = item.lastDate === null ? 'none on record' : `the last is from ${item.lastDate}`;
       return [
         {
           severity: 'review',
-          text: `Deferasirox: no ${name} in the last ${interval.value} days (${since}); the label asks for it monthly; ${forPrescriberReview}.`,
-          triggers: trigger,
-          thresholds: [interval],
+          text: `Deferasirox: ${name} was due on ${item.dueDate} (${item.intervalText}; ${since}); ${item.why} ${capitalised(forPrescriberReview)}.`,
+          triggers: lastTrigger(item, name),
         },
       ];
     });

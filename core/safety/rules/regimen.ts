@@ -3,7 +3,7 @@ import { dfoTherapeuticIndex } from '../../chelators/formulas';
 import { runFormula } from '../../formulas/run';
 import { isAscorbicAcid } from '../../model/coMedication';
 import { coMedicationDoseMg } from '../coMedicationDose';
-import { continuousRunStart } from '../continuousRunStart';
+import { continuousRunStart } from '../../model/continuousRunStart';
 import type { ActiveRegimen } from '../context';
 import { defineRule } from '../rule';
 import { doseThresholdId, thresholdText } from '../../thresholds';

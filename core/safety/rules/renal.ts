@@ -2,7 +2,7 @@ import type { Derivation } from '../../formulas/derivation';
 import { runFormula } from '../../formulas/run';
 import { latestWeightOnOrBefore } from '../../model/latestWeight';
 import { crclCockcroftGault, egfrCkdEpi2021Formula, egfrSchwartzBedsideFormula } from '../../patient/formulas';
-import { continuousRunStart } from '../continuousRunStart';
+import { continuousRunStart } from '../../model/continuousRunStart';
 import type { SafetyContext } from '../context';
 import { creatinineMgPerDl } from '../creatinine';
 import { defineRule } from '../rule';

@@ -52,7 +52,8 @@ describe('monitoring calendar, scenario TH-0417 (scenarios.md §1) on 2026-11-20
   });
 
   it('lists the items earliest due first and says why ANC is not listed', () => {
-    expect(cal.items.map((it) => it.id)).toEqual(['creatinine', 'alt', 'hearing', 'eyes', 'ferritin', 'liver-iron', 'cardiac-t2star']);
+    // AST and bilirubin (US deferasirox label §5.2) have none on record in TH-0417: due on the review date.
+    expect(cal.items.map((it) => it.id)).toEqual(['creatinine', 'alt', 'ast', 'bilirubin', 'hearing', 'eyes', 'ferritin', 'liver-iron', 'cardiac-t2star']);
     expect(cal.notApplicable).toEqual([{ id: 'neutrophils', what: 'absolute neutrophil count (ANC)', reason: 'no deferiprone running on 2026-11-20' }]);
   });
 
@@ -87,7 +88,7 @@ describe('monitoring calendar, scenario TH-0093 (scenarios.md §3) on 2026-11-20
 });
 
 describe('monitoring calendar rules', () => {
-  it('checks creatinine weekly and ALT every two weeks in the first month of a deferasirox period (label; first-month frequency from memory)', () => {
+  it('checks liver tests every two weeks in the first month of a deferasirox period, and creatinine weekly then only with a renal risk factor (US label §5.2, boxed warning and §2.1)', () => {
     const json = readDemo('th-0417');
     const periods = json['chelationPeriods'] as Record<string, unknown>[];
     periods[1]!['endDate'] = '2026-11-09';
@@ -96,11 +97,27 @@ describe('monitoring calendar rules', () => {
       { id: 'creat-new', date: '2026-11-10', kind: 'creatinine', measured: { value: 0.55, unit: 'mg/dL' } },
       { id: 'alt-new', date: '2026-11-10', kind: 'alt', measured: { value: 20, unit: 'U/L' } },
     );
-    const cal = calendar(caseFrom(json), '2026-11-20');
-    expect(row(cal, 'creatinine')).toMatchObject({ dueDate: '2026-11-17', status: 'overdue', daysOverdue: 3, intervalText: 'weekly' });
-    expect(row(cal, 'alt')).toMatchObject({ dueDate: '2026-11-24', status: 'upcoming', intervalText: 'every 14 days' });
+    const withoutRisk = calendar(caseFrom(json), '2026-11-20');
+    expect(row(withoutRisk, 'alt')).toMatchObject({ dueDate: '2026-11-24', status: 'upcoming', intervalText: 'every 14 days' });
+    expect(row(withoutRisk, 'creatinine')).toMatchObject({ dueDate: '2026-12-10', intervalText: 'monthly' });
+    json['clinicalState'] = { renalRiskFactors: [{ id: 'rr', date: '2026-11-01', factor: 'nephrotoxic-co-medication', status: 'present' }] };
+    const withRisk = calendar(caseFrom(json), '2026-11-20');
+    expect(row(withRisk, 'creatinine')).toMatchObject({ dueDate: '2026-11-17', status: 'overdue', daysOverdue: 3, intervalText: 'weekly' });
     // A month after the start, back to monthly.
     expect(row(calendar(caseFrom(json), '2026-12-10'), 'creatinine')).toMatchObject({ dueDate: '2026-12-10', intervalText: 'monthly' });
+    // The factor recorded as absent later no longer counts.
+    json['clinicalState'] = { renalRiskFactors: [{ id: 'rr', date: '2026-11-01', factor: 'nephrotoxic-co-medication', status: 'present' }, { id: 'rr2', date: '2026-11-15', factor: 'nephrotoxic-co-medication', status: 'absent' }] };
+    expect(row(calendar(caseFrom(json), '2026-11-20'), 'creatinine')).toMatchObject({ intervalText: 'monthly' });
+  });
+
+  it('reacts to a creatinine rise on deferasirox: weekly while the latest is more than 33 % above the baseline (TH-0417: 0.56 mg/dL on 2025-05-13, the last before the run; 0.75 is 33.9 %, 0.74 is 32.1 %)', () => {
+    const at = (value: number) => {
+      const json = readDemo('th-0417');
+      (json['results'] as unknown[]).push({ id: 'creat-rise', date: '2026-11-15', kind: 'creatinine', measured: { value, unit: 'mg/dL' } });
+      return row(calendar(caseFrom(json), '2026-11-20'), 'creatinine');
+    };
+    expect(at(0.75)).toMatchObject({ dueDate: '2026-11-22', intervalText: 'weekly' });
+    expect(at(0.74)).toMatchObject({ dueDate: '2026-12-15', intervalText: 'monthly' });
   });
 
   it('checks ANC on deferiprone every 7 days by default, or at the interval given', () => {
@@ -156,10 +173,10 @@ describe('monitoring calendar rules', () => {
 });
 
 describe('doc-comment examples', () => {
-  it('monitoringRules(7) checks ANC every 7 days; halfMgUnitsFromMg(62.5) is 125', async () => {
+  it('monitoringRules() checks ALT every 14 days in a first month; halfMgUnitsFromMg(62.5) is 125', async () => {
     const { monitoringRules } = await import('../../../core/monitoring');
     const { halfMgUnitsFromMg } = await import('../../../core/dosing');
-    expect(monitoringRules(7).find((it) => it.itemId === 'neutrophils')?.interval).toEqual({ days: 7 });
+    expect(monitoringRules().find((it) => it.itemId === 'alt')?.firstMonthInterval).toEqual({ days: 14 });
     expect(halfMgUnitsFromMg(62.5)).toBe(125);
   });
 });

@@ -80,6 +80,12 @@ describe('liver-iron-overdue and cardiac-t2star-overdue (intervals from memory, 
     expect(ofRule(withLicAndHeart(6, 6), 'cardiac-t2star-overdue')).toHaveLength(0);
     expect(ofRule(withLicAndHeart(6, 13), 'cardiac-t2star-overdue')[0]!.severity).toBe('information');
     expect(ofRule(withLicAndHeart(6, 25), 'cardiac-t2star-overdue')[0]!.severity).toBe('review');
+    // One source of "due" (issue 10): a 7-year-old has no cardiac T2* overdue, as the calendar says it is not due under 10
+    // (guideline literature, monitoring-mri-yearly); at 10 it is.
+    const child = (ageYears: number) =>
+      findingsFor(smallCase({ ageYears, weightKg: 25, heightCm: 125, results: [result('liver-iron', monthsBefore(6), 6, 'mg/g{dry}', { method: 'biopsy' })], chelationPeriods: [period('deferoxamine', 30)] }));
+    expect(ofRule(child(7), 'cardiac-t2star-overdue')).toHaveLength(0);
+    expect(ofRule(child(10), 'cardiac-t2star-overdue')[0]!.severity).toBe('review');
     expect(ofRule(withLicAndHeart(6, 25, 'sickle-cell-disease'), 'cardiac-t2star-overdue')).toHaveLength(0);
   });
 });

@@ -1,5 +1,5 @@
 import { addDaysIso, type IsoDate } from '../dates/isoDate';
-import type { ChelationPeriod } from '../model/caseFile';
+import type { ChelationPeriod } from './caseFile';
 
 /**
  * The first day of the unbroken run of a drug that is running on the review
