@@ -19,6 +19,7 @@ import type { Case } from '../core/model/caseFile';
 import { baselineKernel, type KernelInput } from './baselineKernel';
 import { generatedCaseJson, generatedReviewDate } from './generatedCase';
 import { measure, scalingExponent, type Timing } from './harness';
+import { bundleGzipBytes, ironCourseNavigationMs } from './rendererBench';
 
 // bench/run.mjs runs the bundle from the project folder.
 const root = `${process.cwd()}/`;
@@ -162,6 +163,22 @@ async function commandLineFigures(): Promise<void> {
   row('command line: --help start-up ratio to node -e 0', cli.medianMs / node.medianMs, '×', null, `--help ${cli.medianMs.toFixed(0)} ms, node -e 0 ${node.medianMs.toFixed(0)} ms`);
 }
 
+const median = (values: readonly number[]) => {
+  const sorted = [...values].sort((left, right) => left - right);
+  return sorted.length % 2 ? sorted[(sorted.length - 1) / 2]! : (sorted[sorted.length / 2 - 1]! + sorted[sorted.length / 2]!) / 2;
+};
+
+async function rendererFigures(): Promise<void> {
+  console.log('6. Renderer: bundle size and navigation to the demo\'s iron course (headless Chromium, preview server)');
+  const bundle = bundleGzipBytes(`${root}dist/renderer`);
+  console.log(`  dist/renderer: ${bundle.files} files, ${(bundle.rawBytes / 1024).toFixed(0)} KiB, gzip ${(bundle.gzipBytes / 1024).toFixed(0)} KiB`);
+  row('renderer: bundle gzip size', bundle.gzipBytes / 1024, 'KiB', 300, `${(bundle.rawBytes / 1024).toFixed(0)} KiB before gzip, ${bundle.files} files`);
+  const timings = await ironCourseNavigationMs(root, 7);
+  console.log(`  page load to Cases: median ${median(timings.loadMs).toFixed(0)} ms; Iron course: median ${median(timings.navigationMs).toFixed(0)} ms (${timings.navigationMs.map((ms) => ms.toFixed(0)).join(', ')})`);
+  row('renderer: navigation to the iron course, interactive', median(timings.navigationMs), 'ms', 500, 'click on the screen button to summary painted, median of 7 fresh pages');
+  row('renderer: page load to the Cases screen', median(timings.loadMs), 'ms', null);
+}
+
 async function main(): Promise<void> {
   const machine = `${cpus().length} × ${cpus()[0]?.model ?? 'unknown CPU'}, Node ${process.version}, load average ${loadavg().map((load) => load.toFixed(1)).join(' ')}`;
   console.log(`Benchmarks on ${machine}\n`);
@@ -169,6 +186,7 @@ async function main(): Promise<void> {
   await scalingFigures();
   await chemistryFigures();
   await commandLineFigures();
+  await rendererFigures();
 
   console.log('\n| figure | value | unit | target | met |\n| --- | ---: | --- | ---: | --- |');
   for (const entry of rows) console.log(`| ${entry.name} | ${entry.value} | ${entry.unit} | ${entry.target ?? '—'} | ${entry.met === null ? '—' : entry.met ? 'yes' : 'NO'} |`);

@@ -6,6 +6,9 @@ import { fileURLToPath } from 'node:url';
 
 const root = fileURLToPath(new URL('..', import.meta.url));
 if (!existsSync(`${root}dist/cli.cjs`)) spawnSync('npm', ['run', 'build'], { cwd: root, stdio: 'inherit' });
+// The renderer is built afresh so its bundle size is the current one.
+const renderer = spawnSync('npm', ['run', 'build:renderer'], { cwd: root, stdio: 'inherit' });
+if (renderer.status !== 0) process.exit(renderer.status ?? 1);
 await build({
   entryPoints: [`${root}bench/main.ts`],
   outfile: `${root}dist/bench/main.mjs`,
