@@ -14,7 +14,7 @@ import {
 } from '../../core/courses';
 import { citeShort, findSource } from '../../core/references';
 import { formatIssues, type Result } from '../../core/result';
-import { bloodLead, checkLabValue, serumCreatinine } from '../../core/units/formulas';
+import { bloodLead, checkLabValue, serumCreatinine, urinaryCopper, type UrinaryCopperUnit } from '../../core/units/formulas';
 import { courseIcs } from '../host/courseCalendar';
 import { writeCalendarFile } from '../host/icalendar';
 import { parseArgs, splitOutput } from './args';
@@ -274,7 +274,8 @@ export function courseCommand(argv: readonly string[], io: CliIo & CourseHostIo)
   };
   const leadUnit = pairedUnit('--blood-lead', '--blood-lead-unit', ['ug/dL', 'umol/L']);
   const creatinineUnit = pairedUnit('--creatinine', '--creatinine-unit', ['mg/dL', 'umol/L']);
-  const copperUnit = pairedUnit('--urinary-copper', '--urinary-copper-unit', ['ug/24h', 'umol/24h']);
+  const copperUnitTyped = pairedUnit('--urinary-copper', '--urinary-copper-unit', ['ug/24h', 'umol/24h', 'ug/(24.h)', 'umol/(24.h)']);
+  const copperUnit: UrinaryCopperUnit | undefined = copperUnitTyped === undefined ? undefined : copperUnitTyped.startsWith('ug') ? 'ug/(24.h)' : 'umol/(24.h)';
   const strengthBasis = pairedUnit('--strength-mg', '--strength-basis', ['salt', 'base']);
   const currentStrengthBasis = pairedUnit('--current-strength-mg', '--current-strength-basis', ['salt', 'base']);
   const switchFrom = args.options['--switch-from'];
@@ -285,6 +286,9 @@ export function courseCommand(argv: readonly string[], io: CliIo & CourseHostIo)
   }
   if (numbers['creatinine'] !== undefined && creatinineUnit !== undefined) {
     problems.push(...checkLabValue(serumCreatinine, numbers['creatinine'], creatinineUnit as 'mg/dL' | 'umol/L').map((it) => `--creatinine: ${it.message}`));
+  }
+  if (numbers['urinaryCopper'] !== undefined && copperUnit !== undefined) {
+    problems.push(...checkLabValue(urinaryCopper, numbers['urinaryCopper'], copperUnit).map((it) => `--urinary-copper: ${it.message}`));
   }
   const output = shortOutput ?? args.options['--output'];
   if (problems.length > 0) {
@@ -310,7 +314,7 @@ export function courseCommand(argv: readonly string[], io: CliIo & CourseHostIo)
     ...(args.switches.has('--encephalopathy') ? { encephalopathy: true } : {}),
     ...(numbers['bloodLead'] !== undefined ? { bloodLead: { value: numbers['bloodLead'], unit: leadUnit as 'ug/dL' | 'umol/L' } } : {}),
     ...(numbers['creatinine'] !== undefined ? { creatinineMgPerDl: creatinineForSchedule(numbers['creatinine'], creatinineUnit as 'mg/dL' | 'umol/L') } : {}),
-    ...(numbers['urinaryCopper'] !== undefined ? { urinaryCopper: { value: numbers['urinaryCopper'], unit: copperUnit === 'ug/24h' ? 'ug/(24.h)' : 'umol/(24.h)' } } : {}),
+    ...(numbers['urinaryCopper'] !== undefined && copperUnit !== undefined ? { urinaryCopper: { value: numbers['urinaryCopper'], unit: copperUnit } } : {}),
     ...(numbers['strengthMg'] !== undefined ? { strength: { mg: numbers['strengthMg'], basis: strengthBasis as StrengthBasis } } : {}),
     ...(switchFrom !== undefined
       ? {

@@ -11,8 +11,10 @@ import {
   haemoglobinGPerDlFromMmolPerL,
   haemoglobinMmolPerLFromGPerDl,
   ugPerLFromNgPerMl,
+  urinaryCopperUgPer24hFromUmolPer24h,
+  urinaryCopperUmolPer24hFromUgPer24h,
 } from './concentration';
-import type { GPerDl, GPerL, MgPerDl, MicrogramsPerDl, MmolPerL, NanogramsPerMl, UmolPerL } from './quantity';
+import type { GPerDl, GPerL, MgPerDl, MicrogramsPer24h, MicrogramsPerDl, MmolPerL, NanogramsPerMl, UmolPer24h, UmolPerL } from './quantity';
 
 /** Plausible range of a laboratory value in one unit, inclusive. */
 export interface UnitRange {
@@ -284,10 +286,49 @@ export const bloodLeadUnitsFormula = defineFormula({
   },
 });
 
+// ——— Urinary copper (24-hour collection) ———
+
+export const urinaryCopperUnits = ['ug/(24.h)', 'umol/(24.h)'] as const;
+export type UrinaryCopperUnit = (typeof urinaryCopperUnits)[number];
+
+/**
+ * 24-hour urinary copper. Plausible 0–5000 µg/24 h: from normal (under about 40 µg)
+ * to a patient with Wilson disease on chelation (a few thousand µg; common practice);
+ * µmol/24 h ÷ 63.546, rounded outward (78.7 → 79).
+ */
+export const urinaryCopper: LabQuantity<UrinaryCopperUnit> = {
+  name: 'urinaryCopper',
+  unitName: 'urinaryCopperUnit',
+  label: '24-hour urinary copper',
+  units: urinaryCopperUnits,
+  ranges: { 'ug/(24.h)': { min: 0, max: 5000 }, 'umol/(24.h)': { min: 0, max: 79 } },
+};
+
+export const urinaryCopperUnitsFormula = defineFormula({
+  id: 'urinary-copper-units',
+  title: 'Urinary copper: µg/24 h and µmol/24 h',
+  expression: 'µmol/24 h = µg/24 h ÷ 63.546 g/mol (Ar(Cu)); µg/24 h = µmol/24 h × 63.546',
+  sourceIds: ['ciaaw-2021', 'ucum'],
+  notes: ['Ar(Cu) 63.546 is a CIAAW single value (± 0.003).'],
+  inputs: { urinaryCopper: labValueInput(urinaryCopper), urinaryCopperUnit: labUnitInput(urinaryCopper) },
+  outputs: {
+    urinaryCopperUgPer24h: { label: '24-hour urinary copper', unit: 'ug/(24.h)', meaning: 'urinary copper in µg/24 h', decimals: 0 },
+    urinaryCopperUmolPer24h: { label: '24-hour urinary copper', unit: 'umol/(24.h)', meaning: 'urinary copper in µmol/24 h', decimals: 2 },
+  },
+  compute: ({ urinaryCopper: value, urinaryCopperUnit }) => {
+    const issues = checkLabValue(urinaryCopper, value, urinaryCopperUnit);
+    if (issues.length > 0) return { refused: issues };
+    return urinaryCopperUnit === 'ug/(24.h)'
+      ? { urinaryCopperUgPer24h: value, urinaryCopperUmolPer24h: urinaryCopperUmolPer24hFromUgPer24h(value as MicrogramsPer24h) }
+      : { urinaryCopperUgPer24h: urinaryCopperUgPer24hFromUmolPer24h(value as UmolPer24h), urinaryCopperUmolPer24h: value };
+  },
+});
+
 /** Unit-conversion calculators (laboratory units), in the order `calc --list` shows them. */
 export const unitFormulas: readonly AnyFormula[] = [
   creatinineUnitsFormula,
   haemoglobinUnitsFormula,
   ferritinUnitsFormula,
   bloodLeadUnitsFormula,
+  urinaryCopperUnitsFormula,
 ];

@@ -232,7 +232,7 @@ describe('every unit calculator through runFormula', () => {
     expect(raw).toEqual({ ferritin: '2900', ferritinUnit: 'ug/L' });
   });
 
-  it('lists the four calculators in order', () => {
-    expect(unitFormulas.map((it) => it.id)).toEqual(['creatinine-units', 'haemoglobin-units', 'ferritin-units', 'blood-lead-units']);
+  it('lists the five calculators in order', () => {
+    expect(unitFormulas.map((it) => it.id)).toEqual(['creatinine-units', 'haemoglobin-units', 'ferritin-units', 'blood-lead-units', 'urinary-copper-units']);
   });
 });
