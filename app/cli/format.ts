@@ -1,43 +1,5 @@
-import { displayUnit } from '../../core/units/displayUnit';
-
-/**
- * Format a number for a reader: fixed decimals for ordinary magnitudes,
- * three significant figures for small ones (so 0.0123 does not print as 0.01),
- * and scientific notation for very large or very small ones.
- *
- * @example formatNumber(181.44, 1) === '181.4'
- * @example formatNumber(0.01234, 2) === '0.0123'
- */
-export function formatNumber(value: number, decimals = 2): string {
-  if (value === 0) return '0';
-  const magnitude = Math.abs(value);
-  if (magnitude >= 1e7 || magnitude < 1e-4) return value.toExponential(3);
-  if (magnitude < 10 ** -decimals * 100) return String(Number(value.toPrecision(3)));
-  return value.toFixed(decimals);
-}
-
-/**
- * A number as a person would type it back: no padding zeros, no binary noise.
- * @example formatPlain(0.1 + 0.2) === '0.3'
- */
-export function formatPlain(value: number): string {
-  return String(Number(value.toPrecision(10)));
-}
-
-/** "280 mL", "0.6" for a fraction, "positive" for text; UCUM codes shown as a reader writes them. */
-export function withUnit(value: number | string, unit: string, decimals?: number): string {
-  const text = typeof value === 'number' ? formatNumber(value, decimals) : value;
-  const shown = displayUnit(unit);
-  return shown === '' ? text : `${text} ${shown}`;
-}
-
-/**
- * Six significant figures: enough to check a number by hand, without binary noise.
- * @example formatReadable(-97.49891528) === '-97.4989'
- */
-export function formatReadable(value: number): string {
-  return String(Number(value.toPrecision(6)));
-}
+// The number and unit formatters live in core/report, shared with the review sheet.
+export { formatNumber, formatPlain, formatReadable, withUnit } from '../../core/report/formatNumber';
 
 export const decisionSupportCaution =
   'Decision support only: for review by the prescriber; follow local protocols and verify every value.';

@@ -1,28 +1,7 @@
-import type { Derivation, Origin } from '../../core/formulas/derivation';
+import type { Derivation } from '../../core/formulas/derivation';
+import { describeOrigin } from '../../core/report/describeOrigin';
 import { citeShort, findSource } from '../../core/references';
-import { formatPlain, formatReadable, withUnit } from './format';
-
-function originText(origin: Origin): string {
-  switch (origin.kind) {
-    case 'entered':
-      return origin.ref ? `entered (${origin.ref})` : 'entered';
-    case 'default':
-      return 'default of the formula';
-    case 'assumption':
-      return origin.overridden
-        ? `assumption ${origin.assumptionId}, OVERRIDDEN${origin.by ? ` by ${origin.by}` : ''}${origin.at ? ` on ${origin.at}` : ''}: ${origin.reason ?? 'no reason given'}`
-        : `assumption ${origin.assumptionId}, published default`;
-    case 'record': {
-      const uses = (origin.assumptions ?? []).map(
-        (use) => `${use.assumptionId} ${formatPlain(use.value)}${use.overridden ? ` OVERRIDDEN: ${use.reason ?? 'no reason given'}` : ''}`,
-      );
-      const refs = origin.refs.length > 0 ? `; ${origin.refs.length} entr${origin.refs.length === 1 ? 'y' : 'ies'}` : '';
-      return `from the record: ${origin.description}${refs}${uses.length > 0 ? `; using ${uses.join(', ')}` : ''}`;
-    }
-    case 'computed':
-      return `computed (${origin.derivation.formulaId}, below)`;
-  }
-}
+import { formatReadable, withUnit } from './format';
 
 /**
  * A derivation tree as indented text: formula, expression, inputs with units
@@ -35,7 +14,7 @@ export function formatDerivation(derivation: Derivation, depth = 0): string {
   const lines = [
     `${pad}${derivation.title} [${derivation.formulaId}]`,
     `${pad}  formula: ${derivation.expression}`,
-    ...derivation.inputs.map((input) => `${pad}  input  ${input.label} = ${value(input)} — ${originText(input.origin)}`),
+    ...derivation.inputs.map((input) => `${pad}  input  ${input.label} = ${value(input)} — ${describeOrigin(input.origin)}`),
     ...derivation.outputs.map((output) => `${pad}  result ${output.label} = ${value(output)}`),
     ...derivation.sourceIds.map((id) => {
       const source = findSource(id);

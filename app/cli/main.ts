@@ -9,6 +9,7 @@ import { explainCommand } from './explainCommand';
 import { doseCommand } from './doseCommand';
 import { findingsCommand } from './findingsCommand';
 import { previewCommand, type PreviewHostIo } from './previewCommand';
+import { sheetCommand, type SheetHostIo } from './sheetCommand';
 import { decisionSupportCaution } from './format';
 import { exitCodes, type TextIo } from './io';
 
@@ -36,13 +37,15 @@ Commands:
   preview [--port N] [--workspace DIR]      the app in a browser on this computer only; prints its address
   course --list [--json] | course <regimen> --weight-kg N [--height-cm N] [--age-years N] --start YYYY-MM-DDTHH:mm [-o course.ics]
                                             a heavy-metal course planned to the dose, the day and the salt (course --help)
+  sheet <case.json> -o review.pdf [--paper a4|letter] [--as-of YYYY-MM-DD] [--prepared-by NAME] [--force]
+                                            the review sheet as a PDF, with the caution on every page
 
 ${calcUsage}
 
 ${decisionSupportCaution}`;
 
 /** Everything the host hands the command line: streams, the case reader, the clock, file reading and writing. */
-export type CliHostIo = CaseIo & CalendarHostIo & TextIo & PreviewHostIo & CourseHostIo;
+export type CliHostIo = CaseIo & CalendarHostIo & TextIo & PreviewHostIo & CourseHostIo & Partial<SheetHostIo>;
 
 /** A subcommand: parsed arguments and the host io in, the exit code out (it may be async). */
 export type Command = (args: ParsedArgs, io: CliHostIo) => number | Promise<number>;
@@ -57,6 +60,7 @@ const commands: Readonly<Record<string, Command>> = {
   findings: findingsCommand,
   explain: explainCommand,
   preview: previewCommand,
+  sheet: sheetCommand,
 };
 
 /**

@@ -19,3 +19,10 @@ describe('owning modules of the chart and PDF libraries', () => {
     expect(importers(/from ['"]d3-/)).toEqual(['core/report/chartPrimitives.ts']);
   });
 });
+
+describe('owning module of the PDF library', () => {
+  it('imports pdfmake and fontkit only in app/host/sheetPdf.ts', () => {
+    expect(importers(/from ['"]pdfmake/)).toEqual(['app/host/sheetPdf.ts']);
+    expect(importers(/from ['"]fontkit/)).toEqual(['app/host/sheetPdf.ts']);
+  });
+});

@@ -1,0 +1,240 @@
+/**
+ * The review sheet's PDF writer: the only module that imports pdfmake.
+ *
+ * `writeSheetPdf(sheet, { paper }) → Promise<Buffer>` lays out a sheet built by
+ * core/report buildSheet: A4 or Letter, the header and the caution on every
+ * page, "page N of M" with the case file's hash in the footer, charts from the
+ * core's SVG, tables, the method appendix and the sign-off block. Roboto (shipped
+ * inside pdfmake) is embedded, so ≥, µ, ⁹ and ₃ print. The PDF's creation date is
+ * the review date at 00:00 UTC, never the clock, so the same sheet gives the
+ * same bytes. pdfmake may read only the four Roboto files and no URL.
+ */
+import { openSync, type Font } from 'fontkit';
+import pdfmake from 'pdfmake';
+import robotoFonts from 'pdfmake/fonts/Roboto.js';
+import type { Content, TableCell, TDocumentDefinitions } from 'pdfmake/interfaces';
+import type { Sheet, SheetBlock, SheetSection } from '../../core/report/sheet';
+
+export type Paper = 'a4' | 'letter';
+export const papers: readonly Paper[] = ['a4', 'letter'];
+
+export interface SheetPdfOptions {
+  readonly paper: Paper;
+}
+
+const fontFiles = new Set(Object.values(robotoFonts.Roboto));
+let configured = false;
+function configurePdfmake(): void {
+  if (configured) return;
+  pdfmake.setFonts(robotoFonts);
+  pdfmake.setUrlAccessPolicy(() => false);
+  pdfmake.setLocalAccessPolicy((path) => fontFiles.has(path));
+  configured = true;
+}
+
+let embeddedCodePoints: ReadonlySet<number> | undefined;
+/**
+ * Text as the embedded font can print it. A character Roboto has no glyph for (an arrow
+ * typed in a note) would print as an empty box; it is shown as its code point instead,
+ * "[U+2192]", so nothing the user typed disappears from the paper unseen.
+ */
+export function printable(text: string): string {
+  embeddedCodePoints ??= new Set((openSync(robotoFonts.Roboto.normal) as Font).characterSet);
+  let shown = '';
+  for (const character of text) {
+    const codePoint = character.codePointAt(0)!;
+    shown += codePoint < 0x20 || embeddedCodePoints.has(codePoint) ? character : `[U+${codePoint.toString(16).toUpperCase().padStart(4, '0')}]`;
+  }
+  return shown;
+}
+
+const ink = '#000000';
+const grey = '#e6e6e6';
+
+function paragraph(block: Extract<SheetBlock, { kind: 'paragraph' }>): Content {
+  switch (block.style) {
+    case 'caution':
+      return { text: printable(block.text), bold: true, margin: [0, 2, 0, 4] };
+    case 'note':
+      return { text: printable(block.text), fontSize: 7.5, italics: true, margin: [0, 2, 0, 6] };
+    case 'small':
+      return { text: printable(block.text), fontSize: 7, color: '#333333', margin: [8, 0, 0, 5] };
+    case 'body':
+      return { text: printable(block.text), margin: [0, 2, 0, 3] };
+  }
+}
+
+function table(block: Extract<SheetBlock, { kind: 'table' }>): Content {
+  const caption: Content = { text: printable(block.caption), bold: true, fontSize: 8.5, margin: [0, 6, 0, 3] };
+  if (block.rows.length === 0) return { stack: [caption, { text: printable(block.emptyText), italics: true, fontSize: 7.5, margin: [0, 0, 0, 6] }], unbreakable: true };
+  const headerRow: TableCell[] = block.columns.map((column) => ({ text: printable(column.title), bold: true, alignment: column.align, fillColor: grey }));
+  const cell = (text: string, index: number, bold = false): TableCell => ({ text: printable(text), alignment: block.columns[index]?.align ?? 'left', bold, noWrap: block.columns[index]?.noWrap ?? false });
+  const body: TableCell[][] = [headerRow, ...block.rows.map((row) => row.map((text, index) => cell(text, index)))];
+  if (block.totals) body.push(block.totals.map((text, index) => cell(text, index, true)));
+  const widths = block.columns.some((column) => column.width === '*')
+    ? block.columns.map((column) => (column.width === '*' ? '*' : 'auto'))
+    : block.columns.map(() => '*');
+  return {
+    stack: [
+      caption,
+      { table: { headerRows: 1, dontBreakRows: true, widths, body }, layout: 'lightHorizontalLines', fontSize: 7.5 },
+      ...(block.note ? [{ text: printable(block.note), fontSize: 7, italics: true, margin: [0, 2, 0, 0] } as Content] : []),
+    ],
+    margin: [0, 0, 0, 6],
+  };
+}
+
+function findings(block: Extract<SheetBlock, { kind: 'findings' }>): Content {
+  if (block.items.length === 0) return { text: printable(block.emptyText), italics: true, margin: [0, 0, 0, 6] };
+  return {
+    stack: block.items.map((item) => ({
+      table: {
+        widths: [62, '*'],
+        body: [
+          [
+            { text: item.severity, bold: true, fontSize: 8 },
+            {
+              stack: [
+                { text: printable(item.text) },
+                { text: printable(`Sources: ${item.sources.join('; ')}${item.sourceUncertain ? ' — includes a value from memory or an unsure source' : ''}`), fontSize: 7, color: '#333333', margin: [0, 1, 0, 0] },
+              ],
+            },
+          ],
+        ],
+      },
+      layout: { hLineWidth: () => 0.5, vLineWidth: (index: number) => (index === 0 ? (item.severity === 'URGENT' ? 3 : 1) : 0), hLineColor: () => ink, vLineColor: () => ink, paddingLeft: () => 4 },
+      margin: [0, 0, 0, 3],
+      unbreakable: true,
+    })),
+    margin: [0, 0, 0, 6],
+  } as Content;
+}
+
+function block(item: SheetBlock): Content {
+  switch (item.kind) {
+    case 'paragraph':
+      return paragraph(item);
+    case 'facts':
+      return {
+        table: { widths: [150, '*'], body: item.rows.map((row) => [{ text: printable(row.label), bold: true }, { text: printable(row.value) }]) },
+        layout: 'noBorders',
+        margin: [0, 4, 0, 4],
+      };
+    case 'table':
+      return table(item);
+    case 'chart':
+      return { stack: [{ svg: printable(item.chart.svg), width: item.chart.width }, { text: printable(item.caption), fontSize: 7.5, italics: true, margin: [0, 2, 0, 10] }], unbreakable: true };
+    case 'findings':
+      return findings(item);
+  }
+}
+
+function section(part: SheetSection, index: number): Content {
+  return {
+    stack: [{ text: part.title, fontSize: 12, bold: true, margin: [0, index === 0 ? 0 : 6, 0, 4] }, ...part.blocks.map(block)],
+    ...(part.startsOnNewPage ? { pageBreak: 'before' as const } : {}),
+  };
+}
+
+function signOff(sheet: Sheet): Content {
+  const line = (label: string, value: string | null): TableCell[] => [{ text: label, bold: true }, { text: value === null ? ' ' : printable(value), margin: [0, value ? 0 : 10, 0, 0] }];
+  const { signOff: block } = sheet;
+  return {
+    stack: [
+      { text: 'Review and sign-off', fontSize: 12, bold: true, margin: [0, 10, 0, 4] },
+      ...(block.notes.length > 0 ? [{ text: 'Review notes', bold: true, margin: [0, 0, 0, 2] } as Content, ...block.notes.map((note) => ({ text: printable(note), margin: [0, 0, 0, 2] }) as Content)] : []),
+      {
+        table: {
+          widths: [120, '*'],
+          body: [
+            line('Reviewed by', block.reviewedBy),
+            line('Date', block.date),
+            line('Comments', block.comments),
+            ...block.prescriberFields.map((field) => line(field, null)),
+          ],
+        },
+        layout: { hLineWidth: () => 0.5, vLineWidth: () => 0, hLineColor: () => ink, paddingTop: () => 6, paddingBottom: () => 6 },
+      },
+    ],
+    unbreakable: true,
+  };
+}
+
+/**
+ * The pdfmake document for a sheet (exported for tests of the layout as data).
+ *
+ * @param sheet - from core/report buildSheet
+ * @param options - paper size
+ */
+export function sheetDocument(sheet: Sheet, options: SheetPdfOptions): TDocumentDefinitions {
+  const { header } = sheet;
+  const [year, month, day] = header.reviewDate.split('-').map(Number) as [number, number, number];
+  return {
+    pageSize: options.paper === 'a4' ? 'A4' : 'LETTER',
+    pageMargins: [40, 74, 40, 44],
+    info: {
+      title: `${header.title}: ${header.caseLabel}, ${header.reviewDate}`,
+      author: header.preparedBy ?? header.toolVersion,
+      subject: 'Decision support for review by the prescriber',
+      creator: header.toolVersion,
+      producer: header.toolVersion,
+      // Never the clock: the review date fixes the bytes.
+      creationDate: new Date(Date.UTC(year, month - 1, day)),
+    },
+    defaultStyle: { font: 'Roboto', fontSize: 8.5, lineHeight: 1.1 },
+    header: () => ({
+      margin: [40, 18, 40, 0],
+      stack: [
+        {
+          columns: [
+            { text: printable(`${header.title} — ${header.caseLabel}`), bold: true, fontSize: 10 },
+            { text: printable(`review date ${header.reviewDate} · prepared by ${header.preparedBy ?? 'not stated'}`), alignment: 'right', fontSize: 8 },
+          ],
+        },
+        {
+          table: { widths: ['*'], body: [[{ text: sheet.caution, bold: true, fontSize: 7.5 }]] },
+          layout: { hLineWidth: () => 1.2, vLineWidth: () => 1.2, hLineColor: () => ink, vLineColor: () => ink, paddingTop: () => 3, paddingBottom: () => 3 },
+          margin: [0, 4, 0, 0],
+        },
+      ],
+    }),
+    footer: (currentPage, pageCount) => ({
+      margin: [40, 14, 40, 0],
+      columns: [
+        { text: `${header.toolVersion} · case file SHA-256 ${header.caseFileSha256}`, fontSize: 6.5, color: '#333333' },
+        { text: `page ${currentPage} of ${pageCount}`, alignment: 'right', fontSize: 8, width: 70 },
+      ],
+    }),
+    content: [
+      {
+        table: {
+          widths: [90, '*'],
+          body: [
+            [{ text: 'Patient', bold: true }, printable(header.patientLine)],
+            [{ text: 'Review date', bold: true }, header.reviewDate],
+            [{ text: 'Prepared by', bold: true }, printable(header.preparedBy ?? 'not stated')],
+            [{ text: 'Tool', bold: true }, header.toolVersion],
+            [{ text: 'Case file SHA-256', bold: true }, { text: header.caseFileSha256, fontSize: 7.5 }],
+          ],
+        },
+        layout: 'noBorders',
+        margin: [0, 0, 0, 6],
+      },
+      ...sheet.sections.map(section),
+      signOff(sheet),
+    ],
+  };
+}
+
+/**
+ * Render a review sheet to PDF bytes.
+ *
+ * @param sheet - from core/report buildSheet
+ * @param options - paper: 'a4' or 'letter'
+ * @returns the PDF; the same sheet and paper give the same bytes
+ * @example const pdf = await writeSheetPdf(buildSheet(input), { paper: 'a4' }) // Buffer starting '%PDF-'
+ */
+export async function writeSheetPdf(sheet: Sheet, options: SheetPdfOptions): Promise<Buffer> {
+  configurePdfmake();
+  return pdfmake.createPdf(sheetDocument(sheet, options)).getBuffer();
+}

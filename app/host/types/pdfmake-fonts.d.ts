@@ -1,0 +1,5 @@
+// pdfmake ships Roboto with a CommonJS file of absolute font paths (it has no type declarations).
+declare module 'pdfmake/fonts/Roboto.js' {
+  const fonts: { readonly Roboto: { readonly normal: string; readonly bold: string; readonly italics: string; readonly bolditalics: string } };
+  export default fonts;
+}

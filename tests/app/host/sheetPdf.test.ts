@@ -1,0 +1,131 @@
+import { createHash } from 'node:crypto';
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { buildSheet } from '../../../core/report/buildSheet';
+import { formatNumber } from '../../../core/report/formatNumber';
+import { sheetCaution } from '../../../core/report/sheet';
+import { printable, writeSheetPdf } from '../../../app/host/sheetPdf';
+import { cli, demoCase, tempDir } from '../cli/harness';
+import { demoSheetInput } from '../../core/report/sheetFixtures';
+import { pdfFonts, pdfInfo, pdfText, savePdf } from './pdfTools';
+
+// The PDF is read back with poppler (pdfinfo, pdftotext, pdffonts), a reader independent of
+// pdfmake; the numbers are compared with what `compute --json` prints for the same file.
+
+const folder = tempDir('cl-sheet-');
+const a4Path = join(folder, 'review-a4.pdf');
+const a4Again = join(folder, 'review-a4-again.pdf');
+const letterPath = join(folder, 'review-letter.pdf');
+const demo = demoCase('th-0417');
+const made = [
+  await cli('sheet', demo, '-o', a4Path, '--prepared-by', 'Pharmacist AB'),
+  await cli('sheet', demo, '-o', a4Again, '--prepared-by', 'Pharmacist AB'),
+  await cli('sheet', demo, '-o', letterPath, '--paper', 'letter', '--prepared-by', 'Pharmacist AB'),
+];
+const computed = JSON.parse((await cli('compute', demo, '--json')).out);
+const info = pdfInfo(a4Path);
+const pageCount = Number(info.Pages);
+const pages = Array.from({ length: pageCount }, (_, index) => pdfText(a4Path, index + 1));
+const text = pages.join(' ');
+const fmt = (value: number, decimals: number) => formatNumber(value, decimals);
+const normalisedCaution = sheetCaution.replace(/\s+/g, ' ');
+
+describe('review sheet PDF (app/host/sheetPdf via the sheet command)', () => {
+  it('is written by the command on A4 and Letter, with its metadata', () => {
+    for (const run of made) expect(run.code, run.err).toBe(0);
+    expect(info['Page size']).toMatch(/^595\.\d* x 841\.\d* pts \(A4\)$/);
+    expect(pdfInfo(letterPath)['Page size']).toBe('612 x 792 pts (letter)');
+    expect(info.Title).toBe('Chelation review sheet: TH-0417, 2026-11-20');
+    expect(info.Author).toBe('Pharmacist AB');
+    expect(info.Creator).toBe('chelation-ledger 0.1.0');
+    // The creation date is the review date, never the clock.
+    expect(info.CreationDate).toMatch(/Nov 20 00:00:00 2026/);
+    expect(pageCount).toBeGreaterThanOrEqual(5);
+  });
+
+  it('is byte-identical for the same case and review date', () => {
+    expect(readFileSync(a4Again).equals(readFileSync(a4Path))).toBe(true);
+  });
+
+  it('prints the caution, the header and "page N of M" on every page', () => {
+    pages.forEach((page, index) => {
+      expect(page).toContain(normalisedCaution);
+      expect(page).toContain(`page ${index + 1} of ${pageCount}`);
+      expect(page).toContain('Chelation review sheet — TH-0417');
+      expect(page).toContain('review date 2026-11-20');
+    });
+    const letterPages = Number(pdfInfo(letterPath).Pages);
+    for (let page = 1; page <= letterPages; page += 1) expect(pdfText(letterPath, page)).toContain(normalisedCaution);
+  });
+
+  it('prints the SHA-256 of the case file it was made from (as sha256sum would)', () => {
+    const digest = createHash('sha256').update(readFileSync(demo)).digest('hex');
+    expect(text).toContain(digest);
+  });
+
+  it('embeds Roboto only, so µ, ×, ≥ and superscripts print', () => {
+    const fonts = pdfFonts(a4Path);
+    expect(fonts.length).toBeGreaterThan(0);
+    for (const font of fonts) {
+      expect(font.name).toMatch(/\+Roboto-/);
+      expect(font.embedded).toBe(true);
+    }
+    expect(text).toContain('µg/L');
+    expect(text).toContain('× 1/day');
+  });
+
+  it('prints every headline number exactly as compute --json gives it', () => {
+    const { results } = computed;
+    const expected = [
+      `${fmt(results.intake.mgPerKgPerDay, 2)} mg/kg/day — ${results.intake.band}`,
+      `in ${fmt(results.intake.transfusedMg, 0)} mg`,
+      `net ${fmt(results.intake.netMg, 0)} mg`,
+      `${fmt(results.intake.cumulativeNetMg / 1000, 1)} g`,
+      `${fmt(results.bodyIron.lastMeasured.licMgPerGDry, 1)} mg/g dry on ${results.bodyIron.lastMeasured.date}`,
+      `${fmt(results.bodyIron.licMgPerGDry, 1)} mg/g dry —`,
+      `body iron stores ${fmt(results.bodyIron.bodyIronMg / 1000, 2)} g`,
+      `latest ${fmt(results.ferritin.latest.valueUgPerL, 0)} µg/L`,
+      `future intake ${fmt(results.projection.intakeMgPerDay, 1)} mg/day`,
+      ...results.currentRegimens.map((regimen: { doseMgPerKgPerDay: number; expectedRemovalMgPerDay: number; expectedRemovalMgPerKgPerDay: number }) => `${fmt(regimen.doseMgPerKgPerDay, 1)} ${fmt(regimen.expectedRemovalMgPerDay, 1)} ${fmt(regimen.expectedRemovalMgPerKgPerDay, 2)}`),
+      ...results.responses.flatMap((response: { measuredChelationMgPerKgPerDay: number; expectedChelationMgPerKgPerDay: number; measuredToExpectedRatio: number }) => [
+        `${fmt(response.measuredChelationMgPerKgPerDay, 2)} ${fmt(response.expectedChelationMgPerKgPerDay, 2)} ${fmt(response.measuredToExpectedRatio * 100, 0)} %`,
+      ]),
+      ...results.projection.scenarios.flatMap((scenario: { netMgPerKgPerDay: number; months: { licMgPerGDry: number; licP10: number; licP90: number }[] }) => [
+        fmt(scenario.netMgPerKgPerDay, 2),
+        ...[6, 12, 24].map((months) => {
+          const month = scenario.months[months]!;
+          return `${fmt(month.licMgPerGDry, 1)} (${fmt(month.licP10, 1)}–${fmt(month.licP90, 1)})`;
+        }),
+      ]),
+    ];
+    for (const phrase of expected) expect(text.includes(phrase), phrase).toBe(true);
+  });
+
+  it('prints every finding compute returns, and the formulas and sources of the method appendix', () => {
+    for (const finding of computed.findings) expect(text.includes(finding.text.replace(/\s+/g, ' ').slice(0, 60)), finding.text).toBe(true);
+    const input = demoSheetInput();
+    const appendixFormulas = buildSheet(input).sections.find((section) => section.id === 'method-appendix')!;
+    expect(appendixFormulas.blocks.length).toBeGreaterThan(3);
+    for (const formulaId of ['iron-intake-rate', 'net-transfusional-iron', 'body-iron-carried-forward', 'projected-lic', 'expected-excretion', 'measured-chelation']) {
+      expect(text.includes(`[${formulaId}]`), formulaId).toBe(true);
+    }
+    for (const source of ['Angelucci E, Brittenham GM, McLaren CE', 'Brittenham GM, N Engl J Med 2011;364:146-156', 'Cohen AR, Glimm E, Porter JB']) expect(text.includes(source), source).toBe(true);
+    expect(text).toContain('published default');
+  });
+
+  it('leaves the sign-off lines for the prescriber on the last page', () => {
+    const last = pages[pages.length - 1]!;
+    for (const field of ['Review and sign-off', 'Reviewed by', 'Prescriber (name)', 'Signature', 'Decision and comments']) expect(last).toContain(field);
+  });
+
+  it('renders the same sheet to the same bytes in-process too, and shows characters the font lacks by code point', async () => {
+    const sheet = buildSheet(demoSheetInput());
+    const [first, second] = [await writeSheetPdf(sheet, { paper: 'letter' }), await writeSheetPdf(sheet, { paper: 'letter' })];
+    expect(first.subarray(0, 5).toString()).toBe('%PDF-');
+    expect(first.equals(second)).toBe(true);
+    // Roboto has no arrows: the demo's review note "9.8 → 11.4" keeps its arrow as a visible code point.
+    expect(printable('9.8 → 11.4 µg ≥ 3')).toBe('9.8 [U+2192] 11.4 µg ≥ 3');
+    expect(pdfText(savePdf(first))).toContain('Liver iron 9.8 [U+2192] 11.4 mg/g dry');
+  }, 60_000);
+});
