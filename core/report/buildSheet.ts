@@ -60,6 +60,13 @@ const resultKindLabel: Readonly<Record<string, string>> = {
   haemoglobin: 'haemoglobin',
   'blood-lead': 'blood lead',
   'urinary-copper': 'urinary copper',
+  platelets: 'platelets',
+  ast: 'AST',
+  bilirubin: 'bilirubin',
+  'urine-protein-creatinine-ratio': 'urine protein-to-creatinine ratio',
+  zinc: 'zinc',
+  audiology: 'audiology',
+  'eye-examination': 'eye examination',
 };
 
 function sourceText(ids: readonly string[]): string[] {
@@ -295,7 +302,11 @@ function tablesSection(input: SheetInput): SheetSection {
     rows: shownResults.map((entry) => [
       entry.date,
       resultKindLabel[entry.kind] ?? entry.kind,
-      withUnit(formatPlain(entry.measured.value), entry.measured.unit),
+      'measured' in entry
+        ? entry.measured.unitAsTyped !== undefined
+          ? `${formatPlain(entry.measured.value)} ${entry.measured.unitAsTyped}`
+          : withUnit(formatPlain(entry.measured.value), entry.measured.unit)
+        : entry.outcome,
       [
         'method' in entry ? `method ${entry.method}` : '',
         'fieldStrengthT' in entry ? `${entry.fieldStrengthT} T` : '',
