@@ -1,9 +1,9 @@
 import { buildSheet } from '../../core/report/buildSheet';
-import type { Sheet } from '../../core/report/sheet';
+import { sheetPapers, type Sheet, type SheetPaper } from '../../core/report/sheet';
 import { formatIssues, type Result } from '../../core/result';
 import { writeFileAtomic } from '../host/atomicWrite';
 import { sha256OfFile } from '../host/contentHash';
-import { papers, writeSheetPdf, type Paper, type SheetPdfOptions } from '../host/sheetPdf';
+import type { SheetPdfOptions } from '../host/sheetPdf';
 import { toolVersion } from '../host/toolVersion';
 import type { ParsedArgs } from './args';
 import { reviewCase, type CaseIo } from './caseReview';
@@ -49,7 +49,7 @@ export async function sheetCommand(args: ParsedArgs, io: CaseIo & Partial<SheetH
     io.err(sheetUsage);
     return exitCodes.usage;
   }
-  if (!(papers as readonly string[]).includes(paperText)) problems.push(`--paper: "${paperText}" is not a paper size of the sheet (a4 or letter).`);
+  if (!(sheetPapers as readonly string[]).includes(paperText)) problems.push(`--paper: "${paperText}" is not a paper size of the sheet (a4 or letter).`);
   if (preparedBy !== undefined && (preparedBy.trim() === '' || preparedBy.length > 100 || /[\u0000-\u001f]/.test(preparedBy))) {
     problems.push(`--prepared-by: "${preparedBy}" is not a name of 1–100 printable characters.`);
   }
@@ -81,8 +81,10 @@ export async function sheetCommand(args: ParsedArgs, io: CaseIo & Partial<SheetH
     toolVersion,
     preparedBy: preparedBy?.trim() ?? null,
   });
-  const paper = paperText as Paper;
-  const bytes = await (io.renderSheet ?? writeSheetPdf)(sheet, { paper });
+  const paper = paperText as SheetPaper;
+  // The PDF library loads only when a sheet is written, so the other commands start fast.
+  const render = io.renderSheet ?? (await import('../host/sheetPdf')).writeSheetPdf;
+  const bytes = await render(sheet, { paper });
   const written = await (io.writeSheet ?? ((path, data, options) => writeFileAtomic(path, data, options)))(output!, bytes, { overwrite: args.switches.has('--force') });
   if (!written.ok) {
     io.err(formatIssues(written.issues));

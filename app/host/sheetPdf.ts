@@ -13,13 +13,10 @@ import { openSync, type Font } from 'fontkit';
 import pdfmake from 'pdfmake';
 import robotoFonts from 'pdfmake/fonts/Roboto.js';
 import type { Content, TableCell, TDocumentDefinitions } from 'pdfmake/interfaces';
-import type { Sheet, SheetBlock, SheetSection } from '../../core/report/sheet';
-
-export type Paper = 'a4' | 'letter';
-export const papers: readonly Paper[] = ['a4', 'letter'];
+import type { Sheet, SheetBlock, SheetPaper, SheetSection } from '../../core/report/sheet';
 
 export interface SheetPdfOptions {
-  readonly paper: Paper;
+  readonly paper: SheetPaper;
 }
 
 const fontFiles = new Set(Object.values(robotoFonts.Roboto));

@@ -10,6 +10,10 @@ import type { Chart } from './chart';
 export const sheetCaution =
   'Decision support only, not a prescription. Every value here is an estimate with stated uncertainty. The prescriber and local protocols decide; for review by the prescriber. Verify each value against the record before acting on it.';
 
+/** Paper sizes the sheet is laid out for. */
+export const sheetPapers = ['a4', 'letter'] as const;
+export type SheetPaper = (typeof sheetPapers)[number];
+
 export interface SheetHeader {
   readonly title: string;
   readonly caseLabel: string;
