@@ -1,5 +1,6 @@
 import type { Derivation } from '../../core/formulas/derivation';
-import { maxProposedRegimens } from '../../core/model/caseFile';
+import { maxProposedRegimens, type Case } from '../../core/model/caseFile';
+import { periodDoseLines, type PeriodDoseLine } from './regimenDoses';
 import { formatNumber, formatQuantity } from './format';
 import type { Review } from './review';
 
@@ -12,6 +13,7 @@ export interface RegimenColumn {
   readonly basis: string;
   readonly milestones: readonly { readonly months: number; readonly central: string; readonly band: string; readonly derivation: Derivation }[];
   readonly crossings: readonly string[];
+  readonly doses: readonly PeriodDoseLine[];
 }
 
 export interface RegimensView {
@@ -22,8 +24,13 @@ export interface RegimensView {
 }
 
 /** The Regimens screen: the current regimen and each what-if side by side, from core's projection. */
-export function regimensView(review: Review, proposedCount: number): RegimensView {
+export function regimensView(review: Review, caseFile: Case): RegimensView {
   const projection = review.results.projection;
+  const proposedCount = caseFile.proposedRegimens.length;
+  const periodsOf = (scenarioId: string) =>
+    scenarioId === 'current'
+      ? caseFile.chelationPeriods.filter((period) => period.startDate <= review.asOf && (period.endDate === null || period.endDate >= review.asOf))
+      : (caseFile.proposedRegimens.find((regimen) => regimen.id === scenarioId)?.periods ?? []);
   const columns: RegimenColumn[] = (projection?.scenarios ?? []).map((scenario) => ({
     id: scenario.id,
     name: scenario.name,
@@ -45,14 +52,15 @@ export function regimensView(review: Review, proposedCount: number): RegimensVie
     crossings: scenario.crossings.map((crossing) =>
       crossing.monthsAhead === null
         ? `does not ${crossing.direction === 'falls below' ? 'fall below' : 'rise above'} ${formatNumber(crossing.thresholdMgPerGDry, 0)} within the horizon`
-        : `${crossing.direction} ${formatNumber(crossing.thresholdMgPerGDry, 0)} at month ${crossing.monthsAhead} (${crossing.date}); band ${crossing.bandEarliestMonths ?? '—'}–${crossing.bandLatestMonths ?? 'beyond horizon'}`,
+        : `${crossing.direction} ${formatNumber(crossing.thresholdMgPerGDry, 0)} at month ${crossing.monthsAhead} (${crossing.date}); across the band between month ${crossing.bandEarliestMonths ?? '—'} and ${crossing.bandLatestMonths === null ? 'beyond the horizon' : `month ${crossing.bandLatestMonths}`}`,
     ),
+    doses: periodDoseLines(periodsOf(scenario.id), review.results.patient.weightKg),
   }));
   return {
     columns,
     canAddWhatIf: proposedCount < maxProposedRegimens,
     note: projection
-      ? `Projected LIC, mg/g dry weight: central value and 10th–90th percentile band (${formatNumber(projection.samples, 0)} seeded samples, seed ${projection.seed}); future intake held at ${formatQuantity(projection.intakeMgPerDay, 1, 'mg/d')}.`
+      ? `Projected LIC, mg/g dry weight: central value and 10th–90th percentile band (${formatNumber(projection.samples, 0)} seeded samples, seed ${projection.seed}); future intake held at ${formatQuantity(projection.intakeMgPerDay, 1, 'mg/d')}. Removal is held constant, while real chelators remove less as iron falls: values far below 3 overstate the fall.`
       : 'No projection: it needs a liver iron result on record.',
     projectionSettings: projection ? `horizon ${projection.horizonMonths} months` : '',
   };

@@ -17,7 +17,10 @@ export function AboutDialog() {
   }, [open]);
   return (
     <dialog ref={ref} aria-labelledby="about-title" onClose={() => workspaceStore.getState().setAboutOpen(false)}>
-      <h2 id="about-title">About chelation-ledger</h2>
+      <div className="dialog-head">
+        <h2 id="about-title">About chelation-ledger</h2>
+        <button type="button" autoFocus onClick={() => workspaceStore.getState().setAboutOpen(false)}>Close</button>
+      </div>
       <p>Version {version}. Host: {hostKind}.</p>
       <p>
         Decision support for clinical pharmacists reviewing chelation therapy: transfusional iron, body iron, chelator removal, projections and

@@ -27,7 +27,7 @@ export function RegimensView() {
   if (!outcome || !draft) return <p>Open a case first.</p>;
   if (!outcome.ok) return <ReviewProblem issues={outcome.issues} />;
   const proposed = (draft.base.proposedRegimens ?? []) as Record<string, unknown>[];
-  const view = regimensView(outcome.review, proposed.length);
+  const view = regimensView(outcome.review, caseFile!);
   const { edit } = workspaceStore.getState();
   const columns = tableColumns.chelationPeriods.filter((column) => (formKeys as readonly string[]).includes(column.key));
   const proposalIssues = (otherIssues ?? []).filter((issue) => issue.path[0] === 'proposedRegimens');
@@ -60,8 +60,16 @@ export function RegimensView() {
               ))}
               <tr><th scope="row">Crossings of 15, 7 and 3 mg/g</th>{view.columns.map((column) => <td key={column.id}><ul className="plain">{column.crossings.map((text) => <li key={text}>{text}</li>)}</ul></td>)}</tr>
               <tr>
+                <th scope="row">Iron bound per administration (ceiling)</th>
+                {view.columns.map((column) => <td key={column.id}><ul className="plain">{column.doses.map((dose) => <li key={dose.period}>{dose.period}: {dose.capacity}</li>)}</ul></td>)}
+              </tr>
+              <tr>
+                <th scope="row">Practical dose with the shelf strengths</th>
+                {view.columns.map((column) => <td key={column.id}><ul className="plain">{column.doses.map((dose) => <li key={dose.period}>{dose.practical}</li>)}</ul></td>)}
+              </tr>
+              <tr>
                 <th scope="row">Label zones</th>
-                {view.columns.map((column) => <td key={column.id} className="pending">not yet shown: waits for core's label zones (projections work in progress)</td>)}
+                {view.columns.map((column) => <td key={column.id} className="pending">not yet available in this version</td>)}
               </tr>
               <tr>
                 <th scope="row"><span className="visually-hidden">Actions</span></th>

@@ -17,7 +17,7 @@ export function SheetView() {
   if (!outcome || !caseFile) return <p>Open a case first.</p>;
   if (!outcome.ok) return <ReviewProblem issues={outcome.issues} />;
   const iron = ironCourseView(outcome.review);
-  const regimens = regimensView(outcome.review, caseFile.proposedRegimens.length);
+  const regimens = regimensView(outcome.review, caseFile);
   const findings = findingGroups(outcome.review.findings);
   const appendix = methodsOf(outcome.review);
   const { exportSheet, exportCalendar } = workspaceStore.getState();

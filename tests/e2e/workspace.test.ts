@@ -252,3 +252,33 @@ describe('accessibility of every screen', () => {
     await context.close();
   }, 120_000);
 });
+
+describe('through the preview server (app/preview) and the host client (renderer/host)', () => {
+  it('lists the demo workspace, opens a case and shows its iron course, with the chart from core', async () => {
+    const { mkdtempSync } = await import('node:fs');
+    const { tmpdir } = await import('node:os');
+    const { join } = await import('node:path');
+    const { runPreview } = await import('../../app/preview/runPreview');
+    const configFolder = mkdtempSync(join(tmpdir(), 'chelation-ledger-e2e-'));
+    const started = await runPreview({ appName: 'chelation-ledger', appVersion: '0.0.0-test', appFolder: repoRoot, configFolder });
+    if (!started.ok) throw new Error(started.issues.map((it) => it.message).join('; '));
+    const preview = started.value;
+    const context = await browser.newContext({ viewport: { width: 1400, height: 900 } });
+    const page = await context.newPage();
+    const errors: string[] = [];
+    page.on('pageerror', (error) => errors.push(error.message));
+    try {
+      await page.goto(preview.url);
+      await page.locator('button[aria-label="Open TH-0417"]').click();
+      await page.click('nav button:has-text("Iron course")');
+      expect(await page.locator('.summary').textContent()).toContain('11.4 mg/g dry weight on 2026-11-17');
+      expect(await page.locator('.chart-image').count()).toBe(2);
+      await page.click('button:has-text("About")');
+      expect(await page.locator('dialog').textContent()).toContain('desktop app or preview server');
+      expect(errors).toEqual([]);
+    } finally {
+      await context.close();
+      await preview.close();
+    }
+  }, 120_000);
+});
