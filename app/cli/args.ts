@@ -7,8 +7,10 @@ export interface ParsedArgs {
   readonly positionals: readonly string[];
   readonly options: Readonly<Record<string, string>>;
   readonly switches: ReadonlySet<string>;
-  /** Options given without a value (e.g. a trailing `--volume-ml`). */
+  /** Options given without a value (a trailing `--volume-ml`, or an empty `--volume-ml=`). */
   readonly missingValues: readonly string[];
+  /** Options given more than once, with every value typed (none is chosen silently). */
+  readonly repeated: Readonly<Record<string, readonly string[]>>;
 }
 
 export function parseArgs(argv: readonly string[], switchNames: readonly string[]): ParsedArgs {
@@ -16,6 +18,15 @@ export function parseArgs(argv: readonly string[], switchNames: readonly string[
   const options: Record<string, string> = {};
   const switches = new Set<string>();
   const missingValues: string[] = [];
+  const seen: Record<string, string[]> = {};
+  const setOption = (flag: string, value: string) => {
+    if (value.trim() === '') {
+      missingValues.push(flag);
+      return;
+    }
+    (seen[flag] ??= []).push(value);
+    options[flag] = value;
+  };
   for (let index = 0; index < argv.length; index += 1) {
     const word = argv[index]!;
     if (!word.startsWith('--') || word === '--') {
@@ -29,7 +40,7 @@ export function parseArgs(argv: readonly string[], switchNames: readonly string[
       continue;
     }
     if (equals >= 0) {
-      options[flag] = word.slice(equals + 1);
+      setOption(flag, word.slice(equals + 1));
       continue;
     }
     const next = argv[index + 1];
@@ -38,10 +49,21 @@ export function parseArgs(argv: readonly string[], switchNames: readonly string[
       missingValues.push(flag);
       continue;
     }
-    options[flag] = next;
+    setOption(flag, next);
     index += 1;
   }
-  return { positionals, options, switches, missingValues };
+  const repeated = Object.fromEntries(Object.entries(seen).filter(([, values]) => values.length > 1));
+  return { positionals, options, switches, missingValues, repeated };
+}
+
+/**
+ * Problems every command refuses before it runs: an option given twice (a pharmacist
+ * could read the first value while the tool used the last). One sentence per flag.
+ *
+ * @example repeatedOptionProblems(parseArgs(['--seed', '1', '--seed', '2'], [])) → ['--seed: given 2 times ("1", "2"); give it once.']
+ */
+export function repeatedOptionProblems(args: ParsedArgs): string[] {
+  return Object.entries(args.repeated).map(([flag, values]) => `${flag}: given ${values.length} times (${values.map((it) => `"${it}"`).join(', ')}); give it once.`);
 }
 
 /** `-o FILE` arrives as two positionals (the parser reads only --flags); take it out. */

@@ -21,9 +21,10 @@ import {
   type PmComparisonRow,
   type SweepPoint,
 } from '../../core/chemistry';
+import { parseDecimal } from '../../core/numbers/parseDecimal';
 import { citeShort, findSource } from '../../core/references';
 import { kg } from '../../core/units/quantity';
-import { parseArgs, type ParsedArgs } from './args';
+import { parseArgs, repeatedOptionProblems, type ParsedArgs } from './args';
 import { decisionSupportCaution, formatNumber } from './format';
 import { exitCodes, type CliIo } from './io';
 
@@ -58,7 +59,7 @@ export function bindingCommand(argv: readonly string[], io: CliIo): number {
   }
   const sweep = args.switches.has('--sweep');
   const known: readonly string[] = sweep ? sweepOptions : tableOptions;
-  const problems: string[] = args.missingValues.map((flag) => `${flag}: a value is missing after the flag.`);
+  const problems: string[] = [...repeatedOptionProblems(args), ...args.missingValues.map((flag) => `${flag}: a value is missing after the flag.`)];
   for (const flag of Object.keys(args.options)) {
     if (!known.includes(flag)) problems.push(`${flag}: not an option of binding${sweep ? ' --sweep' : ''} (${known.join(', ')}, --json).`);
   }
@@ -72,8 +73,8 @@ export function bindingCommand(argv: readonly string[], io: CliIo): number {
 function numberOption(args: ParsedArgs, flag: string, fallback: number | undefined, min: number, max: number, problems: string[]): number | undefined {
   const raw = args.options[flag];
   if (raw === undefined) return fallback;
-  const value = Number(raw);
-  if (raw.trim() === '' || !Number.isFinite(value) || value < min || value > max) {
+  const value = parseDecimal(raw);
+  if (value === undefined || value < min || value > max) {
     problems.push(`${flag}: "${raw}" is outside the plausible range ${min}–${max}.`);
     return undefined;
   }

@@ -127,7 +127,7 @@ function formatDescription(description: FormulaDescription): string {
     const domain =
       input.kind === 'choice'
         ? `one of ${input.choices!.join(' | ')}`
-        : `${input.unit === '1' ? 'fraction' : input.unit}, ${formatPlain(input.min!)}–${formatPlain(input.max!)}`;
+        : `${input.unit === '1' ? 'fraction' : input.unit}, ${formatPlain(input.min!)}–${formatPlain(input.max!)}${input.range!.includes('(') ? ` ${input.range!.slice(input.range!.indexOf('('))}` : ''}${input.integer ? ', whole number' : ''}`;
     const fallback =
       input.default !== undefined ? `; default ${input.default}${input.defaultFrom ? ` (${input.defaultFrom})` : ''}` : '';
     const needed = input.usedWhen ? `; used only with ${input.usedWhen}` : input.required ? '' : input.default === undefined ? '; optional' : '';

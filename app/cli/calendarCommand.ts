@@ -1,9 +1,10 @@
 import { isIsoDate } from '../../core/dates/isoDate';
+import { parseDecimal } from '../../core/numbers/parseDecimal';
 import { monitoringCalendar, type MonitoringCalendar, type MonitoringItem } from '../../core/monitoring';
 import { formatIssues, type Result } from '../../core/result';
 import { itemSources, monitoringIcs, writeCalendarFile } from '../host/icalendar';
 import { splitOutput, type ParsedArgs } from './args';
-import type { CaseIo } from './caseReview';
+import { asOfSource, type CaseIo } from './caseReview';
 import { decisionSupportCaution } from './format';
 import { exitCodes } from './io';
 
@@ -78,15 +79,16 @@ export function calendarCommand(args: ParsedArgs, io: CaseIo & Partial<CalendarH
   const asOf = args.options['--as-of'] ?? loaded.value.review.reviewDate ?? io.today();
   if (!isIsoDate(asOf)) problems.push(`--as-of: "${asOf}" is not a calendar date written YYYY-MM-DD.`);
   const ancRaw = args.options['--anc-interval-days'];
-  const ancIntervalDays = ancRaw === undefined ? undefined : Number(ancRaw);
-  if (ancRaw !== undefined && !Number.isFinite(ancIntervalDays)) problems.push(`--anc-interval-days: "${ancRaw}" is not a number; enter whole days 1–90.`);
+  const ancIntervalDays = ancRaw === undefined ? undefined : parseDecimal(ancRaw);
+  if (ancRaw !== undefined && ancIntervalDays === undefined) problems.push(`--anc-interval-days: "${ancRaw}" is not a number; enter whole days 1–90.`);
   if (problems.length > 0) {
     io.err(problems.join('\n'));
     return exitCodes.invalidInput;
   }
   const calendar = monitoringCalendar(loaded.value, asOf, ancIntervalDays === undefined ? {} : { ancIntervalDays });
   if (!calendar.ok) {
-    io.err(formatIssues(calendar.issues.map((it) => (it.path[0] === 'ancIntervalDays' ? { ...it, path: ['--anc-interval-days'] } : it))));
+    const flagOf: Readonly<Record<string, string>> = { ancIntervalDays: '--anc-interval-days', asOf: asOfSource(args, loaded.value) };
+    io.err(formatIssues(calendar.issues.map((it) => (flagOf[String(it.path[0])] !== undefined ? { ...it, path: [flagOf[String(it.path[0])]!] } : it))));
     return exitCodes.invalidInput;
   }
   if (output !== undefined) {

@@ -28,6 +28,14 @@ function printWarnings(warnings: readonly Issue[] | undefined, io: CliIo): void 
 
 /** `check <case.json>`: validate and list issues; exit 1 on errors. */
 export function checkCommand(args: ParsedArgs, io: CaseIo): number {
+  const extra = [
+    ...args.positionals.slice(1).map((it) => `Unexpected word "${it}": check takes one case file.`),
+    ...[...Object.keys(args.options), ...args.missingValues, ...[...args.switches].filter((it) => it !== '--help')].map((it) => `${it}: not an option of check (it takes only the case file).`),
+  ];
+  if (extra.length > 0) {
+    io.err(`${extra.join('\n')}\nUsage: chelation-ledger check <case.json>`);
+    return exitCodes.usage;
+  }
   const loaded = loadCase(args, io, 'check');
   if (!loaded) return exitCodes.usage;
   const { path, result } = loaded;

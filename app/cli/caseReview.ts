@@ -1,4 +1,5 @@
 import { isIsoDate } from '../../core/dates/isoDate';
+import { parseDecimal } from '../../core/numbers/parseDecimal';
 import { computeCase, type CaseResults, type ComputeOptions } from '../../core/ledger/computeCase';
 import type { Case } from '../../core/model/caseFile';
 import { formatIssues, type Issue, type Result } from '../../core/result';
@@ -30,6 +31,12 @@ export interface ReviewOptions {
   readonly usage: string;
 }
 
+/** Where a command's review date came from, to name it in a message: the flag, the case's review date, or today. */
+export function asOfSource(args: ParsedArgs, caseFile: Case): string {
+  if (args.options['--as-of'] !== undefined) return '--as-of';
+  return caseFile.review.reviewDate !== null ? 'review.reviewDate' : 'review date (today)';
+}
+
 /**
  * The shared path of `compute`, `explain` and `findings`: read the case,
  * check the options (review date, horizon, seed), compute the review and
@@ -55,13 +62,14 @@ export function reviewCase(args: ParsedArgs, io: CaseIo, options: ReviewOptions)
     if (!known.includes(flag)) problems.push(`${flag}: not an option of ${options.command} (${[...known, '--json'].join(', ')}).`);
   }
   for (const flag of args.missingValues) problems.push(`${flag}: a value is missing after the flag.`);
+  for (const flag of args.switches) if (flag !== '--json' && flag !== '--help') problems.push(`${flag}: not an option of ${options.command}.`);
   const asOf = args.options['--as-of'] ?? loaded.value.review.reviewDate ?? io.today();
   if (!isIsoDate(asOf)) problems.push(`--as-of: "${asOf}" is not a calendar date written YYYY-MM-DD.`);
   const computeOptions: Record<string, number> = {};
   for (const [flag, { min, max, key }] of Object.entries(integerOptions)) {
     const raw = args.options[flag];
     if (raw === undefined) continue;
-    const value = Number(raw);
+    const value = parseDecimal(raw) ?? Number.NaN;
     if (!Number.isInteger(value) || value < min || value > max) problems.push(`${flag}: "${raw}" is not a whole number in ${min}–${max}.`);
     else computeOptions[key] = value;
   }
@@ -71,7 +79,8 @@ export function reviewCase(args: ParsedArgs, io: CaseIo, options: ReviewOptions)
   }
   const computed = computeCase(loaded.value, asOf, computeOptions as ComputeOptions);
   if (!computed.ok) {
-    io.err(formatIssues(computed.issues));
+    const asOfFrom = asOfSource(args, loaded.value);
+    io.err(formatIssues(computed.issues.map((it) => (it.path[0] === 'asOf' ? { ...it, path: [asOfFrom] } : it))));
     return exitCodes.invalidInput;
   }
   // The local protocol's thresholds recorded in the case apply to every review of it.

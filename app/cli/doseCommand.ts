@@ -8,6 +8,7 @@ import {
   type Product,
   type ProductCatalogue,
 } from '../../core/dosing';
+import { parseDecimal } from '../../core/numbers/parseDecimal';
 import { citeShort, findSource } from '../../core/references';
 import { fail, formatIssues, issue, ok, type Result } from '../../core/result';
 import { kg } from '../../core/units/quantity';
@@ -71,8 +72,8 @@ function formatProposal(proposal: PracticalDoseProposal): string {
 function numberOption(args: ParsedArgs, flag: string, problems: string[]): number | undefined {
   const raw = args.options[flag];
   if (raw === undefined) return undefined;
-  const value = Number(raw);
-  if (raw.trim() === '' || !Number.isFinite(value)) {
+  const value = parseDecimal(raw);
+  if (value === undefined) {
     problems.push(`${flag}: "${raw}" is not a number.`);
     return undefined;
   }

@@ -1,4 +1,4 @@
-import { parseArgs, type ParsedArgs } from './args';
+import { parseArgs, repeatedOptionProblems, type ParsedArgs } from './args';
 import { bindingCommand } from './bindingCommand';
 import { calcCommand, calcUsage } from './calcCommand';
 import { calendarCommand, type CalendarHostIo } from './calendarCommand';
@@ -84,5 +84,11 @@ export async function runCli(argv: readonly string[], io: CliHostIo): Promise<nu
     io.err(`Unknown command "${command}".\n\n${usage}`);
     return exitCodes.usage;
   }
-  return run(parseArgs(rest, switches), io);
+  const args = parseArgs(rest, switches);
+  const repeated = repeatedOptionProblems(args);
+  if (repeated.length > 0) {
+    io.err(repeated.join('\n'));
+    return exitCodes.usage;
+  }
+  return run(args, io);
 }

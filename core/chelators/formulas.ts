@@ -1,3 +1,4 @@
+import { dailyDoseBounds, inputRange, weightBounds } from '../ranges';
 import { defineFormula, type AnyFormula } from '../formulas/types';
 import { issue, type Issue } from '../result';
 import { fraction, mg, mgPerKg, mgPerKgPerDay, ugPerL } from '../units/quantity';
@@ -17,7 +18,8 @@ import { substanceForm, substanceFormIds } from './substanceForms';
 /** Metals offered by the binding calculator; each chelator refuses those it is not catalogued for. */
 export const bindingMetalChoices = ['Fe', 'Al', 'Cu', 'Zn', 'Pb', 'Hg'] as const;
 
-const weightKgInput = { kind: 'number', label: 'body weight', unit: 'kg', min: 1, max: 250, meaning: 'body weight used for the mg/kg dose' } as const;
+// Weight and daily dose take the case model's ranges (core/ranges), so a dose `check` accepts is computed (and the safety rules judge it).
+const weightKgInput = { kind: 'number', label: 'body weight', ...inputRange(weightBounds), meaning: 'body weight used for the mg/kg dose' } as const;
 
 export const bindingCapacity = defineFormula({
   id: 'binding-capacity',
@@ -95,7 +97,7 @@ export const expectedExcretion = defineFormula({
   ],
   inputs: {
     chelator: { kind: 'choice', label: 'chelator', choices: chelatorIds, meaning: 'the product as dosed' },
-    doseMgPerKgPerDosingDay: { kind: 'number', label: 'dose on a dosing day', unit: 'mg/kg/d', min: 0.5, max: 150, meaning: 'dose on each day it is given, mg/kg of the form the product is dosed as' },
+    doseMgPerKgPerDosingDay: { kind: 'number', label: 'dose on a dosing day', ...inputRange(dailyDoseBounds), meaning: 'dose on each day it is given, mg/kg of the form the product is dosed as' },
     weightKg: weightKgInput,
     daysPerWeek: { kind: 'number', label: 'dosing days per week', unit: 'd/wk', min: 1, max: 7, integer: true, default: 7, meaning: 'days a week the chelator is given' },
     adherence: { kind: 'number', label: 'adherence', unit: '1', min: 0, max: 1, default: 1, meaning: 'share of prescribed doses taken, as a fraction' },

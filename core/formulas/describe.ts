@@ -1,6 +1,7 @@
 import { findAssumption } from '../assumptions';
 import { findSource, type Source } from '../references';
 import type { AnyFormula, InputSpec } from './types';
+import { describeRange, rangeFor } from './validate';
 
 /** A JSON-ready description of one formula input, as `calc --list` shows it. */
 export interface InputDescription {
@@ -9,8 +10,13 @@ export interface InputDescription {
   readonly label: string;
   readonly kind: 'number' | 'choice';
   readonly unit?: string;
+  /** The range a calculator accepts: the same check `calc` runs (core/formulas/validate.ts rangeFor). */
   readonly min?: number;
   readonly max?: number;
+  /** The range as messages state it, with excluded ends ("1–18 a (below 18)"). */
+  readonly range?: string;
+  /** Whole numbers only. */
+  readonly integer?: boolean;
   readonly choices?: readonly string[];
   readonly meaning: string;
   readonly required: boolean;
@@ -51,12 +57,15 @@ function describeInput(name: string, spec: InputSpec): InputDescription {
   }
   const assumption = spec.assumption !== undefined ? findAssumption(spec.assumption) : undefined;
   const fallback = assumption?.value ?? spec.default;
+  const range = rangeFor(spec, 'entered');
   return {
     ...base,
     kind: 'number',
     unit: spec.unit,
-    min: spec.min,
-    max: spec.max,
+    min: range.min,
+    max: range.max,
+    range: describeRange(range),
+    ...(spec.integer ? { integer: true } : {}),
     required: fallback === undefined && !spec.optional && spec.usedWhen === undefined,
     ...(fallback !== undefined ? { default: fallback } : {}),
     ...(spec.usedWhen ? { usedWhen: `${flagForInput(spec.usedWhen.input)} ${spec.usedWhen.oneOf.join(' | ')}` } : {}),

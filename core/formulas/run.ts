@@ -1,8 +1,8 @@
 import type { AssumptionOverrides } from '../assumptions';
-import { fail, ok, type Result } from '../result';
+import { fail, issue, ok, type Result } from '../result';
 import type { Derivation, DerivedInput, DerivedValue, Origin } from './derivation';
-import { isRefusal, type Formula, type InputSpecs, type InputValues, type OutputSpecs, type OutputValues } from './types';
-import { validateInputs } from './validate';
+import { isRefusal, type Formula, type InputSpecs, type InputValues, type OutputSpecs, type RawInputs, type OutputValues } from './types';
+import { validateInputs, type CheckMode } from './validate';
 
 export interface FormulaRun<Outputs extends OutputSpecs = OutputSpecs> {
   readonly outputs: OutputValues<Outputs>;
@@ -13,6 +13,8 @@ export interface RunOptions {
   /** Origins of the supplied inputs (entered by default; computed inputs carry their derivation). */
   readonly origins?: Readonly<Record<string, Origin>>;
   readonly overrides?: AssumptionOverrides;
+  /** `entered` (default; a calculator) or `record` (values from a checked case; see core/formulas/validate.ts). */
+  readonly mode?: CheckMode;
 }
 
 /**
@@ -29,7 +31,7 @@ export function runFormula<Inputs extends InputSpecs, Outputs extends OutputSpec
   raw: Readonly<Record<string, unknown>>,
   options: RunOptions = {},
 ): Result<FormulaRun<Outputs>> {
-  const validated = validateInputs(formula.inputs, raw, options.origins, options.overrides);
+  const validated = validateInputs(formula.inputs, raw, options.origins, options.overrides, options.mode);
   if (!validated.ok) return fail(...validated.issues);
   const computed = formula.compute(validated.value.values as InputValues<Inputs>);
   if (isRefusal(computed)) return fail(...computed.refused);
@@ -54,8 +56,11 @@ export function runFormula<Inputs extends InputSpecs, Outputs extends OutputSpec
     unit: spec.unit,
   }));
   for (const output of outputs) {
+    // Valid inputs at the edge of floating point (a denormal divisor) can still overflow.
     if (typeof output.value === 'number' && !Number.isFinite(output.value)) {
-      throw new Error(`Formula ${formula.id} produced a non-finite ${output.name} from valid inputs`);
+      return fail(
+        issue('out_of_range', [output.name], `${formula.title}: the inputs give no finite ${output.label} (an input is too close to zero or too large for the calculation); nothing was computed.`),
+      );
     }
   }
   return ok({
@@ -68,18 +73,23 @@ export function runFormula<Inputs extends InputSpecs, Outputs extends OutputSpec
       outputs,
       sourceIds: formula.sourceIds,
     },
-  });
+  }, validated.value.warnings);
 }
 
-/** Run a formula whose inputs are known to be valid (core-internal use); throws on issues, which would be a bug. */
-export function runTrusted<Inputs extends InputSpecs, Outputs extends OutputSpecs>(
+/**
+ * Run a formula from inside core (a review's headline numbers) on values from a checked
+ * case: the possible ranges apply (the case model already warned about implausible ones), with the inputs typed from the formula's spec so a misspelt
+ * name or a value of the wrong type does not compile. A refusal is a value: the
+ * caller turns it into an issue or a notice, never a throw.
+ *
+ * @example runInternal(ironIntakeRate, { totalIronMg: 5000, weightKg: 50, windowDays: 365 }).ok === true
+ */
+export function runInternal<Inputs extends InputSpecs, Outputs extends OutputSpecs>(
   formula: Formula<Inputs, Outputs>,
-  raw: Readonly<Record<string, unknown>>,
+  raw: RawInputs<Inputs>,
   options: RunOptions = {},
-): FormulaRun<Outputs> {
-  const result = runFormula(formula, raw, options);
-  if (!result.ok) {
-    throw new Error(`Formula ${formula.id} refused trusted inputs: ${result.issues.map((it) => it.message).join('; ')}`);
-  }
-  return result.value;
+): Result<FormulaRun<Outputs>> {
+  const result = runFormula(formula, raw as Readonly<Record<string, unknown>>, { mode: 'record', ...options });
+  if (result.ok) return result;
+  return fail(...result.issues.map((it) => (it.severity === 'error' ? { ...it, message: `Not computed (${formula.id}): ${it.message}` } : it)));
 }

@@ -12,9 +12,19 @@ export interface NumberInputSpec {
   readonly label: string;
   /** Unit as shown to the user (UCUM code where one exists; '1' for a fraction). */
   readonly unit: string;
-  /** Plausible range, inclusive. A value outside it is refused with this range stated. */
+  /**
+   * Accepted range, inclusive (the lower end exclusive with `minExclusive`). A value outside
+   * it is refused with this range stated. Quantities a case file also holds take it from
+   * core/ranges (`...inputRange(weightBounds)`), so a calculator and `check` agree.
+   */
   readonly min: number;
   readonly max: number;
+  readonly minExclusive?: boolean;
+  readonly maxExclusive?: boolean;
+  /** Plausible range: inside the accepted range but outside this one, the value is kept with a warning. */
+  readonly plausible?: { readonly min: number; readonly max: number };
+  /** Said after the range when a value is refused ("; for children use egfr-schwartz-bedside"). */
+  readonly outsideAdvice?: string;
   readonly meaning: string;
   readonly integer?: boolean;
   /** A fixed default (not a published assumption). */
@@ -66,6 +76,16 @@ export type InputValues<Specs extends InputSpecs> = {
   readonly [Name in keyof Specs]: Specs[Name] extends { optional: true } | { usedWhen: object }
     ? ValueOf<Specs[Name]> | undefined
     : ValueOf<Specs[Name]>;
+};
+
+/**
+ * The inputs a core caller passes to {@link runFormula} or `runInternal`, typed from the
+ * formula's spec: a number for a number input, one of the choices for a choice input.
+ * Every input may be left out (defaults and assumptions fill it, validation says what
+ * is required), but a misspelt name or a value of the wrong type does not compile.
+ */
+export type RawInputs<Specs extends InputSpecs> = {
+  readonly [Name in keyof Specs]?: ValueOf<Specs[Name]>;
 };
 
 export type OutputValues<Specs extends OutputSpecs> = {

@@ -1,4 +1,5 @@
 import { findAssumption, type AssumptionOverrides } from '../assumptions';
+import { parseDecimal } from '../numbers/parseDecimal';
 import { issue, type Issue } from '../result';
 import type { Origin } from './derivation';
 import type { ChoiceInputSpec, InputSpecs, NumberInputSpec } from './types';
@@ -6,12 +7,15 @@ import type { ChoiceInputSpec, InputSpecs, NumberInputSpec } from './types';
 export interface ValidatedInputs {
   readonly values: Readonly<Record<string, number | string | undefined>>;
   readonly origins: Readonly<Record<string, Origin>>;
+  /** Values kept although outside their plausible range. */
+  readonly warnings: readonly Issue[];
 }
 
-/** "0.40–0.85 mL" style range text used in every message. */
-export function describeRange(spec: NumberInputSpec): string {
+/** "0.40–0.85 mL" style range text used in every message; "0–400 kg (above 0)" when the lower end is excluded. */
+export function describeRange(spec: Pick<NumberInputSpec, 'min' | 'max' | 'unit' | 'minExclusive' | 'maxExclusive'>): string {
   const unit = spec.unit === '1' ? '' : ` ${spec.unit}`;
-  return `${spec.min}–${spec.max}${unit}`;
+  const ends = [...(spec.minExclusive ? [`above ${spec.min}`] : []), ...(spec.maxExclusive ? [`below ${spec.max}`] : [])];
+  return `${spec.min}–${spec.max}${unit}${ends.length > 0 ? ` (${ends.join(', ')})` : ''}`;
 }
 
 function withUnit(value: number, unit: string): string {
@@ -19,28 +23,41 @@ function withUnit(value: number, unit: string): string {
 }
 
 /**
+ * Which range a number is checked against. `entered`: a value typed at a calculator is
+ * refused outside the plausible range (a height in metres, a weight in grams). `record`:
+ * a value from a checked case file, which the case model accepted (warning about an
+ * implausible one), is refused only outside the possible range, so a review computes
+ * every case that `check` accepts. Both ranges come from the one table in core/ranges.
+ */
+export type CheckMode = 'entered' | 'record';
+
+/** The range a mode checks: the plausible range for entered values, the possible range for record values. */
+export function rangeFor(spec: NumberInputSpec, mode: CheckMode): Pick<NumberInputSpec, 'min' | 'max' | 'unit' | 'minExclusive' | 'maxExclusive'> {
+  return mode === 'entered' && spec.plausible ? { min: spec.plausible.min, max: spec.plausible.max, unit: spec.unit } : spec;
+}
+
+/**
  * Check one number against its spec. Returns the issues (empty when valid).
  * A fraction typed as a percentage (0.6 entered as 60) gets advice to enter the fraction.
  */
-export function checkNumber(name: string, value: number, spec: NumberInputSpec): Issue[] {
+export function checkNumber(name: string, value: number, spec: NumberInputSpec, mode: CheckMode = 'entered'): Issue[] {
+  const range = rangeFor(spec, mode);
   if (!Number.isFinite(value)) {
-    return [issue('not_a_number', [name], `${capitalise(spec.label)}: "${value}" is not a number; expected ${describeRange(spec)}.`)];
+    return [issue('not_a_number', [name], `${capitalise(spec.label)}: "${value}" is not a number; expected ${describeRange(range)}.`)];
   }
   if (spec.integer && !Number.isInteger(value)) {
-    return [issue('not_an_integer', [name], `${capitalise(spec.label)} ${value} must be a whole number in ${describeRange(spec)}.`)];
+    return [issue('not_an_integer', [name], `${capitalise(spec.label)} ${value} must be a whole number in ${describeRange(range)}.`)];
   }
-  if (value < spec.min || value > spec.max) {
+  const belowMin = range.minExclusive ? value <= range.min : value < range.min;
+  const aboveMax = range.maxExclusive ? value >= range.max : value > range.max;
+  if (belowMin || aboveMax) {
     let advice = '';
-    if (spec.unit === '1' && spec.max <= 1 && value > 1 && value <= 100) {
+    if (spec.unit === '1' && range.max <= 1 && value > 1 && value <= 100) {
       advice = `; enter it as a fraction (${roundForAdvice(value / 100)})`;
     }
-    return [
-      issue(
-        'out_of_range',
-        [name],
-        `${capitalise(spec.label)} ${withUnit(value, spec.unit)} is outside the plausible range ${describeRange(spec)}${advice}.`,
-      ),
-    ];
+    if (spec.outsideAdvice) advice += spec.outsideAdvice;
+    const which = mode === 'record' && spec.plausible ? 'possible' : 'plausible';
+    return [issue('out_of_range', [name], `${capitalise(spec.label)} ${withUnit(value, spec.unit)} is outside the ${which} range ${describeRange(range)}${advice}.`)];
   }
   return [];
 }
@@ -75,7 +92,7 @@ function isUsed(
 
 function toNumber(raw: unknown): number {
   if (typeof raw === 'number') return raw;
-  if (typeof raw === 'string' && raw.trim() !== '') return Number(raw.trim());
+  if (typeof raw === 'string') return parseDecimal(raw) ?? Number.NaN;
   return Number.NaN;
 }
 
@@ -89,6 +106,7 @@ function toNumber(raw: unknown): number {
  * @param raw - values by input name; strings are parsed as numbers for number inputs
  * @param given - origins of supplied values (default: entered)
  * @param overrides - assumption overrides from the case
+ * @param mode - `entered` (a calculator: plausible ranges) or `record` (a checked case: possible ranges)
  * @returns values and origins, or the issues (every invalid input at once)
  */
 export function validateInputs(
@@ -96,6 +114,7 @@ export function validateInputs(
   raw: Readonly<Record<string, unknown>>,
   given: Readonly<Record<string, Origin>> = {},
   overrides: AssumptionOverrides = {},
+  mode: CheckMode = 'entered',
 ): { ok: true; value: ValidatedInputs } | { ok: false; issues: Issue[] } {
   const values: Record<string, number | string | undefined> = {};
   const origins: Record<string, Origin> = {};
@@ -134,7 +153,7 @@ export function validateInputs(
         );
         continue;
       }
-      issues.push(...checkNumber(name, value, spec));
+      issues.push(...checkNumber(name, value, spec, mode));
       values[name] = value;
       origins[name] = given[name] ?? { kind: 'entered' };
     } else if (spec.assumption !== undefined) {
@@ -167,5 +186,5 @@ export function validateInputs(
     if (!(name in specs)) issues.push(issue('unknown_option', [name], `"${name}" is not an input of this calculation.`));
   }
   const errors = issues.filter((it) => it.severity === 'error');
-  return errors.length > 0 ? { ok: false, issues } : { ok: true, value: { values, origins } };
+  return errors.length > 0 ? { ok: false, issues } : { ok: true, value: { values, origins, warnings: issues } };
 }

@@ -1,3 +1,4 @@
+import { inputRange, weightBounds } from '../ranges';
 import { defineFormula, type AnyFormula } from '../formulas/types';
 import { issue } from '../result';
 import {
@@ -53,7 +54,8 @@ export const ironPerMlRedCellsInput = {
   meaning: 'mg of iron in 1 mL of pure red cells (1.08 default; 1.16 in some guidelines)',
 } as const;
 
-const weightInput = { kind: 'number', label: 'body weight', unit: 'kg', min: 1, max: 200, meaning: 'body weight' } as const;
+// Weight takes the case model's ranges (core/ranges): a review never meets a weight `check` accepts and this refuses.
+const weightInput = { kind: 'number', label: 'body weight', ...inputRange(weightBounds), meaning: 'body weight' } as const;
 
 /** Text output when an optional input of a band calculator was not given. */
 const notGiven = 'not given';
@@ -207,7 +209,7 @@ export const transfusionVolume = defineFormula({
     'An estimate for review by the prescriber; follow local protocols for volumes and rates.',
   ],
   inputs: {
-    weightKg: { kind: 'number', label: 'body weight', unit: 'kg', min: 0.5, max: 150, meaning: 'body weight' },
+    weightKg: weightInput,
     haemoglobinRiseGPerDl: { kind: 'number', label: 'haemoglobin rise', unit: 'g/dL', min: 0.1, max: 10, meaning: 'desired haemoglobin minus current haemoglobin' },
     unitHaematocrit: { kind: 'number', label: 'unit haematocrit', unit: '1', min: 0.4, max: 0.85, meaning: 'haematocrit of the unit as a fraction (about 0.6 in the study)' },
   },

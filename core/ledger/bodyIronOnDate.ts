@@ -1,7 +1,8 @@
 import { addDaysIso } from '../dates/isoDate';
 import type { IsoDate } from '../dates/isoDate';
 import type { Derivation } from '../formulas/derivation';
-import { runTrusted } from '../formulas/run';
+import { runInternal } from '../formulas/run';
+import type { Issue } from '../result';
 import type { LedgerNotice } from './caseToLedger';
 import { bodyIronCarriedForward, netIronBalance } from './formulas';
 import { sumDaily } from './ironAccount';
@@ -38,18 +39,19 @@ export function bodyIronOnDate(context: ReviewContext): { readonly bodyIron: Bod
   const sameDay = sortedLics.filter((it) => it.date === lastLic.date);
   const anchorLic = sameDay.reduce((sum, it) => sum + it.licMgPerGDry, 0) / sameDay.length;
   const sinceIron = transfusionalIronBetween(context, lastLic.date, asOf);
+  if (!sinceIron.ok) return notCarried(sinceIron.issues);
   const periodsSince = periodsBetween(context, lastLic.date, asOf);
-  const netSince = runTrusted(
+  const netSince = runInternal(
     netIronBalance,
     {
-      transfusionalNetMg: sinceIron.outputs.netMg,
+      transfusionalNetMg: sinceIron.value.outputs.netMg,
       chelationRemovalMg: sumDaily(account.daily.chelationOutMg, anchorIndex + 1, lastIndex),
       days: lastIndex - anchorIndex,
     },
     {
       overrides,
       origins: {
-        transfusionalNetMg: { kind: 'computed', derivation: sinceIron.derivation },
+        transfusionalNetMg: { kind: 'computed', derivation: sinceIron.value.derivation },
         chelationRemovalMg: {
           kind: 'record',
           description: `expected removal of the regimens on record ${addDaysIso(lastLic.date, 1)} to ${asOf}`,
@@ -60,18 +62,21 @@ export function bodyIronOnDate(context: ReviewContext): { readonly bodyIron: Bod
       },
     },
   );
-  const carried = runTrusted(
+  if (!netSince.ok) return notCarried(netSince.issues);
+  const carriedRun = runInternal(
     bodyIronCarriedForward,
-    { anchorLicMgPerGDry: anchorLic, anchorWeightKg: anchorWeight, netSinceMg: netSince.outputs.netMg, weightNowKg: weightKg },
+    { anchorLicMgPerGDry: anchorLic, anchorWeightKg: anchorWeight, netSinceMg: netSince.value.outputs.netMg, weightNowKg: weightKg },
     {
       origins: {
         anchorLicMgPerGDry: { kind: 'record', description: `LIC ${lastLic.date} (${lastLic.method})`, refs: sameDay.map((it) => it.ref) },
         anchorWeightKg: { kind: 'record', description: `weight on ${lastLic.date}`, refs: [] },
-        netSinceMg: { kind: 'computed', derivation: netSince.derivation },
+        netSinceMg: { kind: 'computed', derivation: netSince.value.derivation },
         weightNowKg: { kind: 'record', description: `latest weight on or before ${asOf}`, refs: [] },
       },
     },
   );
+  if (!carriedRun.ok) return notCarried(carriedRun.issues);
+  const carried = carriedRun.value;
   const notices: LedgerNotice[] =
     carried.outputs.bodyIronMg < 0
       ? [{ severity: 'review', text: 'The carried-forward body iron falls below zero: the expected removal exceeds what the record supports. Review the efficiency and adherence assumptions.' }]
@@ -84,5 +89,19 @@ export function bodyIronOnDate(context: ReviewContext): { readonly bodyIron: Bod
       derivation: carried.derivation,
     },
     notices,
+  };
+}
+
+/**
+ * The summary when a total since the last LIC leaves the range its formula accepts
+ * (a review date long after the record): no body iron on the review date, and a
+ * notice saying which value and range, instead of a number nobody should read.
+ */
+function notCarried(issues: readonly Issue[]): { readonly bodyIron: BodyIronSummary; readonly notices: readonly LedgerNotice[] } {
+  return {
+    bodyIron: { lastMeasured: null, bodyIronMg: null, licMgPerGDry: null, derivation: null },
+    notices: issues
+      .filter((it) => it.severity === 'error')
+      .map((it) => ({ severity: 'review' as const, text: `Body iron is not carried forward to the review date: ${it.message}` })),
   };
 }

@@ -2,6 +2,7 @@ import type { ResolvedAssumption } from '../assumptions';
 import type { IsoDate } from '../dates/isoDate';
 import type { Case } from '../model/caseFile';
 import { periodsActiveOn } from '../model/periodsActiveOn';
+import { checkReviewDate } from '../model/reviewWindow';
 import { ageOnDate } from '../patient/ageOnDate';
 import { fail, issue, ok, type Result } from '../result';
 import { bodyIronOnDate, type BodyIronSummary } from './bodyIronOnDate';
@@ -58,7 +59,9 @@ export interface CaseResults {
  *
  * @param caseFile - a parsed case (core/model parseCase)
  * @param asOf - the review date 'YYYY-MM-DD' (core never reads the clock)
- * @returns the results, or issues when the case lacks what the account needs (a weight)
+ * @returns the results, or issues when the case lacks what the account needs (a weight), the review
+ *   date is outside the case's window (core/model/reviewWindow.ts), or a total leaves the range of
+ *   the formula that reports it (never a throw)
  */
 export function computeCase(caseFile: Case, asOf: IsoDate, options: ComputeOptions = {}): Result<CaseResults> {
   const horizonMonths = options.horizonMonths ?? 24;
@@ -70,6 +73,8 @@ export function computeCase(caseFile: Case, asOf: IsoDate, options: ComputeOptio
   if (!Number.isInteger(horizonMonths) || horizonMonths < 1 || horizonMonths > 120) {
     return fail(issue('out_of_range', ['horizonMonths'], `Projection horizon ${horizonMonths} months is outside 1–120 months.`));
   }
+  const window = checkReviewDate(caseFile, asOf);
+  if (!window.ok) return window;
   const normalised = caseToLedgerInput(caseFile, asOf);
   const account = computeIronAccount(normalised.input);
   const lastIndex = account.daily.transfusedInMg.length - 1;
@@ -77,24 +82,34 @@ export function computeCase(caseFile: Case, asOf: IsoDate, options: ComputeOptio
   const context: ReviewContext = { caseFile, asOf, overrides: caseFile.assumptionOverrides, normalised, account, lastIndex, weightKg };
 
   const intake = intakeSummary(context);
+  if (!intake.ok) return intake;
   const bodyIron = bodyIronOnDate(context);
-  const currentRegimens = periodsActiveOn(caseFile.chelationPeriods, asOf).map((period) => regimenSummary(period, weightKg, context.overrides));
-  const responses = responseSummaries(context);
+  const currentRegimens: RegimenSummary[] = [];
+  for (const period of periodsActiveOn(caseFile.chelationPeriods, asOf)) {
+    const regimen = regimenSummary(period, weightKg, context.overrides);
+    if (!regimen.ok) return regimen;
+    currentRegimens.push(regimen.value);
+  }
+  const responseRun = responseSummaries(context);
+  if (!responseRun.ok) return responseRun;
+  const responses = responseRun.value;
   const lastResponse = responses[responses.length - 1];
   const ferritin = ferritinSummary(context, options.ferritinWindowMonths ?? 12, lastResponse);
-  const projection = projectionSummary(context, intake.intake, bodyIron.bodyIron, lastResponse, { horizonMonths, seed, samples });
+  const projectionRun = projectionSummary(context, intake.value.intake, bodyIron.bodyIron, lastResponse, { horizonMonths, seed, samples });
+  if (!projectionRun.ok) return projectionRun;
+  const projection = projectionRun.value;
 
   return ok({
     asOf,
     patient: { label: caseFile.patient.label, ageYears: ageOnDate(caseFile.patient.age, asOf), weightKg, diagnosisGroup: caseFile.patient.diagnosisGroup },
-    intake: intake.intake,
+    intake: intake.value.intake,
     months: account.months,
     bodyIron: bodyIron.bodyIron,
     currentRegimens,
     responses,
     ferritin: ferritin.ferritin,
     projection: projection.projection,
-    notices: [...normalised.notices, ...intake.notices, ...bodyIron.notices, ...ferritin.notices, ...projection.notices],
+    notices: [...normalised.notices, ...intake.value.notices, ...bodyIron.notices, ...ferritin.notices, ...projection.notices],
     assumptions: normalised.assumptions,
   });
 }

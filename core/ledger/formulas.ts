@@ -1,10 +1,11 @@
+import { inputRange, liverIronBounds, weightBounds } from '../ranges';
 import { defineFormula, type AnyFormula } from '../formulas/types';
 import { ironPerMlRedCellsInput } from '../iron/formulas';
 import { carriedForwardStores, measuredChelationMg, netIronBalanceMg, netTransfusionalIron, projectedLic } from './balance';
 
 const lic = (label: string) =>
-  ({ kind: 'number', label, unit: 'mg/g{dry}', min: 0, max: 60, meaning: `${label}, mg Fe per g dry liver` }) as const;
-const weight = (label: string) => ({ kind: 'number', label, unit: 'kg', min: 1, max: 250, meaning: label }) as const;
+  ({ kind: 'number', label, ...inputRange(liverIronBounds['mg/g{dry}']), meaning: `${label}, mg Fe per g dry liver` }) as const;
+const weight = (label: string) => ({ kind: 'number', label, ...inputRange(weightBounds), meaning: label }) as const;
 
 export const netTransfusionalIronFormula = defineFormula({
   id: 'net-transfusional-iron',

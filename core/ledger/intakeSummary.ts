@@ -1,6 +1,7 @@
 import { addDaysIso, type IsoDate } from '../dates/isoDate';
 import type { Derivation } from '../formulas/derivation';
-import { runTrusted } from '../formulas/run';
+import { runInternal } from '../formulas/run';
+import { ok, type Result } from '../result';
 import { ironIntakeRate } from '../iron/formulas';
 import { intakeBand } from '../iron/intakeBand';
 import type { MgPerKgPerDay } from '../units/quantity';
@@ -34,9 +35,9 @@ export interface IntakeSummary {
  * band, and the cumulative net since the first record.
  *
  * @param context - the review (see reviewContext.ts)
- * @returns the summary, and notices for a short record or a negative net
+ * @returns the summary, and notices for a short record or a negative net; an issue when a total leaves a formula's range
  */
-export function intakeSummary(context: ReviewContext): { readonly intake: IntakeSummary; readonly notices: readonly LedgerNotice[] } {
+export function intakeSummary(context: ReviewContext): Result<{ readonly intake: IntakeSummary; readonly notices: readonly LedgerNotice[] }> {
   const { account, lastIndex, asOf, weightKg } = context;
   const notices: LedgerNotice[] = [];
   const dayCount = lastIndex + 1;
@@ -50,34 +51,36 @@ export function intakeSummary(context: ReviewContext): { readonly intake: Intake
     notices.push({ severity: 'information', text: `The record covers only ${windowDays} days before the review date: the intake is averaged over those days.` });
   }
   const windowIron = transfusionalIronBetween(context, addDaysIso(windowFrom, -1), asOf);
-  const intakeRun = runTrusted(
+  if (!windowIron.ok) return windowIron;
+  const intakeRun = runInternal(
     ironIntakeRate,
-    { totalIronMg: Math.max(0, windowIron.outputs.netMg), weightKg, windowDays },
+    { totalIronMg: Math.max(0, windowIron.value.outputs.netMg), weightKg, windowDays },
     {
       origins: {
-        totalIronMg: { kind: 'computed', derivation: windowIron.derivation },
+        totalIronMg: { kind: 'computed', derivation: windowIron.value.derivation },
         weightKg: { kind: 'record', description: `latest weight on or before ${asOf}`, refs: [] },
         windowDays: { kind: 'record', description: `days ${windowFrom} to ${asOf}`, refs: [] },
       },
     },
   );
+  if (!intakeRun.ok) return intakeRun;
   if (netMg < 0) {
     notices.push({ severity: 'information', text: `More iron left with removed blood than came in over the trailing year (net ${Math.round(netMg)} mg); the intake rate is shown as 0.` });
   }
   const cumulativeNetMg = sumDaily(account.daily.transfusedInMg, 0, lastIndex) - sumDaily(account.daily.removedWithBloodMg, 0, lastIndex);
-  return {
+  return ok({
     intake: {
       windowFrom,
       windowDays,
       transfusedMg,
       removedWithBloodMg,
       netMg,
-      mgPerKgPerDay: intakeRun.outputs.intakeMgPerKgPerDay,
-      band: intakeBand(intakeRun.outputs.intakeMgPerKgPerDay as MgPerKgPerDay).label,
+      mgPerKgPerDay: intakeRun.value.outputs.intakeMgPerKgPerDay,
+      band: intakeBand(intakeRun.value.outputs.intakeMgPerKgPerDay as MgPerKgPerDay).label,
       cumulativeNetMg,
       cumulativeSince: account.firstDay,
-      derivation: intakeRun.derivation,
+      derivation: intakeRun.value.derivation,
     },
     notices,
-  };
+  });
 }

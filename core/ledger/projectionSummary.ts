@@ -1,7 +1,8 @@
 import { resolveAssumption } from '../assumptions';
 import { daysBetween } from '../dates/isoDate';
 import type { Derivation } from '../formulas/derivation';
-import { runTrusted } from '../formulas/run';
+import { runInternal } from '../formulas/run';
+import { fail, ok, type Issue, type Result } from '../result';
 import type { ChelationPeriod } from '../model/caseFile';
 import { periodsActiveOn } from '../model/periodsActiveOn';
 import { describePeriod, efficiencyAssumptionOf, periodRemovalMgPerDay, type LedgerNotice } from './caseToLedger';
@@ -40,8 +41,8 @@ export function projectionSummary(
   bodyIron: BodyIronSummary,
   lastResponse: ResponseSummary | undefined,
   options: ProjectionOptions,
-): { readonly projection: ProjectionSummary | null; readonly notices: readonly LedgerNotice[] } {
-  if (bodyIron.bodyIronMg === null) return { projection: null, notices: [] };
+): Result<{ readonly projection: ProjectionSummary | null; readonly notices: readonly LedgerNotice[] }> {
+  if (bodyIron.bodyIronMg === null) return ok({ projection: null, notices: [] });
   const { caseFile, asOf, overrides, weightKg } = context;
   const { horizonMonths, seed, samples } = options;
   const notices: LedgerNotice[] = [];
@@ -94,8 +95,8 @@ export function projectionSummary(
     scenarios,
   });
   const milestoneMonths = [6, 12, 24, horizonMonths].filter((months, index, all) => months <= horizonMonths && all.indexOf(months) === index);
-  return {
-    projection: {
+  const issues: Issue[] = [];
+  const projection: ProjectionSummary = {
       horizonMonths,
       seed,
       samples,
@@ -105,7 +106,7 @@ export function projectionSummary(
         milestones: milestoneMonths.map((monthsAhead) => {
           const point = scenario.months[monthsAhead]!;
           const periods = periodsOfScenario.get(scenario.id) ?? [];
-          const run = runTrusted(
+          const run = runInternal(
             projectedLicFormula,
             {
               startBodyIronMg,
@@ -136,10 +137,10 @@ export function projectionSummary(
               },
             },
           );
-          return { monthsAhead, derivation: run.derivation };
+          if (!run.ok) issues.push(...run.issues);
+          return { monthsAhead, derivation: run.ok ? run.value.derivation : null! };
         }),
       })),
-    },
-    notices,
   };
+  return issues.length > 0 ? fail(...issues) : ok({ projection, notices });
 }

@@ -1,6 +1,7 @@
 import { expectedExcretion } from '../chelators/formulas';
 import type { Derivation } from '../formulas/derivation';
-import { runTrusted } from '../formulas/run';
+import { runInternal } from '../formulas/run';
+import { ok, type Result } from '../result';
 import type { Case, ChelationPeriod } from '../model/caseFile';
 import { chelatorIdOf, describePeriod } from './caseToLedger';
 
@@ -22,10 +23,10 @@ export interface RegimenSummary {
  * @param weightKg - weight, kg (a dose in mg is turned into mg/kg by it)
  * @param overrides - the case's assumption overrides
  */
-export function regimenSummary(period: ChelationPeriod, weightKg: number, overrides: Case['assumptionOverrides']): RegimenSummary {
+export function regimenSummary(period: ChelationPeriod, weightKg: number, overrides: Case['assumptionOverrides']): Result<RegimenSummary> {
   const perAdministrationMgPerKg = period.dose.unit === 'mg/kg' ? period.dose.value : period.dose.value / weightKg;
   const doseMgPerKgPerDay = perAdministrationMgPerKg * period.administrationsPerDay;
-  const run = runTrusted(
+  const expected = runInternal(
     expectedExcretion,
     {
       chelator: chelatorIdOf(period),
@@ -44,7 +45,9 @@ export function regimenSummary(period: ChelationPeriod, weightKg: number, overri
       },
     },
   );
-  return {
+  if (!expected.ok) return expected;
+  const run = expected.value;
+  return ok({
     periodId: period.id,
     label: describePeriod(period),
     drug: period.drug,
@@ -52,5 +55,5 @@ export function regimenSummary(period: ChelationPeriod, weightKg: number, overri
     expectedRemovalMgPerDay: run.outputs.excretionMgPerDay,
     expectedRemovalMgPerKgPerDay: run.outputs.excretionMgPerKgPerDay,
     derivation: run.derivation,
-  };
+  });
 }

@@ -1,6 +1,7 @@
 import { resolveAssumption } from '../assumptions';
 import type { Derivation } from '../formulas/derivation';
-import { runTrusted } from '../formulas/run';
+import { runInternal } from '../formulas/run';
+import { fail, ok, type Issue, type Result } from '../result';
 import { efficiencyAssumptionOf } from './caseToLedger';
 import { measuredChelation } from './formulas';
 import { sumDaily } from './ironAccount';
@@ -23,18 +24,23 @@ export type ResponseSummary = MeasuredResponse & {
  * efficiency it implies.
  *
  * @param context - the review (see reviewContext.ts)
- * @returns oldest interval first
+ * @returns oldest interval first, or the issue of a total outside its formula's range
  */
-export function responseSummaries(context: ReviewContext): ResponseSummary[] {
+export function responseSummaries(context: ReviewContext): Result<ResponseSummary[]> {
   const { account, normalised, overrides } = context;
   const basalAssumption = assumptionUse(resolveAssumption('basal-iron-loss-mg-per-day', overrides));
-  return measuredResponses(account, normalised.input.licMeasurements, normalised.input.chelation).map((response) => {
+  const issues: Issue[] = [];
+  const summaries = measuredResponses(account, normalised.input.licMeasurements, normalised.input.chelation).flatMap((response) => {
     const fromIndex = dayIndexOf(context, response.fromDate);
     const toIndex = dayIndexOf(context, response.toDate);
     const intervalIron = transfusionalIronBetween(context, response.fromDate, response.toDate);
+    if (!intervalIron.ok) {
+      issues.push(...intervalIron.issues);
+      return [];
+    }
     const intervalPeriods = periodsBetween(context, response.fromDate, response.toDate);
-    const run = runTrusted(measuredChelation, {
-      intakeMg: intervalIron.outputs.netMg,
+    const measured = runInternal(measuredChelation, {
+      intakeMg: intervalIron.value.outputs.netMg,
       fromLicMgPerGDry: response.fromLicMgPerGDry,
       toLicMgPerGDry: response.toLicMgPerGDry,
       fromWeightKg: account.daily.weightKg[fromIndex]!,
@@ -45,7 +51,7 @@ export function responseSummaries(context: ReviewContext): ResponseSummary[] {
       expectedMg: response.expectedChelationMg,
     }, {
       origins: {
-        intakeMg: { kind: 'computed', derivation: intervalIron.derivation },
+        intakeMg: { kind: 'computed', derivation: intervalIron.value.derivation },
         fromLicMgPerGDry: { kind: 'record', description: `LIC ${response.fromDate}`, refs: [] },
         toLicMgPerGDry: { kind: 'record', description: `LIC ${response.toDate}`, refs: [] },
         basalLossMg: { kind: 'record', description: `basal loss × ${response.days} days`, refs: [], assumptions: [basalAssumption] },
@@ -57,6 +63,11 @@ export function responseSummaries(context: ReviewContext): ResponseSummary[] {
         },
       },
     });
+    if (!measured.ok) {
+      issues.push(...measured.issues);
+      return [];
+    }
+    const run = measured.value;
     const drugs = new Set(intervalPeriods.map((period) => period.drug));
     const [onlyDrug] = [...drugs];
     const effectiveEfficiency =
@@ -66,6 +77,7 @@ export function responseSummaries(context: ReviewContext): ResponseSummary[] {
             return { drug: onlyDrug, published, effective: published * response.measuredToExpectedRatio };
           })()
         : null;
-    return { ...response, derivation: run.derivation, effectiveEfficiency };
+    return [{ ...response, derivation: run.derivation, effectiveEfficiency }];
   });
+  return issues.length > 0 ? fail(...issues) : ok(summaries);
 }

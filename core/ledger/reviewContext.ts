@@ -1,7 +1,7 @@
 import { resolveAssumption, type ResolvedAssumption } from '../assumptions';
 import { addDaysIso, daysBetween, type IsoDate } from '../dates/isoDate';
 import type { AssumptionUse } from '../formulas/derivation';
-import { runTrusted } from '../formulas/run';
+import { runInternal } from '../formulas/run';
 import type { Case, ChelationPeriod } from '../model/caseFile';
 import { periodsOverlapping } from '../model/periodsOverlapping';
 import { efficiencyAssumptionOf, type NormalisedCase } from './caseToLedger';
@@ -53,10 +53,10 @@ export function periodsBetween(context: ReviewContext, afterDate: IsoDate, toDat
   return periodsOverlapping(context.caseFile.chelationPeriods, afterDate, toDate);
 }
 
-/** Net transfusional iron of the records dated after `afterDate` up to `toDate`, with its derivation. */
+/** Net transfusional iron of the records dated after `afterDate` up to `toDate`, with its derivation (a refusal is a value). */
 export function transfusionalIronBetween(context: ReviewContext, afterDate: IsoDate, toDate: IsoDate) {
   const inWindow = context.normalised.input.movements.filter((it) => it.date > afterDate && it.date <= toDate);
-  return runTrusted(
+  return runInternal(
     netTransfusionalIronFormula,
     {
       redCellsInMl: inWindow.reduce((sum, it) => sum + (it.redCellsInMl ?? 0), 0),

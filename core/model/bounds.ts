@@ -16,19 +16,8 @@ import type { IssueCode } from '../result';
  */
 export type CheckLevel = 'refuse' | 'warn';
 
-export interface Bounds {
-  /** UCUM code of the unit the number is in; '1' for a fraction or a count. */
-  readonly unit: string;
-  /** Outside this range the value is refused. */
-  readonly possible: { readonly min: number; readonly max: number; readonly minExclusive?: boolean };
-  /** Outside this range the value is kept with a warning. */
-  readonly plausible: { readonly min: number; readonly max: number };
-  /** Decimals shown for the range bounds in messages (0.40–0.85 needs 2). */
-  readonly decimals: number;
-  readonly integer?: boolean;
-  /** A fraction of 1: a percentage typed by mistake (60 for 0.60) gets advice. */
-  readonly fraction?: boolean;
-}
+export type { Bounds } from '../ranges/bounds';
+import type { Bounds } from '../ranges/bounds';
 
 /** Issue parameters our checks attach to zod's 'custom' issues; see zodIssues.ts. */
 export interface CustomIssueParams {

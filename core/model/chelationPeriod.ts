@@ -9,7 +9,7 @@ import {
   deferiproneDoseBounds,
   deferoxamineDoseBounds,
   infusionHoursBounds,
-} from './plausibleRanges';
+} from '../ranges/plausibleRanges';
 
 export const chelatorDrugs = ['deferoxamine', 'deferiprone', 'deferasirox'] as const;
 /**

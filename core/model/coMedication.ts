@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { checkBounds, measuredQuantity, type CheckLevel, type CustomIssueParams } from './bounds';
 import { entryIdSchema, isoDateSchema, noteSchema, requiredTextSchema } from './fields';
-import { ascorbicAcidDoseBounds, coMedicationDoseBounds } from './plausibleRanges';
+import { ascorbicAcidDoseBounds, coMedicationDoseBounds } from '../ranges/plausibleRanges';
 
 /** When a co-medication is taken: ascorbic acid belongs with deferoxamine infusions (references.md §9). */
 export const coMedicationTimings = ['with-each-deferoxamine-infusion', 'daily', 'other'] as const;

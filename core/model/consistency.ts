@@ -4,35 +4,15 @@ import type { Case, ChelationPeriod } from './caseFile';
 import type { IsoDate } from '../dates';
 import { r2StarCalibrations } from '../iron/r2StarCalibrations';
 import { plausibleRangeText } from './bounds';
-import { weightBounds, weightChangeWithin90Days, weightForAgeBands } from './plausibleRanges';
+import { weightBounds, weightChangeWithin90Days, weightForAgeBands } from '../ranges/plausibleRanges';
 import { daysBetween } from '../dates';
 import { ageInDecimalYears } from '../patient/age';
 import { chelatorIdForPeriod, findChelator } from '../chelators/catalogue';
 import { latestWeightOnOrBefore } from './latestWeight';
 import { pathText } from './zodIssues';
+import { eventDates } from './eventDates';
 
 type Path = readonly (string | number)[];
-
-interface DatedAt {
-  readonly path: Path;
-  readonly date: IsoDate;
-}
-
-/** Every date that records something that happened to the patient (not review or sign-off dates). */
-function eventDates(theCase: Case): DatedAt[] {
-  const dates: DatedAt[] = [];
-  theCase.patient.weights.forEach((it, index) => dates.push({ path: ['patient', 'weights', index, 'date'], date: it.date }));
-  theCase.patient.heights.forEach((it, index) => dates.push({ path: ['patient', 'heights', index, 'date'], date: it.date }));
-  theCase.transfusions.forEach((it, index) => dates.push({ path: ['transfusions', index, 'date'], date: it.date }));
-  theCase.results.forEach((it, index) => dates.push({ path: ['results', index, 'date'], date: it.date }));
-  theCase.chelationPeriods.forEach((it, index) => dates.push({ path: ['chelationPeriods', index, 'startDate'], date: it.startDate }));
-  theCase.coMedications.forEach((it, index) => dates.push({ path: ['coMedications', index, 'startDate'], date: it.startDate }));
-  theCase.dispensings.forEach((it, index) => dates.push({ path: ['dispensings', index, 'date'], date: it.date }));
-  for (const list of ['hepaticImpairment', 'cardiacFailure', 'renalRiskFactors'] as const) {
-    theCase.clinicalState[list].forEach((it, index) => dates.push({ path: ['clinicalState', list, index, 'date'], date: it.date }));
-  }
-  return dates;
-}
 
 function periodsWithPaths(theCase: Case): { path: Path; period: { readonly startDate: IsoDate; readonly endDate: IsoDate | null } }[] {
   return [

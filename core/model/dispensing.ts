@@ -2,7 +2,7 @@ import { z } from 'zod';
 import { boundedNumber, measuredQuantity, type CheckLevel } from './bounds';
 import { chelatorDrugs } from './chelationPeriod';
 import { entryIdSchema, isoDateSchema, noteSchema } from './fields';
-import { daysSuppliedBounds, dispensedQuantityBounds } from './plausibleRanges';
+import { daysSuppliedBounds, dispensedQuantityBounds } from '../ranges/plausibleRanges';
 
 /**
  * Schema of one dispensing record (version 2): a pharmacy supply of a

@@ -5,7 +5,7 @@
  */
 export { earliestCaseDate, isCaseDate, latestCaseDate } from './caseDate';
 export { checkBounds, displayUnit, plausibleRangeText, type Bounds, type CheckLevel } from './bounds';
-export * from './plausibleRanges';
+export * from '../ranges/plausibleRanges';
 export { diagnosisGroups, pregnancyStatuses, sexesAtBirth } from './patient';
 export { exchangeMethods, unitHaematocritAssumptionId } from './transfusion';
 export { fieldStrengthsT, liverIronMethods } from './resultEntry';
@@ -27,3 +27,5 @@ export { periodsActiveOn, type DatedPeriod } from './periodsActiveOn';
 export { periodsOverlapping } from './periodsOverlapping';
 export { resultsOfKindBetween } from './resultsOfKindBetween';
 export { continuousRunStart } from './continuousRunStart';
+export { eventDates, type DatedAt } from './eventDates';
+export { checkReviewDate, reviewWindow, reviewYearsAfterRecord, type ReviewWindow } from './reviewWindow';

@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { boundedNumber, measuredQuantity, type CheckLevel } from './bounds';
 import { isoDateSchema, requiredTextSchema } from './fields';
-import { ageYearsBounds, heightBounds, weightBounds } from './plausibleRanges';
+import { ageYearsBounds, heightBounds, weightBounds } from '../ranges/plausibleRanges';
 
 /** Diagnosis groups: they decide which safety rules and which caveats apply (ferritin is a poor marker in sickle cell disease). */
 export const diagnosisGroups = [

@@ -19,7 +19,7 @@ import {
   urinaryCopperBounds,
   urineProteinCreatinineRatioBounds,
   zincBounds,
-} from './plausibleRanges';
+} from '../ranges/plausibleRanges';
 import type { CustomIssueParams } from './bounds';
 
 /** Outcomes of an examination recorded without a number (audiology, eye examination). */

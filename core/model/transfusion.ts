@@ -9,7 +9,7 @@ import {
   transfusionVolumeBounds,
   unitHaematocritBounds,
   venesectionVolumeBounds,
-} from './plausibleRanges';
+} from '../ranges/plausibleRanges';
 
 /**
  * The assumption that stands in for a unit haematocrit the record does not

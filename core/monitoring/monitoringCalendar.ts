@@ -1,8 +1,9 @@
-import { addDaysIso, addMonthsIso, daysBetween, isIsoDate, type IsoDate } from '../dates';
+import { addDaysIso, addMonthsIso, daysBetween, type IsoDate } from '../dates';
 import type { Case, ChelationPeriod } from '../model/caseFile';
 import { periodsActiveOn } from '../model/periodsActiveOn';
 import { resultsOfKindBetween } from '../model/resultsOfKindBetween';
 import { earliestCaseDate } from '../model/caseDate';
+import { checkReviewDate } from '../model/reviewWindow';
 import { ageOnDate } from '../patient/ageOnDate';
 import { fail, issue, ok, type Result } from '../result';
 import { creatinineMgPerDlFromUmolPerL } from '../units/concentration';
@@ -182,9 +183,9 @@ function ruleInterval(rule: MonitoringRule, theCase: Case, asOf: IsoDate, active
  *   hearing: none on record, due 2026-11-20 (due now)
  */
 export function monitoringCalendar(theCase: Case, asOf: IsoDate, options: MonitoringOptions = {}): Result<MonitoringCalendar> {
-  if (!isIsoDate(asOf) || asOf < earliestCaseDate) {
-    return fail(issue('invalid_date', ['asOf'], `Review date "${asOf}" is not a calendar date; enter it as YYYY-MM-DD.`));
-  }
+  // The same review window as the iron review (core/model/reviewWindow.ts).
+  const window = checkReviewDate(theCase, asOf);
+  if (!window.ok) return window;
   const ancIntervalDays = options.ancIntervalDays ?? (options.ancSchedule === 'weekly-throughout' ? weeklyThroughoutAncIntervalDays : undefined);
   if (ancIntervalDays !== undefined && (!Number.isInteger(ancIntervalDays) || ancIntervalDays < ancIntervalRange.min || ancIntervalDays > ancIntervalRange.max)) {
     return fail(

@@ -7,7 +7,8 @@ import {
   type CreatinineUnit,
 } from '../units/formulas';
 import { cm, kg, years, type Centimetres, type Kilograms, type MgPerDl, type SquareMetres } from '../units/quantity';
-import { oldestAgeYears } from './ageRanges';
+import { heightBounds, inputRange, weightBounds } from '../ranges';
+import { adultFromAgeYears, oldestAgeYears, schwartzFromAgeYears } from './ageRanges';
 import { bsaDuBoisM2, bsaHaycockM2, bsaMostellerM2 } from './bodySurfaceArea';
 import { egfrCkdEpi2021 } from './ckdEpi2021';
 import { creatinineClearanceCockcroftGault } from './cockcroftGault';
@@ -16,16 +17,10 @@ import { sexesAtBirth } from './sexAtBirth';
 
 // ——— Shared input specs (one definition, so every calculator states the same ranges) ———
 
-const bsaHeightInput = {
-  kind: 'number',
-  label: 'height',
-  unit: 'cm',
-  min: 25,
-  max: 250,
-  meaning: 'standing height (length lying down in infants), cm',
-} as const;
+// Height and weight take the case model's ranges (core/ranges): a calculator accepts what `check` accepts.
+const bsaHeightInput = { kind: 'number', label: 'height', ...inputRange(heightBounds), meaning: 'standing height (length lying down in infants), cm' } as const;
 
-const bsaWeightInput = { kind: 'number', label: 'weight', unit: 'kg', min: 0.4, max: 350, meaning: 'body weight, kg' } as const;
+const bsaWeightInput = { kind: 'number', label: 'weight', ...inputRange(weightBounds), meaning: 'body weight, kg' } as const;
 
 const bsaOutputs = {
   bsaM2: { label: 'body-surface area', unit: 'm2', meaning: 'estimated body-surface area', decimals: 2 },
@@ -39,6 +34,11 @@ const ageInput = {
   max: oldestAgeYears,
   meaning: 'age in years on the day of the creatinine sample (decimals allowed for children)',
 } as const;
+
+// The age ranges each renal equation was validated for, stated where `calc --list` reads them
+// (the equations' own refusals use the same constants, core/patient/ageRanges.ts).
+const adultAgeInput = { ...ageInput, min: adultFromAgeYears, outsideAdvice: '; for children use egfr-schwartz-bedside' } as const;
+const childAgeInput = { ...ageInput, min: schwartzFromAgeYears, max: adultFromAgeYears, maxExclusive: true, outsideAdvice: '; from 18 years use egfr-ckd-epi-2021 or crcl-cockcroft-gault' } as const;
 
 const sexAtBirthInput = {
   kind: 'choice',
@@ -140,8 +140,8 @@ export const crclCockcroftGault = defineFormula({
     'Results are for review by the prescriber; follow local protocols.',
   ],
   inputs: {
-    ageYears: ageInput,
-    weightKg: { kind: 'number', label: 'weight', unit: 'kg', min: 20, max: 350, meaning: 'body weight, kg (see notes on obesity)' },
+    ageYears: adultAgeInput,
+    weightKg: { kind: 'number', label: 'weight', ...inputRange(weightBounds), meaning: 'body weight, kg (see notes on obesity)' },
     serumCreatinine: serumCreatinineInput,
     creatinineUnit: creatinineUnitInput,
     sexAtBirth: sexAtBirthInput,
@@ -172,7 +172,7 @@ export const egfrCkdEpi2021Formula = defineFormula({
   inputs: {
     serumCreatinine: serumCreatinineInput,
     creatinineUnit: creatinineUnitInput,
-    ageYears: ageInput,
+    ageYears: adultAgeInput,
     sexAtBirth: sexAtBirthInput,
   },
   outputs: egfrOutputs,
@@ -194,10 +194,10 @@ export const egfrSchwartzBedsideFormula = defineFormula({
     'Results are for review by the prescriber; follow local protocols.',
   ],
   inputs: {
-    heightCm: { kind: 'number', label: 'height', unit: 'cm', min: 45, max: 210, meaning: 'height (length lying down under 2 years), cm' },
+    heightCm: { kind: 'number', label: 'height', ...inputRange(heightBounds), meaning: 'height (length lying down under 2 years), cm' },
     serumCreatinine: serumCreatinineInput,
     creatinineUnit: creatinineUnitInput,
-    ageYears: ageInput,
+    ageYears: childAgeInput,
   },
   outputs: egfrOutputs,
   compute: ({ heightCm, serumCreatinine, creatinineUnit, ageYears }) => {

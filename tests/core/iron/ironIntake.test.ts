@@ -127,7 +127,7 @@ describe('iron intake rate', () => {
     expect(run.ok).toBe(false);
     if (run.ok) return;
     expect(run.issues[0]).toMatchObject({ code: 'out_of_range', path: ['weightKg'] });
-    expect(run.issues[0]?.message).toBe('Body weight 52000 kg is outside the plausible range 1–200 kg.');
+    expect(run.issues[0]?.message).toBe('Body weight 52000 kg is outside the plausible range 2–200 kg.');
   });
 });
 

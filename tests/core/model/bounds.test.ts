@@ -4,7 +4,7 @@ import { describe, expect, it } from 'vitest';
 import { toIsoDate } from '../../../core/dates';
 import { boundedNumber, checkBounds, displayUnit, measuredQuantity, plausibleRangeText } from '../../../core/model/bounds';
 import { isCaseDate } from '../../../core/model/caseDate';
-import { daysPerWeekBounds, unitHaematocritBounds, weightBounds } from '../../../core/model/plausibleRanges';
+import { daysPerWeekBounds, unitHaematocritBounds, weightBounds } from '../../../core/ranges/plausibleRanges';
 import { describeValue, issuesFromZod, pathText } from '../../../core/model/zodIssues';
 
 // The worked examples of the doc comments in core/model (style.md habit 5),

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { z } from 'zod';
 import { caseSchemas, type Bounds } from '../../../core/model';
-import * as ranges from '../../../core/model/plausibleRanges';
+import * as ranges from '../../../core/ranges/plausibleRanges';
 import { ucumConvert } from '../units/ucumReference';
 import { ucumValidation } from './ucumValidation';
 

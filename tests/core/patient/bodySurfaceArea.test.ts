@@ -142,7 +142,7 @@ describe('BSA calculators through runFormula', () => {
         {
           code: 'out_of_range',
           path: ['heightCm'],
-          message: 'Height 1.8 cm is outside the plausible range 25–250 cm.',
+          message: 'Height 1.8 cm is outside the plausible range 40–220 cm.',
           severity: 'error',
         },
       ]);

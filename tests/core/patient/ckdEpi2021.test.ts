@@ -156,7 +156,9 @@ describe('egfr-ckd-epi-2021 through runFormula', () => {
     });
     expect(result.ok).toBe(false);
     if (result.ok) return;
-    expect(result.issues[0]).toMatchObject({ code: 'not_applicable', path: ['ageYears'] });
+    // The calculator's age range is the equation's adult range, stated in calc --list too.
+    expect(result.issues[0]).toMatchObject({ code: 'out_of_range', path: ['ageYears'] });
+    expect(result.issues[0]!.message).toContain('18–120 a');
     expect(result.issues[0]!.message).toContain('egfr-schwartz-bedside');
   });
 

@@ -71,14 +71,14 @@ describe('egfr-schwartz-bedside through runFormula', () => {
     expect(result.value.outputs.egfrMlPerMinPer173M2).toBeCloseTo(124.93, 1);
   });
 
-  it('refuses a height outside 45–210 cm, naming the field, value and range', () => {
+  it('refuses a height outside 40–220 cm (the case model’s plausible height, core/ranges), naming the field, value and range', () => {
     const result = runFormula(egfrSchwartzBedsideFormula, { heightCm: 12.1, serumCreatinine: 0.4, creatinineUnit: 'mg/dL', ageYears: 7 });
     expect(result.ok).toBe(false);
     if (result.ok) return;
     expect(result.issues[0]).toMatchObject({
       code: 'out_of_range',
       path: ['heightCm'],
-      message: 'Height 12.1 cm is outside the plausible range 45–210 cm.',
+      message: 'Height 12.1 cm is outside the plausible range 40–220 cm.',
     });
   });
 });

@@ -1,7 +1,8 @@
 import type { Bounds } from './bounds';
 
 /**
- * The ranges every number in a case file is checked against (see bounds.ts).
+ * The ranges every number in a case file is checked against (see bounds.ts), and the
+ * ranges of the calculators' inputs for the same quantities (core/ranges/inputRange.ts).
  *
  * These are screens for typing errors (a weight in pounds, a haematocrit as a
  * percentage, a creatinine in the wrong unit), not clinical thresholds: the
@@ -231,3 +232,13 @@ export const allQuantityBounds = {
   deferasiroxDoseBounds,
   ascorbicAcidDoseBounds,
 } as const;
+
+// ── Quantities the calculators read that a case file holds per entry ────────
+/**
+ * Daily chelator dose, mg/kg/day on a dosing day: the case model accepts a dose per
+ * administration up to 200 mg/kg and up to 6 administrations a day, so a review can
+ * meet up to 1,200 mg/kg/day; the plausible range spans the labelled ranges of
+ * deferoxamine (20–60), deferiprone (75–100) and deferasirox (7–40) with room for
+ * split doses (references.md §3). Above it the safety rules' dose findings apply.
+ */
+export const dailyDoseBounds = { unit: 'mg/kg/d', possible: positive(1200), plausible: { min: 0.5, max: 150 }, decimals: 1 } as const satisfies Bounds;

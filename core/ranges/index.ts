@@ -1,0 +1,3 @@
+export * from './bounds';
+export * from './inputRange';
+export * from './plausibleRanges';
