@@ -11,6 +11,7 @@ import {
   type DoseBasis,
   type StrengthBasis,
   type TrientineProductId,
+  unitsAround,
 } from '../../core/courses';
 import { citeShort, findSource } from '../../core/references';
 import { formatIssues, type Result } from '../../core/result';
@@ -135,7 +136,7 @@ export function formatCoursePlan(plan: CoursePlan, label: string | undefined): s
   ].filter((it) => it !== null);
   const lines: string[] = [
     `Planned course${label ? ` ${label}` : ''}: ${plan.regimenId} — ${plan.title}`,
-    `Patient: ${size.join(', ')}; dosed as ${plan.population}.`,
+    `Patient: ${size.join(', ')}; dose group: ${plan.population}.`,
   ];
   if (plan.bloodLead) lines.push(`Blood lead: ${formatNumber(plan.bloodLead.ugPerDl, 1)} µg/dL = ${formatNumber(plan.bloodLead.umolPerL, 2)} µmol/L (× 10 / Ar(Pb) 207.2).`);
   if (plan.urinaryCopper) lines.push(`24-hour urinary copper: ${formatNumber(plan.urinaryCopper.ugPer24h, 0)} µg/24 h = ${formatNumber(plan.urinaryCopper.umolPer24h, 2)} µmol/24 h (÷ Ar(Cu) 63.546).`);
@@ -171,7 +172,16 @@ export function formatCoursePlan(plan: CoursePlan, label: string | undefined): s
     lines.push(
       '',
       `Trientine switch: today ${formatNumber(change.currentDailyMg, 0)} mg/day of ${change.fromProductId} (${change.currentDailyBasis}) = ${formatNumber(change.currentDailyBaseMg, 1)} mg trientine base/day;`,
-      `    on ${change.toProductId} (dosed as ${change.equivalentDailyBasis}): ${formatNumber(change.equivalentDailyMg, 1)} mg/day ≈ ${formatNumber(change.equivalentUnitsPerDay, 2)} units of the printed strength a day.`,
+      `    on ${change.toProductId} (dosed as ${change.equivalentDailyBasis}): ${formatNumber(change.equivalentDailyMg, 1)} mg/day ≈ ${formatNumber(change.equivalentUnitsPerDay, 2)} ${change.unitName}s a day.`,
+      ...plan.phases
+        .filter((phase) => phase.drug === change.toProductId)
+        .slice(0, 1)
+        .map(
+          (phase) =>
+            `    per administration (${formatNumber(24 / phase.intervalHours, 0)} a day): ${mg(phase.dosePerAdministrationMg)}; nearest ${change.smallestUnit < 1 ? 'half ' : 'whole '}${change.unitName}s: ${unitsAround(change.toProductId, phase.dosePerAdministrationMg)
+              .map((it) => `${formatNumber(it.units, 1)} (${mg(it.mg)}, ${mg((it.mg * 24) / phase.intervalHours)}/day)`)
+              .join(' or ')}.`,
+        ),
       ...change.notes.map((it) => `    ${it}`),
     );
   }

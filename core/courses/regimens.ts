@@ -452,7 +452,10 @@ function trientineRegimen(
     monitoring: [
       { what: '24-hour urinary copper (on chelation about 200–500 µg/24 h, 3–8 µmol/24 h) and non-caeruloplasmin copper', when: { daysAfterEnd: 0 }, sourceIds: ['wilson-urinary-copper-target'] },
     ],
-    modellingChoices: ['The lower end of the daily range unless a daily dose is entered; twice daily unless a count is entered.'],
+    modellingChoices: [
+      'The lower end of the daily range unless a daily dose is entered; twice daily unless a count is entered.',
+      'The copper studies are listed at the end of the planned days; on maintenance the label sets the dose at 6–12-month intervals, and the interval after a product change is set locally.',
+    ],
     sourceIds: [...new Set([...child.sourceIds, ...adult.sourceIds, 'wilson-urinary-copper-target'])],
   };
 }

@@ -10,8 +10,10 @@ import type { Milligrams } from '../units/quantity';
  * labelled 150 mg of trientine base (EU SmPC 2022 §2). references.md §9: confirmed.
  */
 export const trientineProducts = [
-  { id: 'trientine-dihydrochloride', saltFormId: 'trientine-dihydrochloride', strengthMg: 250, strengthBasis: 'salt', sourceIds: ['trientine-dihydrochloride-label'] },
-  { id: 'trientine-tetrahydrochloride', saltFormId: 'trientine-tetrahydrochloride', strengthMg: 150, strengthBasis: 'base', sourceIds: ['trientine-tetrahydrochloride-smpc'] },
+  // Capsules are swallowed whole, not opened or chewed (US label as reproduced): whole units only.
+  { id: 'trientine-dihydrochloride', saltFormId: 'trientine-dihydrochloride', strengthMg: 250, strengthBasis: 'salt', smallestUnit: 1, unitName: 'capsule', sourceIds: ['trientine-dihydrochloride-label'] },
+  // "The tablet can be divided into equal doses" (EU SmPC §3): halves.
+  { id: 'trientine-tetrahydrochloride', saltFormId: 'trientine-tetrahydrochloride', strengthMg: 150, strengthBasis: 'base', smallestUnit: 0.5, unitName: 'tablet', sourceIds: ['trientine-tetrahydrochloride-smpc'] },
 ] as const;
 export type TrientineProductId = (typeof trientineProducts)[number]['id'];
 export type StrengthBasis = 'salt' | 'base';
@@ -107,8 +109,11 @@ export interface TrientineSwitch {
   /** The same base expressed on the new product's dosing basis, mg/day. */
   readonly equivalentDailyMg: number;
   readonly equivalentDailyBasis: StrengthBasis;
-  /** Units (tablets or capsules) a day of the new product for that figure, and the nearest half unit when the tablet is scored. */
+  /** Units (tablets or capsules) a day of the new product for that figure. */
   readonly equivalentUnitsPerDay: number;
+  readonly unitName: string;
+  /** The product's smallest part: 1 (capsules whole), 0.5 (scored tablet). */
+  readonly smallestUnit: number;
   readonly notes: readonly string[];
   readonly warnings: readonly Issue[];
 }
@@ -141,9 +146,28 @@ export function trientineSwitch(fromProductId: TrientineProductId, currentDailyM
     equivalentDailyMg,
     equivalentDailyBasis: to.strengthBasis,
     equivalentUnitsPerDay: equivalentDailyMg / to.strengthMg,
+    unitName: to.unitName,
+    smallestUnit: to.smallestUnit,
     notes: [
       'Equal trientine base is a starting figure, not an equivalence of effect: products of different salts are not interchangeable mg for mg (bioavailability differs; trientine tetrahydrochloride SmPC); the dose is then set by copper studies.',
     ],
     warnings: [],
   };
+}
+
+/**
+ * The whole or half units of a trientine product on either side of a dose per
+ * administration, with the dose each gives (a practical figure beside the exact one).
+ * @param productId - the product
+ * @param doseMg - the dose per administration on the product's printed basis, mg (> 0)
+ * @returns the nearest counts below and above (equal when the dose is a whole count), with mg each
+ * @example unitsAround('trientine-tetrahydrochloride', 333.6) → [{ units: 2, mg: 300 }, { units: 2.5, mg: 375 }]
+ */
+export function unitsAround(productId: TrientineProductId, doseMg: number): { readonly units: number; readonly mg: number }[] {
+  const item = product(productId);
+  const exact = doseMg / item.strengthMg / item.smallestUnit;
+  // 1e-9 keeps a dose that is a whole count (300 mg = 2 tablets) from splitting into two rows by rounding noise.
+  const below = Math.max(1, Math.floor(exact + 1e-9)) * item.smallestUnit;
+  const above = Math.max(1, Math.ceil(exact - 1e-9)) * item.smallestUnit;
+  return [...new Set([below, above])].map((units) => ({ units, mg: units * item.strengthMg }));
 }

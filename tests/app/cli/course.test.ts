@@ -188,6 +188,13 @@ describe('scenario 8, WD-0610: trientine salt or base, 34 years, 66 kg', async (
     expect(plan.monitoring[0]!.what).toContain('24-hour urinary copper');
   });
 
+  it('prints the nearest half tablets beside the exact base: 2 (600 mg/day) or 2½ (750 mg/day)', async () => {
+    const { out } = await cli('course', ...wd0610);
+    expect(out).toContain('today 1000 mg/day of trientine-dihydrochloride (salt) = 667.3 mg trientine base/day');
+    expect(out).toContain('per administration (2 a day): 333.6 mg; nearest half tablets: 2 (300.0 mg, 600.0 mg/day) or 2.5 (375.0 mg, 750.0 mg/day).');
+    expect(out).toContain('not interchangeable mg for mg');
+  });
+
   it('catches the new strength entered as salt (150 mg is base): both figures shown, nothing planned', async () => {
     const wrong = wd0610.map((word, index) => (wd0610[index - 1] === '--strength-basis' ? 'salt' : word));
     const { code, err } = await cli('course', ...wrong);
@@ -236,6 +243,8 @@ describe('course --list and bad input', async () => {
       const { out } = await cli('course', ...argv);
       for (const line of out.split('\n')) for (const pattern of forbiddenPhrasings) expect(pattern.test(line), `"${line.trim()}" matches ${pattern}`).toBe(false);
       expect(out).toContain('for review by the prescriber and a toxicologist');
+      // What a user reads cites publications, never a file of this project.
+      expect(out).not.toMatch(/references\.md|\bcore\/|\.ts\b/);
     }
   });
 });

@@ -7,6 +7,7 @@ import {
   planCourse,
   resolveCourseRegimen,
   trientineSwitch,
+  unitsAround,
   type CourseRequest,
 } from '../../../core/courses';
 import { pmComparisonAtPhysiologicalPh } from '../../../core/chemistry';
@@ -145,6 +146,18 @@ describe('trientine salt and base (references.md §7, §9: 300 mg dihydrochlorid
     expect(!capsule.ok && capsule.issues[0]!.message).toContain('166.8 mg trientine base'); // 250 × 146.24 / 219.15
     expect(checkTrientineStrength('trientine-dihydrochloride', 250, 'salt').ok).toBe(true);
     expect(checkTrientineStrength('trientine-dihydrochloride', 300, 'salt').ok).toBe(false); // no 300 mg capsule
+  });
+
+  it('offers the nearest half tablets (scored tablet, SmPC §3) or whole capsules (swallowed whole) around an exact dose', () => {
+    expect(unitsAround('trientine-tetrahydrochloride', 333.6)).toEqual([
+      { units: 2, mg: 300 },
+      { units: 2.5, mg: 375 },
+    ]);
+    expect(unitsAround('trientine-tetrahydrochloride', 300)).toEqual([{ units: 2, mg: 300 }]);
+    expect(unitsAround('trientine-dihydrochloride', 600)).toEqual([
+      { units: 2, mg: 500 },
+      { units: 3, mg: 750 },
+    ]);
   });
 });
 
