@@ -20,6 +20,7 @@ import { baselineKernel, type KernelInput } from './baselineKernel';
 import { generatedCaseJson, generatedReviewDate } from './generatedCase';
 import { measure, scalingExponent, type Timing } from './harness';
 import { bundleGzipBytes, ironCourseNavigationMs } from './rendererBench';
+import { barePdf, chartSvgsOf, demoSheet, pdfPageCount, plainLinesOf, writeSheetPdf } from './sheetBench';
 
 // bench/run.mjs runs the bundle from the project folder.
 const root = `${process.cwd()}/`;
@@ -163,6 +164,26 @@ async function commandLineFigures(): Promise<void> {
   row('command line: --help start-up ratio to node -e 0', cli.medianMs / node.medianMs, '×', null, `--help ${cli.medianMs.toFixed(0)} ms, node -e 0 ${node.medianMs.toFixed(0)} ms`);
 }
 
+async function sheetFigures(): Promise<void> {
+  console.log('4. Sheet: the demo TH-0417 through our writer against bare pdfmake (same charts and words as plain paragraphs, same page count)');
+  const sheet = demoSheet(root);
+  const ours = await writeSheetPdf(sheet, { paper: 'a4' });
+  const pages = pdfPageCount(ours);
+  const svgs = chartSvgsOf(sheet);
+  const lines = plainLinesOf(sheet);
+  const creationDate = new Date(Date.UTC(2026, 10, 20));
+  const padding = Math.max(0, pages - pdfPageCount(await barePdf(svgs, lines, 0, creationDate)));
+  const bare = await barePdf(svgs, lines, padding, creationDate);
+  console.log(`  ours: ${pages} pages, ${svgs.length} charts, ${(ours.length / 1024).toFixed(0)} KiB; baseline: ${pdfPageCount(bare)} pages, ${lines.length} lines of text`);
+  const options = { minRuns: 8, minTimeMs: 2000, warmupRuns: 2 };
+  const baseline = await measure('bare pdfmake', () => barePdf(svgs, lines, padding, creationDate), options);
+  const writer = await measure('our sheet writer (build + write)', () => writeSheetPdf(demoSheet(root), { paper: 'a4' }), options);
+  print(baseline);
+  print(writer);
+  row('sheet: demo sheet, warm', writer.medianMs / 1000, 's', 0.5, `${pages} pages, ${svgs.length} charts; includes building the sheet from the case`);
+  row('sheet: ratio to bare pdfmake', writer.medianMs / baseline.medianMs, '×', 1.5, `bare pdfmake median ${baseline.medianMs.toFixed(0)} ms for ${pdfPageCount(bare)} pages`);
+}
+
 const median = (values: readonly number[]) => {
   const sorted = [...values].sort((left, right) => left - right);
   return sorted.length % 2 ? sorted[(sorted.length - 1) / 2]! : (sorted[sorted.length / 2 - 1]! + sorted[sorted.length / 2]!) / 2;
@@ -185,6 +206,7 @@ async function main(): Promise<void> {
   await recomputeFigures();
   await scalingFigures();
   await chemistryFigures();
+  await sheetFigures();
   await commandLineFigures();
   await rendererFigures();
 
