@@ -11,6 +11,7 @@ import { reviewCase, type CaseIo } from './caseReview';
 import { formatFindings } from './findingsCommand';
 import { decisionSupportCaution, formatNumber, formatPlain, withUnit } from './format';
 import { exitCodes, type CliIo } from './io';
+import { choiceWords } from '../../core/words';
 
 
 function loadCase(args: ParsedArgs, io: CaseIo, command: string): { path: string; result: Result<Case> } | null {
@@ -76,7 +77,7 @@ const fmt = (value: number, decimals = 1) => formatNumber(value, decimals);
 export function formatResults(results: CaseResults, findings: readonly Finding[] = []): string {
   const lines: string[] = [];
   const age = results.patient.ageYears === null ? 'age unknown' : `${Math.floor(results.patient.ageYears)} years`;
-  lines.push(`Iron review for ${results.patient.label} (${age}, ${fmt(results.patient.weightKg, 0)} kg, ${results.patient.diagnosisGroup}) as of ${results.asOf}`);
+  lines.push(`Iron review for ${results.patient.label} (${age}, ${fmt(results.patient.weightKg, 0)} kg, ${choiceWords(results.patient.diagnosisGroup)}) as of ${results.asOf}`);
   lines.push(`  ${decisionSupportCaution}`);
   lines.push('');
   lines.push('Findings (urgent first; `findings` lists them alone):');

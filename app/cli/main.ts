@@ -2,6 +2,7 @@ import { parseArgs, repeatedOptionProblems, type ParsedArgs } from './args';
 import { bindingCommand } from './bindingCommand';
 import { calcCommand, calcUsage } from './calcCommand';
 import { calendarCommand, type CalendarHostIo } from './calendarCommand';
+import { commandHelp } from './commandHelp';
 import { checkCommand, computeCommand } from './caseCommands';
 import { courseCommand, type CourseHostIo } from './courseCommand';
 import type { CaseIo } from './caseReview';
@@ -74,6 +75,12 @@ export async function runCli(argv: readonly string[], io: CliHostIo): Promise<nu
   if (command === undefined || command === '--help' || command === 'help') {
     io.out(usage);
     return command === undefined ? exitCodes.usage : exitCodes.ok;
+  }
+  // Every command answers --help with its usage and exit 0.
+  const help = rest.includes('--help') ? commandHelp(command, usage) : undefined;
+  if (help !== undefined) {
+    io.out(help);
+    return exitCodes.ok;
   }
   // binding parses its own arguments (it has a --sweep switch).
   if (command === 'binding') return bindingCommand(rest, io);

@@ -9,6 +9,7 @@ import { logLigandFraction } from './ligandFraction';
 import { constantSetIds, findConstantSet } from './sets';
 import { speciate } from './speciation';
 import { metalIds, molarFromMicromolar, ph, type LigandConstantSet, type MetalId } from './types';
+import { choiceWords } from '../words';
 
 /** Method sources shared by the chemistry calculators (each set's own sources are named in its text output). */
 const methodSourceIds = ['harris-qca', 'ringbom-side-reactions', 'stefansson-2007', 'baes-mesmer-1976'] as const;
@@ -69,7 +70,7 @@ export function describeConstantSet(set: LigandConstantSet): string {
   const sources = set.sourceIds.map((id) => {
     const source = findSource(id);
     if (!source) throw new Error(`Constant set ${set.id} cites unknown source ${id}`);
-    return `${source.authors}${source.year ? ` ${source.year}` : ''} [${source.status}]`;
+    return `${source.authors}${source.year ? ` ${source.year}` : ''} [${choiceWords(source.status)}]`;
   });
   return `${set.id}: ${set.label} (${set.temperatureC} °C, I = ${set.ionicStrengthMolPerL} mol/L, ${set.medium}; status ${set.status}); sources: ${sources.join('; ')}`;
 }

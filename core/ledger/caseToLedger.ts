@@ -7,6 +7,7 @@ import { licMgPerGDryFromUmolPerGDry } from '../units/liverIron';
 import { fraction, mg, perSecond, tesla, type UmolPerGDry } from '../units/quantity';
 import type { Case, ChelationPeriod } from '../model/caseFile';
 import type { ChelationSpan, IronMovement, LedgerInput, LicMeasurement } from './ledgerInput';
+import { choiceWords } from '../words';
 
 /** Something the conversion assumed or left out, said in the trade's words. */
 export interface LedgerNotice {
@@ -27,10 +28,10 @@ export function chelatorIdOf(period: Pick<ChelationPeriod, 'drug' | 'formulation
   return chelatorIdForPeriod(period.drug, period.formulation);
 }
 
-/** 'deferasirox film-coated-tablet 21 mg/kg × 1/day, 7 days/week, adherence 0.9'. */
+/** 'deferasirox film-coated tablets 21 mg/kg × 1/day, 7 days/week, adherence 0.9'. */
 export function describePeriod(period: ChelationPeriod): string {
   const adherence = period.adherence < 1 ? `, adherence ${period.adherence}` : '';
-  return `${period.drug} ${period.formulation} ${period.dose.value} ${period.dose.unit} × ${period.administrationsPerDay}/day, ${period.daysPerWeek} days/week${adherence}`;
+  return `${period.drug} ${choiceWords(period.formulation)} ${period.dose.value} ${period.dose.unit} × ${period.administrationsPerDay}/day, ${period.daysPerWeek} days/week${adherence}`;
 }
 
 /**

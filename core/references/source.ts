@@ -1,3 +1,4 @@
+import { choiceWords } from '../words';
 /**
  * A published source for a formula, a constant or a rule.
  *
@@ -37,7 +38,7 @@ export interface Source {
 /** Short human citation: "Angelucci et al., N Engl J Med 2000;343:327 (confirmed)". */
 export function citeShort(source: Source): string {
   // Common practice and definitions have no authors or publication: their title says what they are.
-  if (source.authors === '—') return `${source.title} [${source.status}]`;
+  if (source.authors === '—') return `${source.title} [${choiceWords(source.status)}]`;
   const where = source.locator ? `, ${source.locator}` : '';
-  return `${source.authors}, ${source.publication}${where} [${source.status}]`;
+  return `${source.authors}, ${source.publication}${where} [${choiceWords(source.status)}]`;
 }

@@ -9,11 +9,12 @@ import { defineRule } from '../rule';
 import { doseThresholdId, thresholdText } from '../../thresholds';
 import type { FindingDraft, TriggerValue } from '../types';
 import { capitalised, forPrescriberReview, shown } from '../wording';
+import { choiceWords } from '../../words';
 
-/** 'Deferasirox film-coated-tablet 21 mg/kg/day' — the regimen as a finding names it. */
+/** 'Deferasirox film-coated tablets 21 mg/kg/day' — the regimen as a finding names it. */
 function regimenName(regimen: ActiveRegimen, openingSentence = true): string {
   const drug = openingSentence ? capitalised(regimen.period.drug) : regimen.period.drug;
-  return `${drug} ${regimen.period.formulation} ${shown(regimen.doseMgPerKgPerDay, 1)} mg/kg/day`;
+  return `${drug} ${choiceWords(regimen.period.formulation)} ${shown(regimen.doseMgPerKgPerDay, 1)} mg/kg/day`;
 }
 
 function doseTrigger(regimen: ActiveRegimen, asOf: string): TriggerValue {

@@ -110,7 +110,7 @@ describe('ascorbic-acid-with-deferoxamine (guideline literature and label: 2–3
 describe('chelator-combination and pregnancy-or-breastfeeding', () => {
   it('two chelators: information listing both; one: nothing', () => {
     const [finding] = ofRule(findingsFor(withPeriods([period('deferiprone', 25), period('deferoxamine', 40)])), 'chelator-combination');
-    expect(finding!.text).toContain('deferiprone tablet 75 mg/kg/day with deferoxamine vial 40 mg/kg/day on 5 days a week');
+    expect(finding!.text).toContain('deferiprone tablets 75 mg/kg/day with deferoxamine vials 40 mg/kg/day on 5 days a week');
     expect(ofRule(findingsFor(withPeriods([period('deferiprone', 25)])), 'chelator-combination')).toHaveLength(0);
   });
 

@@ -1,0 +1,1 @@
+export { choiceWords } from './choiceWords';
