@@ -9,7 +9,7 @@ const commands = [...usage.matchAll(/^ {2}([a-z]+) /gm)].map((match) => match[1]
 
 describe('every subcommand answers --help', () => {
   it('lists the commands from the overview (at least the ones this version has)', () => {
-    expect(new Set(commands)).toEqual(new Set(['calc', 'check', 'compute', 'findings', 'explain', 'binding', 'dose', 'calendar', 'preview']));
+    expect(commands).toEqual(expect.arrayContaining(['calc', 'check', 'compute', 'findings', 'explain', 'binding', 'dose', 'calendar', 'preview']));
   });
 
   it.each([...new Set(commands)])('%s --help prints its usage on stdout and exits 0', async (command) => {
