@@ -63,6 +63,8 @@ export async function sheetCommand(args: ParsedArgs, io: CaseIo & Partial<SheetH
     ...args,
     positionals,
     options: Object.fromEntries(Object.entries(args.options).filter(([flag]) => !(sheetOnlyOptions as readonly string[]).includes(flag))),
+    // --force is the sheet's own switch (replace an existing PDF); the review path refuses switches it does not know.
+    switches: new Set([...args.switches].filter((flag) => flag !== '--force')),
   };
   const review = await reviewCase(reviewArgs, io, { command: 'sheet', usage: sheetUsage });
   if (typeof review === 'number') return review;
