@@ -18,7 +18,8 @@ export interface ChartView {
   }[];
 }
 
-function chartView(chart: Chart): ChartView {
+/** A chart of core's builder as a screen shows it. */
+export function chartView(chart: Chart): ChartView {
   return {
     title: chart.title,
     description: chart.description,

@@ -1,9 +1,10 @@
 import type { IsoDate } from '../../core/dates/isoDate';
 import { computeCase, type CaseResults } from '../../core/ledger/computeCase';
-import type { Case } from '../../core/model/caseFile';
 import { monitoringCalendar, type MonitoringCalendar } from '../../core/monitoring';
 import { derivationsOf, type NamedDerivation } from '../../core/report/derivationIndex';
-import { methodAppendix, type MethodAppendix } from '../../core/report/methodAppendix';
+import { buildSheet } from '../../core/report/buildSheet';
+import type { Sheet } from '../../core/report/sheet';
+import type { Case } from '../../core/model/caseFile';
 import type { Issue } from '../../core/result';
 import { evaluateFindings, type Finding } from '../../core/safety';
 
@@ -43,7 +44,17 @@ export function reviewOf(caseFile: Case, asOf: IsoDate, samples = 500): ReviewOu
   };
 }
 
-/** The method appendix of a review: exactly the formulas and assumptions its numbers used. */
-export function methodsOf(review: Review): MethodAppendix {
-  return methodAppendix(review.derivations);
+/**
+ * The review sheet as core builds it for the PDF, for the screen's preview.
+ * The content hash printed on the sheet is that of the file's bytes, which the
+ * host computes when it writes the PDF; the preview says so instead.
+ */
+export function sheetOf(caseFile: Case, review: Review, toolVersion: string): Sheet {
+  return buildSheet({
+    caseFile,
+    results: review.results,
+    findings: review.findings,
+    caseFileSha256: 'computed by the host when the sheet is written',
+    toolVersion: `chelation-ledger ${toolVersion}`,
+  });
 }
