@@ -15,8 +15,15 @@ export interface StoredCase {
   readonly json: unknown;
 }
 
+/** How a long piece of work reports itself and learns that the user cancelled it. */
+export interface Progress {
+  readonly report: (done: number, total: number) => void;
+  readonly cancelled: () => boolean;
+}
+
 export interface WorkspaceHost {
-  listCases(): Promise<Result<readonly StoredCase[]>>;
+  /** Every case with its document; stops early (returning what it has read) when `progress` says cancelled. */
+  listCases(progress?: Progress): Promise<Result<readonly StoredCase[]>>;
   saveCase(id: string, json: unknown): Promise<Result<{ readonly id: string }>>;
   createCase(json: unknown): Promise<Result<{ readonly id: string }>>;
   /** A whole case file, as text, added to the workspace under a name from its label. */
@@ -52,11 +59,14 @@ export function workspaceHostOver(api: HostApi): WorkspaceHost {
     return ok({ id: caseId });
   };
   return {
-    async listCases() {
+    async listCases(progress) {
       const listed = await api.listCases({});
       if (!listed.ok) return listed;
       const cases: StoredCase[] = [];
-      for (const summary of listed.value.filter((it) => !it.archived)) {
+      const active = listed.value.filter((it) => !it.archived);
+      for (const [done, summary] of active.entries()) {
+        if (progress?.cancelled()) break;
+        progress?.report(done, active.length);
         const opened = await api.openCase({ caseId: summary.caseId });
         if (opened.ok) {
           revisions.set(summary.caseId, opened.value.revision);

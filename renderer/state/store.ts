@@ -36,6 +36,8 @@ export interface WorkspaceState {
   readonly unitSystem: UnitSystem;
   readonly lastExport: string | null;
   readonly aboutOpen: boolean;
+  /** Long work under way (reading a workspace, writing an export), with how far it got; null when idle. */
+  readonly busy: { readonly label: string; readonly done: number; readonly total: number | null } | null;
 }
 
 export interface WorkspaceIntents {
@@ -54,6 +56,8 @@ export interface WorkspaceIntents {
   exportCalendar(asOf: string): Promise<void>;
   setAboutOpen(open: boolean): void;
   dismissMessage(): void;
+  /** Stop the long work under way: reading stops at the next case; an export already sent to the host is no longer waited for. */
+  cancelBusy(): void;
 }
 
 export type Workspace = WorkspaceState & WorkspaceIntents;
@@ -75,16 +79,24 @@ const initial: WorkspaceState = {
   unitSystem: 'si',
   lastExport: null,
   aboutOpen: false,
+  busy: null,
 };
 
 /** A new workspace store (one per page; tests make their own). */
 export function createWorkspaceStore(): StoreApi<Workspace> {
   return createStore<Workspace>()((set, get) => {
+    let cancelled = false;
+    const begin = (label: string) => {
+      cancelled = false;
+      set({ busy: { label, done: 0, total: null } });
+    };
     const refresh = async () => {
       const host = get().host;
       if (!host) return;
-      const listed = await host.listCases();
-      if (listed.ok) set({ cases: listed.value });
+      begin('Reading the workspace');
+      const listed = await host.listCases({ report: (done, total) => set({ busy: { label: 'Reading the workspace', done, total } }), cancelled: () => cancelled });
+      set({ busy: null });
+      if (listed.ok) set({ cases: listed.value, ...(cancelled ? { message: `Reading stopped: ${listed.value.length} case(s) listed; the rest are not shown.` } : {}) });
       else set({ message: `The case list could not be read: ${formatIssues(listed.issues)}` });
     };
     /** Check the draft with core and save it when it is accepted. */
@@ -117,8 +129,12 @@ export function createWorkspaceStore(): StoreApi<Workspace> {
     const exportWith = async (kind: 'sheet' | 'calendar', asOf: string) => {
       const { host, openId } = get();
       if (!host || !openId) return;
+      begin(kind === 'sheet' ? 'Writing the review sheet' : 'Writing the monitoring calendar');
       const written = kind === 'sheet' ? await host.exportSheet(openId, asOf) : await host.exportCalendar(openId, asOf);
-      if (written.ok) set({ lastExport: `${kind === 'sheet' ? 'Review sheet' : 'Monitoring calendar'} written to ${written.value.location}` });
+      const wasCancelled = cancelled;
+      set({ busy: null });
+      if (wasCancelled) set({ message: `No longer waiting for the ${kind}; the host may still write it${written.ok ? ` (it reported ${written.value.location})` : ''}.` });
+      else if (written.ok) set({ lastExport: `${kind === 'sheet' ? 'Review sheet' : 'Monitoring calendar'} written to ${written.value.location}` });
       else set({ message: `The ${kind} was not written: ${formatIssues(written.issues)}` });
     };
     return {
@@ -191,6 +207,9 @@ export function createWorkspaceStore(): StoreApi<Workspace> {
       },
       dismissMessage() {
         set({ message: null });
+      },
+      cancelBusy() {
+        cancelled = true;
       },
     };
   });

@@ -90,6 +90,7 @@ export function App() {
           ))}
         </ul>
       </nav>
+      <BusyLine />
       {message ? (
         <div className="message" role="alert">
           {message} <button type="button" onClick={dismissMessage}>Dismiss</button>
@@ -107,6 +108,19 @@ export function App() {
       </main>
       <footer><p className="caution-footer">{cautionText}</p></footer>
       <AboutDialog />
+    </div>
+  );
+}
+
+/** Long work in progress, how far it got, and a way to cancel it. */
+function BusyLine() {
+  const busy = useWorkspace((state) => state.busy);
+  if (!busy) return null;
+  return (
+    <div className="busy" role="status">
+      {busy.label}
+      {busy.total === null ? '…' : <> <progress max={busy.total} value={busy.done} aria-label={busy.label} /> {busy.done} of {busy.total}</>}{' '}
+      <button type="button" onClick={() => workspaceStore.getState().cancelBusy()}>Cancel</button>
     </div>
   );
 }

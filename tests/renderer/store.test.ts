@@ -65,6 +65,21 @@ describe('the workspace store', () => {
     expect(refused.ok ? '' : refused.issues[0]!.message).toMatch(/changed since it was opened/);
   });
 
+  it('reads a workspace with progress, and stops at the next case when cancelled, keeping what it read', async () => {
+    const host = workspaceHostOver(createMemoryHost({ 'a.json': demo, 'b.json': demo, 'c.json': demo }));
+    const reports: string[] = [];
+    let stop = false;
+    const listed = await host.listCases({
+      report: (done, total) => {
+        reports.push(`${done}/${total}`);
+        if (done === 1) stop = true;
+      },
+      cancelled: () => stop,
+    });
+    expect(reports).toEqual(['0/3', '1/3']);
+    expect(listed.ok && listed.value.map((it) => it.id)).toEqual(['a.json', 'b.json']);
+  });
+
   it('refuses an import that is not JSON with a message, and lists an imported case', async () => {
     const store = createWorkspaceStore();
     await store.getState().connect(workspaceHostOver(createMemoryHost({})), 'in-page store');
