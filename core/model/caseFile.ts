@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { refuseReservedKeys } from './reservedKeys';
 import { assumptionOverridesSchema } from './assumptionOverrides';
 import type { CheckLevel } from './bounds';
 import { chelationPeriodSchemaAt } from './chelationPeriod';
@@ -22,9 +23,8 @@ export const maxProposedRegimens = 3;
  * A local protocol's safety thresholds (core/thresholds), by threshold id,
  * with why, who and when; ids and ranges are checked by checkThresholdOverrides.
  */
-export const thresholdOverridesSchema = z.record(
-  z.string(),
-  z.strictObject({ value: z.number(), reason: requiredTextSchema(1000), by: requiredTextSchema(100), at: isoDateSchema }),
+export const thresholdOverridesSchema = refuseReservedKeys('a threshold id').pipe(
+  z.record(z.string(), z.strictObject({ value: z.number(), reason: requiredTextSchema(1000), by: requiredTextSchema(100), at: isoDateSchema })),
 );
 
 /**

@@ -50,7 +50,8 @@ function duplicateIds(theCase: Case): Issue[] {
 }
 
 /** Two periods of one drug that share days: usually a regimen change typed without ending the old period. */
-function overlappingSameDrug(periods: readonly ChelationPeriod[]): Issue[] {
+/** Periods of one drug that overlap (a duplicated period counts the drug twice); `base` is the list's path. */
+function overlappingSameDrug(periods: readonly ChelationPeriod[], base: Path = ['chelationPeriods']): Issue[] {
   const found: Issue[] = [];
   periods.forEach((later, laterIndex) => {
     periods.slice(0, laterIndex).forEach((earlier, earlierIndex) => {
@@ -58,12 +59,12 @@ function overlappingSameDrug(periods: readonly ChelationPeriod[]): Issue[] {
       const earlierEnds = earlier.endDate ?? '9999-12-31';
       const laterEnds = later.endDate ?? '9999-12-31';
       if (later.startDate > earlierEnds || earlier.startDate > laterEnds) return;
-      const path = ['chelationPeriods', laterIndex];
+      const path = [...base, laterIndex];
       found.push(
         issue(
           'inconsistent',
           path,
-          `${pathText(path)} (${later.drug} from ${later.startDate}) overlaps chelationPeriods[${earlierIndex}] of the same drug; end the earlier period if the regimen changed.`,
+          `${pathText(path)} (${later.drug} from ${later.startDate}) overlaps ${pathText([...base, earlierIndex])} of the same drug; end the earlier period if the regimen changed${base[0] === 'proposedRegimens' ? ' (in a proposal, each drug once: a duplicate counts its dose twice)' : ''}.`,
           'warning',
         ),
       );
@@ -257,6 +258,7 @@ export function consistencyIssues(theCase: Case): Issue[] {
   }
 
   found.push(...overlappingSameDrug(theCase.chelationPeriods));
+  theCase.proposedRegimens.forEach((regimen, index) => found.push(...overlappingSameDrug(regimen.periods, ['proposedRegimens', index, 'periods'])));
   found.push(...weightProblems(theCase));
   found.push(...dailyDoseProblems(theCase));
   found.push(...calibrationProblems(theCase));

@@ -129,3 +129,22 @@ describe('strict options', () => {
     expect((await cli('compute', demoCase('th-0417'), '--force')).err).toContain('--force: not an option of compute');
   });
 });
+
+describe('model gaps found by the fuzz run', () => {
+  it('refuses "__proto__" in thresholdOverrides instead of dropping it silently', async () => {
+    const text = JSON.stringify(th0417()).replace(/}$/, ', "thresholdOverrides": {"__proto__": {"value": 1, "reason": "x", "by": "y", "at": "2026-01-01"}}}');
+    const { code, err } = await cli('check', writeTemp(text));
+    expect(code).toBe(1);
+    expect(err).toContain('thresholdOverrides.__proto__ is a reserved name, not a threshold id');
+  });
+
+  it('warns about a period duplicated inside a proposed regimen (it would count the dose twice)', async () => {
+    const path = variant((json) => {
+      const proposal = json.proposedRegimens[0];
+      proposal.periods.push({ ...proposal.periods[0], id: 'duplicate' });
+    });
+    const { code, err } = await cli('check', path);
+    expect(code).toBe(0);
+    expect(err).toContain('proposedRegimens[0].periods[1] (deferasirox from 2026-11-20) overlaps proposedRegimens[0].periods[0] of the same drug');
+  });
+});
