@@ -36,7 +36,10 @@ let embeddedCodePoints: ReadonlySet<number> | undefined;
  * "[U+2192]", so nothing the user typed disappears from the paper unseen.
  */
 export function printable(text: string): string {
+  // Printable ASCII is in every font: most strings take this path.
+  if (/^[\x20-\x7e\n]*$/.test(text)) return text;
   embeddedCodePoints ??= new Set((openSync(robotoFonts.Roboto.normal) as Font).characterSet);
+  if (![...text].some((character) => character.codePointAt(0)! >= 0x20 && !embeddedCodePoints!.has(character.codePointAt(0)!))) return text;
   let shown = '';
   for (const character of text) {
     const codePoint = character.codePointAt(0)!;
@@ -74,7 +77,7 @@ function table(block: Extract<SheetBlock, { kind: 'table' }>): Content {
   return {
     stack: [
       caption,
-      { table: { headerRows: 1, dontBreakRows: true, widths, body }, layout: 'lightHorizontalLines', fontSize: 7.5 },
+      { table: { headerRows: 1, widths, body }, layout: 'lightHorizontalLines', fontSize: 7.5 },
       ...(block.note ? [{ text: printable(block.note), fontSize: 7, italics: true, margin: [0, 2, 0, 0] } as Content] : []),
     ],
     margin: [0, 0, 0, 6],
