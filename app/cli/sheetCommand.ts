@@ -29,6 +29,10 @@ const sheetOnlyOptions = ['--output', '--paper', '--prepared-by'] as const;
  * compute the review, build the sheet (core/report) and write it as a PDF, atomically.
  */
 export async function sheetCommand(args: ParsedArgs, io: CaseIo & Partial<SheetHostIo>): Promise<number> {
+  if (args.switches.has('--help')) {
+    io.out(sheetUsage);
+    return exitCodes.ok;
+  }
   const problems: string[] = [];
   const positionals: string[] = [];
   let shortOutput: string | undefined;
