@@ -58,3 +58,24 @@ export function sheetOf(caseFile: Case, review: Review, toolVersion: string): Sh
     toolVersion: `chelation-ledger ${toolVersion}`,
   });
 }
+
+const reviewCache = new WeakMap<Case, Map<string, ReviewOutcome>>();
+
+/**
+ * The review of an accepted case on a date, computed once: every screen of
+ * the open case reads the same outcome (a case is immutable, so its object
+ * identity is its version; an edit makes a new case and a new review).
+ */
+export function cachedReviewOf(caseFile: Case, asOf: IsoDate): ReviewOutcome {
+  let byDate = reviewCache.get(caseFile);
+  if (!byDate) {
+    byDate = new Map();
+    reviewCache.set(caseFile, byDate);
+  }
+  let outcome = byDate.get(asOf);
+  if (!outcome) {
+    outcome = reviewOf(caseFile, asOf);
+    byDate.set(asOf, outcome);
+  }
+  return outcome;
+}

@@ -1,4 +1,5 @@
 import { useEffect, useRef } from 'react';
+import { useReviewWarmUp } from '../hooks/useReview';
 import { screens, useWorkspace, workspaceStore, type Screen } from '../state/store';
 import { AssumptionsView } from './AssumptionsView';
 import { CasesView } from './CasesView';
@@ -39,6 +40,7 @@ export function App() {
   const canRedo = useWorkspace((state) => state.future.length > 0);
   const { showScreen, undo, redo, setAboutOpen, dismissMessage, closeCase } = workspaceStore.getState();
   const mainRef = useRef<HTMLElement>(null);
+  useReviewWarmUp();
 
   useEffect(() => {
     const onKey = (event: KeyboardEvent) => {
