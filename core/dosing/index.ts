@@ -8,3 +8,4 @@ export * from './practicalDose';
 export { formatAmount } from './formatAmount';
 export { closestCombination, smallestCoveringCombination, halfMgUnitsFromMg, type Piece, type Combination } from './combinationSearch';
 export { practicalDose, dosingFormulas } from './formulas';
+export { proportionOfDaysCovered, type DaysCovered, type Supply } from './proportionOfDaysCovered';

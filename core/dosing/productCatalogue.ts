@@ -37,6 +37,8 @@ const shared = {
   drug: z.enum(productDrugs),
   name: z.string().min(1).max(120),
   sourceIds: sourceIdsSchema,
+  /** The administrations per day the product is made for, where the label ties them (the two deferiprone 1,000 mg tablets). */
+  administrationsPerDay: z.number().int().min(1).max(6).optional(),
   note: z.string().max(600).optional(),
 };
 
@@ -117,6 +119,29 @@ export const defaultProductCatalogue: ProductCatalogue = [
     ],
     sourceIds: ['deferiprone-label', 'dosing-deferiprone-strengths-memory'],
     note: '1000 mg tablet halves allowed from memory of the label (scored tablet): check the local product.',
+  },
+  {
+    id: 'deferiprone-tablets-1000-twice-daily',
+    drug: 'deferiprone',
+    kind: 'tablets',
+    name: 'deferiprone 1,000 mg tablets for twice-a-day dosing',
+    // US label (March 2025) §2.1: a 1,000 mg tablet for twice-a-day dosing, not interchangeable with the
+    // three-times-a-day tablet (references.md §9, confirmed). Breaking it is not described: whole only (from memory).
+    strengths: [{ strengthMg: 1000, halvable: false }],
+    administrationsPerDay: 2,
+    sourceIds: ['deferiprone-label-us-2025', 'dosing-deferiprone-strengths-memory'],
+    note: 'Twice-a-day tablet; the label asks that the tablet matches the regimen.',
+  },
+  {
+    id: 'deferiprone-tablets-1000-three-times-daily',
+    drug: 'deferiprone',
+    kind: 'tablets',
+    name: 'deferiprone 1,000 mg tablets for three-times-a-day dosing',
+    // US label (March 2025) §2.1; scored, doses rounded to the nearest half tablet (references.md §9).
+    strengths: [{ strengthMg: 1000, halvable: true }],
+    administrationsPerDay: 3,
+    sourceIds: ['deferiprone-label-us-2025', 'dosing-deferiprone-strengths-memory'],
+    note: 'Three-times-a-day tablet; the label asks that the tablet matches the regimen.',
   },
   {
     id: 'deferiprone-oral-solution',

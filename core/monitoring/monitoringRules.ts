@@ -83,7 +83,7 @@ export function monitoringRules(): readonly MonitoringRule[] {
     interval: { months: 1 },
     firstMonthInterval: { days: 14 },
     why: `On deferasirox: ${what} every 2 weeks during the first month of a period, then at least monthly (US label §5.2).`,
-    sourceIds: ['deferasirox-label-us-hepatic'],
+    sourceIds: ['deferasirox-label-us'],
   });
   return [
     {
@@ -109,7 +109,7 @@ export function monitoringRules(): readonly MonitoringRule[] {
       interval: { days: 7 },
       dynamic: 'deferiprone-anc',
       why: 'On deferiprone: ANC by time on the drug (US label 2025 §2.1, §5.1).',
-      sourceIds: ['monitoring-deferiprone-anc'],
+      sourceIds: ['deferiprone-label-us-2025'],
     },
     {
       id: 'ferritin-quarterly',
@@ -149,9 +149,9 @@ export function monitoringRules(): readonly MonitoringRule[] {
       condition: { kind: 'on-drug', drugs: ['deferoxamine', 'deferasirox'] },
       interval: { months: 12 },
       why: 'On deferoxamine: hearing yearly (label; confirmed). On deferasirox: auditory testing yearly (label; secondary, from memory).',
-      sourceIds: ['monitoring-deferoxamine-label', 'monitoring-deferasirox-label'],
+      sourceIds: ['deferoxamine-label', 'monitoring-deferasirox-label'],
       byDrug: {
-        deferoxamine: { why: 'On deferoxamine: hearing yearly (label; confirmed).', sourceIds: ['monitoring-deferoxamine-label'] },
+        deferoxamine: { why: 'On deferoxamine: hearing yearly (label; confirmed).', sourceIds: ['deferoxamine-label'] },
         deferasirox: { why: 'On deferasirox: auditory testing yearly (label; secondary, from memory).', sourceIds: ['monitoring-deferasirox-label'] },
       },
     },
@@ -163,9 +163,9 @@ export function monitoringRules(): readonly MonitoringRule[] {
       condition: { kind: 'on-drug', drugs: ['deferoxamine', 'deferasirox'] },
       interval: { months: 12 },
       why: 'On deferoxamine: eye examination yearly (label; confirmed). On deferasirox: ophthalmic testing yearly (label; secondary, from memory).',
-      sourceIds: ['monitoring-deferoxamine-label', 'monitoring-deferasirox-label'],
+      sourceIds: ['deferoxamine-label', 'monitoring-deferasirox-label'],
       byDrug: {
-        deferoxamine: { why: 'On deferoxamine: eye examination yearly (label; confirmed).', sourceIds: ['monitoring-deferoxamine-label'] },
+        deferoxamine: { why: 'On deferoxamine: eye examination yearly (label; confirmed).', sourceIds: ['deferoxamine-label'] },
         deferasirox: { why: 'On deferasirox: ophthalmic testing yearly (label; secondary, from memory).', sourceIds: ['monitoring-deferasirox-label'] },
       },
     },

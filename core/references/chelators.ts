@@ -36,9 +36,9 @@ export const chelatorsSources = [
     title: 'Deferoxamine mesylate for injection, prescribing information (US)',
     publication: 'US product labels (2023 and 2025 revisions)',
     year: 2025,
-    locator: '§2 dosage and administration, §3 dosage forms, §11 description',
+    locator: '§2 dosage and administration, §3 dosage forms, §5 warnings and precautions, §11 description',
     status: 'confirmed',
-    note: 'Read again for references.md §9. Doses stated as the mesylate: 20–60 mg/kg/day by subcutaneous infusion over 8–12 hours, 5–7 days a week; at most 40 mg/kg/day in children and 60 mg/kg/day in adults; usual starting doses by ferritin: below 2,000 µg/L about 25, 2,000–3,000 about 35, higher up to 55 mg/kg/day; intravenous at most 15 mg/kg/h (read in the acute section). Vials 500 mg (426.82 mg base) and 2 g. Brittenham 2011 is cited separately (brittenham-2011).',
+    note: 'Read again for references.md §9. Hearing and eye examinations before treatment and at regular intervals (yearly in practice). Doses stated as the mesylate: 20–60 mg/kg/day by subcutaneous infusion over 8–12 hours, 5–7 days a week; at most 40 mg/kg/day in children and 60 mg/kg/day in adults; usual starting doses by ferritin: below 2,000 µg/L about 25, 2,000–3,000 about 35, higher up to 55 mg/kg/day; intravenous at most 15 mg/kg/h (read in the acute section). Vials 500 mg (426.82 mg base) and 2 g. Brittenham 2011 is cited separately (brittenham-2011).',
   },
   {
     id: 'deferoxamine-aluminium-memory',

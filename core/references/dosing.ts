@@ -56,26 +56,8 @@ export const dosingSources = [
     status: 'secondary',
     note: 'Liver tests (AST, ALT, bilirubin) every 2 weeks during the first month, then at least monthly (US label §5.2, confirmed in references.md §9); serum creatinine at least monthly, weekly in the first month when there is renal risk (US label boxed warning and §2.1, confirmed). Auditory and ophthalmic testing before starting and yearly (from memory).',
   },
-  {
-    id: 'monitoring-deferiprone-anc',
-    authors: 'Marketing authorisation holder',
-    title: 'Deferiprone prescribing information (US), revision of March 2025: absolute neutrophil count schedule',
-    publication: 'US product label (recent major change §5.1, 3/2025; references.md §9)',
-    year: 2025,
-    locator: '§2.1 and §5.1',
-    status: 'confirmed',
-    note: 'Weekly for the first 6 months, every 2 weeks for the next 6 months, then every 2–4 weeks (or at the transfusion interval) after a year without an interruption for low ANC; daily during neutropenia until recovery. The calendar follows this by time on the drug; "weekly throughout" (the older texts) is a local-protocol option.',
-  },
-  {
-    id: 'monitoring-deferoxamine-label',
-    authors: 'Marketing authorisation holder',
-    title: 'Deferoxamine mesylate prescribing information (US): auditory and ophthalmological examinations',
-    publication: 'US product labels (2023 and 2025 revisions; references.md §4 and §9)',
-    year: 2025,
-    locator: 'warnings and precautions',
-    status: 'confirmed',
-    note: 'Hearing (audiometry) and eye (ophthalmological) checks before starting and yearly while treated (references.md §4, listed as confirmed).',
-  },
+
+
   {
     id: 'monitoring-ferritin-quarterly',
     authors: '—',

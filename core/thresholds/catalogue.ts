@@ -54,7 +54,7 @@ const fixedThresholds = [
   // Transaminase upper limit of normal when the result carries no laboratory range: an assumption (laboratories differ), from memory.
   { id: 'alt-upper-limit-of-normal', label: 'transaminase upper limit of normal when the laboratory gives none (assumed)', value: 40, unit: 'U/L', sourceIds: ['alt-uln-memory'], overrideMin: 10, overrideMax: 100 },
   // 5 × ULN is a study protocol's cut-off, not a label value (references.md §9): a local-protocol option only.
-  { id: 'alt-multiple-of-uln', label: 'local-protocol multiple of the upper limit of normal (a study protocol’s cut-off; the labels give none)', value: 5, unit: '1', sourceIds: ['alt-uln-memory', 'deferasirox-label-us-hepatic'], overrideMin: 1, overrideMax: 20 },
+  { id: 'alt-multiple-of-uln', label: 'local-protocol multiple of the upper limit of normal (a study protocol’s cut-off; the labels give none)', value: 5, unit: '1', sourceIds: ['alt-uln-memory', 'deferasirox-label-us'], overrideMin: 1, overrideMax: 20 },
   // Ferritin consistently below 500 µg/L on deferasirox or deferiprone (labels, references.md §4, secondary).
   { id: 'ferritin-low', label: 'low ferritin on deferasirox or deferiprone', value: 500, unit: 'ug/L', sourceIds: ['low-iron-interruption-labels'], overrideMin: 50, overrideMax: 2000 },
   // LIC below 3 mg/g dry (US deferasirox label; LIC bands of Olivieri & Brittenham 1997 put 3–7 as the target).
@@ -65,7 +65,7 @@ const fixedThresholds = [
   { id: 'deferiprone-anc-agranulocytosis', label: 'agranulocytosis below (US label 2025; older and EU texts 0.5)', value: 0.2, unit: '10*9/L', sourceIds: ['deferiprone-label-us-2025'], overrideMin: 0.05, overrideMax: 0.5 },
   // A local protocol's fixed ANC interval on deferiprone ("weekly throughout", the older texts). Not applied unless
   // overridden: by default the 2025 US label's schedule by time on the drug applies (core/monitoring, references.md §9).
-  { id: 'deferiprone-anc-interval', label: 'local-protocol fixed interval of ANC checks on deferiprone (weekly throughout in the older texts)', value: 7, unit: 'd', sourceIds: ['deferiprone-label-us-2025-anc-schedule'], overrideMin: 1, overrideMax: 92 },
+  { id: 'deferiprone-anc-interval', label: 'local-protocol fixed interval of ANC checks on deferiprone (weekly throughout in the older texts)', value: 7, unit: 'd', sourceIds: ['deferiprone-label-us-2025'], overrideMin: 1, overrideMax: 92 },
   // Deferasirox: creatinine (and ALT) monthly (references.md §4); a calendar month is at most 31 days.
   { id: 'deferasirox-monthly-test-interval', label: 'days since the last creatinine or ALT on deferasirox', value: 31, unit: 'd', sourceIds: ['deferasirox-label-renal'], overrideMin: 7, overrideMax: 184 },
   // Liver iron about yearly on chelation (from memory).
@@ -79,14 +79,12 @@ const fixedThresholds = [
   // Porter et al., Br J Haematol 1989;73:403: a therapeutic index greater than 0.025 (confirmed).
   { id: 'deferoxamine-therapeutic-index', label: 'deferoxamine therapeutic index', value: 0.025, unit: '(mg/kg/d)/(ug/L)', sourceIds: ['porter-1989', 'common-practice'], overrideMin: 0.005, overrideMax: 0.1 },
   // Under 18 years is treated as growing: common practice.
-  { id: 'growing-until-age', label: 'age until which a child is treated as growing', value: 18, unit: 'a', sourceIds: ['deferoxamine-monitoring', 'common-practice'], overrideMin: 10, overrideMax: 25 },
-  // Ascorbic acid with deferoxamine: about 2–3 mg/kg/day, at most 200 mg/day (references.md §3, secondary).
-  { id: 'ascorbic-acid-usual-low', label: 'ascorbic acid usual dose, lower end', value: 2, unit: 'mg/kg/d', sourceIds: ['ascorbic-acid-deferoxamine'], overrideMin: 0.5, overrideMax: 10 },
-  { id: 'ascorbic-acid-usual-high', label: 'ascorbic acid usual dose, upper end', value: 3, unit: 'mg/kg/d', sourceIds: ['ascorbic-acid-deferoxamine'], overrideMin: 1, overrideMax: 10 },
-  { id: 'ascorbic-acid-daily-cap', label: 'ascorbic acid daily cap, adults', value: 200, unit: 'mg/d', sourceIds: ['ascorbic-acid-deferoxamine', 'deferoxamine-label-interactions'], overrideMin: 25, overrideMax: 1000 },
+  { id: 'growing-until-age', label: 'age until which a child is treated as growing', value: 18, unit: 'a', sourceIds: ['deferoxamine-label', 'common-practice'], overrideMin: 10, overrideMax: 25 },
+  // Ascorbic acid with deferoxamine: up to 200 mg/day in adults (older US deferoxamine label, references.md §9, confirmed).
+  { id: 'ascorbic-acid-daily-cap', label: 'ascorbic acid daily cap, adults', value: 200, unit: 'mg/d', sourceIds: ['deferoxamine-label-interactions'], overrideMin: 25, overrideMax: 1000 },
   // Older US deferoxamine label, vitamin C: about 50 mg/day under 10 years, 100 mg/day in older children (references.md §9, confirmed).
-  { id: 'ascorbic-acid-daily-cap-under-10', label: 'ascorbic acid daily amount, children under 10 years', value: 50, unit: 'mg/d', sourceIds: ['ascorbic-acid-deferoxamine', 'deferoxamine-label-interactions'], overrideMin: 10, overrideMax: 500 },
-  { id: 'ascorbic-acid-daily-cap-older-child', label: 'ascorbic acid daily amount, older children', value: 100, unit: 'mg/d', sourceIds: ['ascorbic-acid-deferoxamine', 'deferoxamine-label-interactions'], overrideMin: 10, overrideMax: 500 },
+  { id: 'ascorbic-acid-daily-cap-under-10', label: 'ascorbic acid daily amount, children under 10 years', value: 50, unit: 'mg/d', sourceIds: ['deferoxamine-label-interactions'], overrideMin: 10, overrideMax: 500 },
+  { id: 'ascorbic-acid-daily-cap-older-child', label: 'ascorbic acid daily amount, older children', value: 100, unit: 'mg/d', sourceIds: ['deferoxamine-label-interactions'], overrideMin: 10, overrideMax: 500 },
   // A daily dose more than this multiple of the labelled daily maximum is urgent: likely a daily dose typed per
   // administration (75 mg/kg three times a day). A modelling choice of ours (dose-far-above-maximum-choice).
   { id: 'dose-far-above-maximum-multiple', label: 'multiple of the labelled daily maximum above which a dose is urgent', value: 1.5, unit: '1', sourceIds: ['dose-far-above-maximum-choice'], overrideMin: 1.05, overrideMax: 5 },
@@ -102,7 +100,7 @@ function doseThresholds(): Threshold[] {
     }
     list.push({ id: `dose-max-${entry.id}`, label: `${entry.label}: upper end of the published range`, value: dose.maxMgPerKgPerDay, unit: 'mg/kg/d', sourceIds: dose.sourceIds, overrideMin: 1, overrideMax: 200 });
     if ('growingMaxMgPerKgPerDay' in dose) {
-      list.push({ id: `dose-growing-max-${entry.id}`, label: `${entry.label}: limit while growing`, value: dose.growingMaxMgPerKgPerDay, unit: 'mg/kg/d', sourceIds: [...dose.sourceIds, 'deferoxamine-monitoring'], overrideMin: 1, overrideMax: 200 });
+      list.push({ id: `dose-growing-max-${entry.id}`, label: `${entry.label}: limit while growing`, value: dose.growingMaxMgPerKgPerDay, unit: 'mg/kg/d', sourceIds: dose.sourceIds, overrideMin: 1, overrideMax: 200 });
     }
     if ('intravenousMaxMgPerKgPerHour' in dose) {
       list.push({ id: `dose-iv-rate-max-${entry.id}`, label: `${entry.label}: intravenous rate limit`, value: dose.intravenousMaxMgPerKgPerHour, unit: 'mg/kg/h', sourceIds: dose.sourceIds, overrideMin: 1, overrideMax: 50 });

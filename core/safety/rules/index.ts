@@ -12,6 +12,9 @@ import {
   pregnancyRule,
 } from './regimen';
 import { deferasiroxCrclRule, deferasiroxCreatinineRiseRule, deferasiroxEgfrRule } from './renal';
+import { dispensingAdherenceRule } from './adherence';
+import { labelInteractionRule } from './interactions';
+import { deferasiroxHepaticImpairmentRule, deferasiroxStartCriteriaRule, deferoxamineFerritinBandRule, productAdministrationsRule } from './labelDosing';
 
 /** Every safety rule, in the order findings of equal severity are listed (patient, organs, dose, record). */
 export const safetyRules: readonly SafetyRule[] = [
@@ -22,9 +25,12 @@ export const safetyRules: readonly SafetyRule[] = [
   deferasiroxEgfrRule,
   deferasiroxCrclRule,
   deferasiroxCreatinineRiseRule,
+  deferasiroxHepaticImpairmentRule,
   altRaisedRule,
   lowIronRule,
   doseRangeRule,
+  productAdministrationsRule,
+  labelInteractionRule,
   deferoxamineGrowthRule,
   deferoxamineIntravenousRateRule,
   deferoxamineTherapeuticIndexRule,
@@ -37,6 +43,9 @@ export const safetyRules: readonly SafetyRule[] = [
   cardiacT2StarOverdueRule,
   deferoxamineHearingEyesRule,
   chelatorCombinationRule,
+  deferasiroxStartCriteriaRule,
+  deferoxamineFerritinBandRule,
+  dispensingAdherenceRule,
 ];
 
 const ids = new Set<string>();

@@ -30,7 +30,7 @@ export const altRaisedRule = defineRule({
   title: 'Liver tests: transaminases above the upper limit of normal (labels: severe or persistent elevations)',
   severity: 'review',
   drugs: ['deferasirox', 'deferiprone'],
-  sourceIds: ['deferasirox-label-us-hepatic'],
+  sourceIds: ['deferasirox-label-us'],
   uncertain: false,
   evaluate: (context) => {
     const drugs = activeAmong(context, ['deferasirox', 'deferiprone']);
@@ -142,7 +142,7 @@ export const deferiproneAncMonitoringRule = defineRule({
   title: 'Deferiprone: neutrophil counts by time on the drug (US label 2025)',
   severity: 'review',
   drugs: ['deferiprone'],
-  sourceIds: ['deferiprone-label-us-2025-anc-schedule'],
+  sourceIds: ['deferiprone-label-us-2025'],
   uncertain: false,
   evaluate: (context) => {
     const runStart = continuousRunStart(context.caseFile.chelationPeriods, 'deferiprone', context.asOf);
@@ -177,7 +177,7 @@ export const deferasiroxMonthlyTestsRule = defineRule({
   title: 'Deferasirox: creatinine and liver tests due (monthly; more often in the first month and with renal risk)',
   severity: 'review',
   drugs: ['deferasirox'],
-  sourceIds: ['deferasirox-label-renal', 'deferasirox-label-us-hepatic'],
+  sourceIds: ['deferasirox-label-renal', 'deferasirox-label-us'],
   uncertain: false,
   evaluate: (context) => {
     if (!context.activeDrugs.has('deferasirox')) return [];

@@ -4,7 +4,9 @@ import { runFormula } from '../../formulas/run';
 import { isAscorbicAcid } from '../../model/coMedication';
 import { coMedicationDoseMg } from '../coMedicationDose';
 import { continuousRunStart } from '../../model/continuousRunStart';
-import type { ActiveRegimen } from '../context';
+import type { ActiveRegimen, SafetyContext } from '../context';
+import { addMonthsIso } from '../../dates/isoDate';
+import type { AppliedThreshold } from '../../thresholds';
 import { defineRule } from '../rule';
 import { doseThresholdId, thresholdText } from '../../thresholds';
 import type { FindingDraft, TriggerValue } from '../types';
@@ -26,8 +28,8 @@ const sameDose = (first: number, second: number) => Math.abs(first - second) <= 
 
 export const doseRangeRule = defineRule({
   id: 'dose-outside-published-range',
-  title: 'Dose per kg per day outside the published range for the drug and formulation',
-  severity: 'review',
+  title: 'Dose per kg per day outside the published range for the drug and formulation; far above the labelled maximum urgent',
+  severity: 'urgent',
   drugs: ['deferoxamine', 'deferiprone', 'deferasirox'],
   sourceIds: ['deferoxamine-label', 'deferiprone-label', 'deferasirox-label'],
   uncertain: false,
@@ -48,6 +50,18 @@ export const doseRangeRule = defineRule({
       if (min && dose < min.value && !sameDose(dose, min.value)) {
         return [{ ...base, severity: 'review', text: `${opening}: below the published range ${range} for ${entry.label}${overrideText}; ${forPrescriberReview}.` }];
       }
+      const far = context.threshold('dose-far-above-maximum-multiple');
+      if (dose > max.value * far.value && !sameDose(dose, max.value * far.value)) {
+        const perAdministration = regimen.period.administrationsPerDay > 1 ? ` (${shown(dose / regimen.period.administrationsPerDay, 1)} mg/kg per administration × ${regimen.period.administrationsPerDay} a day; the dose field is per administration)` : '';
+        return [
+          {
+            ...base,
+            severity: 'urgent',
+            text: `${opening}${perAdministration}: more than ${thresholdText(far, 'modelling-choice')} × the labelled daily maximum of ${max.value} mg/kg/day for ${entry.label}${overrideText}; a daily dose may have been entered per administration, and the expected removal and projections for it are not reliable; ${forPrescriberReview}.`,
+            thresholds: [...base.thresholds, far],
+          },
+        ];
+      }
       if (dose > max.value && !sameDose(dose, max.value)) {
         return [{ ...base, severity: 'review', text: `${opening}: above the published range ${range} for ${entry.label}${overrideText}; ${forPrescriberReview}.` }];
       }
@@ -60,7 +74,7 @@ export const deferoxamineGrowthRule = defineRule({
   title: 'Deferoxamine at most 40 mg/kg/day while growing',
   severity: 'review',
   drugs: ['deferoxamine'],
-  sourceIds: ['deferoxamine-label', 'deferoxamine-monitoring', 'common-practice'],
+  sourceIds: ['deferoxamine-label', 'common-practice'],
   uncertain: false,
   evaluate: (context) =>
     context.active
@@ -161,23 +175,32 @@ export const deferoxamineTherapeuticIndexRule = defineRule({
   },
 });
 
+const examinations = [
+  { id: 'hearing', kind: 'audiology', name: 'hearing (audiology)' },
+  { id: 'eyes', kind: 'eye-examination', name: 'eye examination' },
+] as const;
+
 export const deferoxamineHearingEyesRule = defineRule({
   id: 'deferoxamine-hearing-eyes',
   title: 'Deferoxamine: yearly hearing and eye examinations',
-  severity: 'information',
+  severity: 'review',
   drugs: ['deferoxamine'],
-  sourceIds: ['deferoxamine-monitoring'],
+  sourceIds: ['deferoxamine-label'],
   uncertain: false,
   evaluate: (context) => {
     const runStart = continuousRunStart(context.caseFile.chelationPeriods, 'deferoxamine', context.asOf);
     if (runStart === null) return [];
-    return [
-      {
-        severity: 'information',
-        text: `Deferoxamine since ${runStart}: the label advises hearing (audiology) and eye examinations at least yearly; the case file holds no audiology or eye results, so when they were last done is not known here.`,
-        triggers: [{ name: 'deferoxamine running since', value: runStart, unit: '', date: runStart, ref: context.active.find((it) => it.period.drug === 'deferoxamine')?.ref ?? null }],
-      },
-    ];
+    return examinations.flatMap(({ id, kind, name }): FindingDraft[] => {
+      const item = context.monitoring.items.find((it) => it.id === id);
+      const latest = context.resultsOf(kind).at(-1);
+      const triggers: TriggerValue[] = latest ? [{ name: `last ${name}`, value: latest.entry.outcome, unit: '', date: latest.entry.date, ref: latest.ref }] : [];
+      if (latest && latest.entry.outcome === 'changed-from-baseline') {
+        return [{ severity: 'review', text: `Deferoxamine since ${runStart}: the ${name} of ${latest.entry.date} is recorded as changed from baseline; the label lists hearing and eye changes among the effects of deferoxamine; ${forPrescriberReview}.`, triggers }];
+      }
+      if (!item || item.status === 'upcoming') return [];
+      const last = item.lastDate === null ? `no ${name} done is on record` : `the last done is from ${item.lastDate}`;
+      return [{ severity: 'information', text: `Deferoxamine since ${runStart}: ${name} due on ${item.dueDate} (${item.intervalText}; ${last}); the label advises hearing and eye examinations at least yearly.`, triggers }];
+    });
   },
 });
 
@@ -226,61 +249,75 @@ export const pregnancyRule = defineRule({
   },
 });
 
+/** The ascorbic acid cap that applies at an age: under 10 years, older children (to 18, common practice), adults. */
+function ascorbicAcidCap(context: SafetyContext): { cap: AppliedThreshold; band: string } {
+  const age = context.ageYears;
+  const growingUntil = context.threshold('growing-until-age');
+  if (age !== null && age < 10) return { cap: context.threshold('ascorbic-acid-daily-cap-under-10'), band: `under 10 years (age ${Math.floor(age)})` };
+  if (age !== null && age < growingUntil.value) return { cap: context.threshold('ascorbic-acid-daily-cap-older-child'), band: `an older child (age ${Math.floor(age)})` };
+  return { cap: context.threshold('ascorbic-acid-daily-cap'), band: age === null ? 'age unknown, so the adult amount is shown' : `an adult (age ${Math.floor(age)})` };
+}
+
 export const ascorbicAcidRule = defineRule({
   id: 'ascorbic-acid-with-deferoxamine',
-  title: 'Ascorbic acid only with deferoxamine, within its usual dose and cap, not in cardiac failure',
+  title: 'Ascorbic acid with regular deferoxamine after its first month, within the amount for the age, not in cardiac failure',
   severity: 'review',
   drugs: ['deferoxamine'],
-  sourceIds: ['ascorbic-acid-deferoxamine'],
+  sourceIds: ['deferoxamine-label-interactions'],
   uncertain: false,
   evaluate: (context) =>
     context.activeCoMedications.flatMap(({ coMedication, ref }): FindingDraft[] => {
-      if (!isAscorbicAcid(coMedication.name) || coMedication.dose === undefined) return [];
-      const perDoseMg = coMedicationDoseMg(coMedication.dose, context.weightKg);
+      if (!isAscorbicAcid(coMedication.name)) return [];
       const deferoxamine = context.active.find((regimen) => regimen.period.drug === 'deferoxamine');
+      const dose = coMedication.dose;
       // With each infusion: as many doses a day as deferoxamine administrations (one overnight infusion → one dose).
       const dosesPerDay = coMedication.timing === 'with-each-deferoxamine-infusion' ? (deferoxamine?.period.administrationsPerDay ?? 1) : 1;
-      const mgPerDay = perDoseMg * dosesPerDay;
-      const mgPerKgPerDay = mgPerDay / context.weightKg;
-      const triggers: TriggerValue[] = [
-        { name: 'ascorbic acid per day', value: mgPerDay, unit: 'mg/d', date: coMedication.startDate, ref },
-        { name: 'ascorbic acid per kg per day', value: mgPerKgPerDay, unit: 'mg/kg/d', date: context.asOf, ref },
-      ];
-      const amount = `Ascorbic acid ${shown(mgPerDay, 0)} mg a day (${shown(mgPerKgPerDay, 1)} mg/kg/day at ${shown(context.weightKg, 1)} kg; ${ref})`;
+      const mgPerDay = dose === undefined ? null : coMedicationDoseMg(dose, context.weightKg) * dosesPerDay;
+      const triggers: TriggerValue[] = mgPerDay === null ? [] : [{ name: 'ascorbic acid per day', value: mgPerDay, unit: 'mg/d', date: coMedication.startDate, ref }];
+      const amount = mgPerDay === null ? `Ascorbic acid (no dose recorded; ${ref})` : `Ascorbic acid ${shown(mgPerDay, 0)} mg a day (${ref})`;
       if (!deferoxamine) {
-        return [{ severity: 'review', text: `${amount} with no deferoxamine running: the guidance pairs ascorbic acid with deferoxamine only; ${forPrescriberReview}.`, triggers }];
+        return [{ severity: 'review', text: `${amount} with no deferoxamine running: the deferoxamine label pairs vitamin C with regular deferoxamine only; ${forPrescriberReview}.`, triggers }];
       }
       const findings: FindingDraft[] = [];
       const runStart = continuousRunStart(context.caseFile.chelationPeriods, 'deferoxamine', context.asOf)!;
-      if (coMedication.startDate < runStart) {
-        findings.push({ severity: 'review', text: `${amount} recorded from ${coMedication.startDate}, before deferoxamine began on ${runStart}: the guidance adds it once deferoxamine is established; ${forPrescriberReview}.`, triggers });
+      const firstMonthEnds = addMonthsIso(runStart, 1);
+      if (coMedication.startDate < firstMonthEnds) {
+        findings.push({ severity: 'review', text: `${amount} recorded from ${coMedication.startDate}, within the first month of regular deferoxamine (from ${runStart}; the month ends ${firstMonthEnds}): the label starts vitamin C after an initial month of regular deferoxamine; ${forPrescriberReview}.`, triggers });
       }
-      const cap = context.threshold('ascorbic-acid-daily-cap');
-      const low = context.threshold('ascorbic-acid-usual-low');
-      const high = context.threshold('ascorbic-acid-usual-high');
-      const severeHeart = context.threshold('cardiac-t2star-severe');
-      const heart = context.resultsOf('cardiac-t2star').at(-1);
-      if (heart && heart.entry.measured.value < severeHeart.value) {
+      const failure = context.cardiacFailure;
+      if (failure?.status === 'present') {
         findings.push({
           severity: 'review',
-          text: `${amount} with cardiac T2* ${shown(heart.entry.measured.value, 1)} ms (${heart.entry.date}), severe heart iron: the guidance excludes ascorbic acid in cardiac failure; ${forPrescriberReview}.`,
-          triggers: [...triggers, { name: 'cardiac T2*', value: heart.entry.measured.value, unit: 'ms', date: heart.entry.date, ref: heart.ref }],
-          thresholds: [severeHeart],
-          extraSourceIds: ['kirk-2009'],
+          text: `${amount} with cardiac failure recorded (${failure.date}): the label excludes vitamin C supplements in cardiac failure; ${forPrescriberReview}.`,
+          triggers: [...triggers, { name: 'cardiac failure', value: 'present', unit: '', date: failure.date, ref: failure.ref }],
         });
+      } else {
+        const severeHeart = context.threshold('cardiac-t2star-severe');
+        const heart = context.resultsOf('cardiac-t2star').at(-1);
+        if (heart && heart.entry.measured.value < severeHeart.value) {
+          findings.push({
+            severity: 'review',
+            text: `${amount} with cardiac T2* ${shown(heart.entry.measured.value, 1)} ms (${heart.entry.date}), severe heart iron with a high risk of cardiac failure (Kirk 2009); the label excludes vitamin C in cardiac failure and asks for cardiac monitoring with it; ${forPrescriberReview}.`,
+            triggers: [...triggers, { name: 'cardiac T2*', value: heart.entry.measured.value, unit: 'ms', date: heart.entry.date, ref: heart.ref }],
+            thresholds: [severeHeart],
+            extraSourceIds: ['kirk-2009'],
+          });
+        }
       }
-      if (mgPerDay > cap.value) {
-        findings.push({ severity: 'review', text: `${amount}: above ${thresholdText(cap, 'published')} mg a day; ${forPrescriberReview}.`, triggers, thresholds: [cap] });
+      if (mgPerDay === null) return findings;
+      const { cap, band } = ascorbicAcidCap(context);
+      const adultCap = context.threshold('ascorbic-acid-daily-cap');
+      const failureText = failure === null ? '; cardiac failure is not recorded in the case file either way' : failure.status === 'absent' ? `; cardiac failure recorded as absent (${failure.date})` : '';
+      if (mgPerDay > adultCap.value) {
+        findings.push({ severity: 'review', text: `${amount} for ${band}: above ${thresholdText(adultCap, 'labelled')} mg a day, the most the label gives (adults; about 50 mg under 10 years and 100 mg in older children generally suffice, and larger amounts add no iron excretion); ${forPrescriberReview}.`, triggers, thresholds: [adultCap, ...(cap.id === adultCap.id ? [] : [cap])] });
         return findings;
       }
-      const usual = `the usual ${low.value}–${high.value} mg/kg/day`;
-      const position = mgPerKgPerDay > high.value ? `above ${usual}` : mgPerKgPerDay < low.value ? `below ${usual}` : `within ${usual}`;
-      findings.push({
-        severity: 'information',
-        text: `${amount} with deferoxamine: ${position}, and within ${thresholdText(cap, 'published')} mg a day; the guidance excludes cardiac failure, which the case file does not record.`,
-        triggers,
-        thresholds: [low, high, cap],
-      });
+      if (mgPerDay > cap.value) {
+        // The label's amounts for children are what "generally suffices", not a maximum: shown as information.
+        findings.push({ severity: 'information', text: `${amount} for ${band} with deferoxamine: within the ${adultCap.value} mg a day the label gives for adults, but above ${thresholdText(cap, 'labelled')} mg a day that the label says generally suffices at this age; larger amounts add no iron excretion${failureText}.`, triggers, thresholds: [cap, adultCap] });
+        return findings;
+      }
+      findings.push({ severity: 'information', text: `${amount} for ${band} with deferoxamine: within ${thresholdText(cap, 'labelled')} mg a day for the age${failureText}.`, triggers, thresholds: [cap] });
       return findings;
     }),
 });

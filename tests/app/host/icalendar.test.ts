@@ -71,7 +71,7 @@ describe('iCalendar export checked by ical.js', () => {
     const { events } = parsedEvents(monitoringIcs(demoCalendar('th-0093'), stamp));
     const hearing = events.find((it) => it.summary === 'TH-0093: hearing (audiometry) due')!;
     expect(hearing.startDate.toString()).toBe('2026-11-20');
-    expect(hearing.description).toContain('Deferoxamine mesylate prescribing information');
+    expect(hearing.description).toContain('Deferoxamine mesylate for injection, prescribing information (US)');
     expect(events.find((it) => it.summary === 'TH-0093: eye examination (ophthalmology) due')!.startDate.toString()).toBe('2026-11-20');
   });
 

@@ -28,11 +28,18 @@ describe('product catalogue', () => {
       'deferasirox-film-coated': [90, 180, 360],
       'deferasirox-dispersible': [125, 250, 500],
       'deferiprone-tablets': [500, 1000],
+      // The two US 1,000 mg tablets, one for twice- and one for three-times-a-day dosing (US label March 2025 §2.1).
+      'deferiprone-tablets-1000-twice-daily': [1000],
+      'deferiprone-tablets-1000-three-times-daily': [1000],
       'deferiprone-oral-solution': [100],
       'deferoxamine-vials': [500, 2000],
     });
     const halvable = defaultProductCatalogue.flatMap((it) => (it.kind === 'tablets' ? it.strengths.filter((s) => s.halvable).map((s) => `${it.id} ${s.strengthMg}`) : []));
-    expect(halvable).toEqual(['deferiprone-tablets 1000']);
+    expect(halvable).toEqual(['deferiprone-tablets 1000', 'deferiprone-tablets-1000-three-times-daily 1000']);
+    expect(defaultProductCatalogue.filter((it) => it.administrationsPerDay !== undefined).map((it) => [it.id, it.administrationsPerDay])).toEqual([
+      ['deferiprone-tablets-1000-twice-daily', 2],
+      ['deferiprone-tablets-1000-three-times-daily', 3],
+    ]);
   });
 
   it('accepts a local formulary and refuses an edited one with the field and value named', () => {

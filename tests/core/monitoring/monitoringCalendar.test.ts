@@ -69,7 +69,7 @@ describe('monitoring calendar, scenario TH-0093 (scenarios.md §3) on 2026-11-20
     for (const id of ['hearing', 'eyes'] as const) {
       expect(row(cal, id)).toMatchObject({ lastDate: null, dueDate: '2026-11-20', status: 'due-now', drugs: ['deferoxamine'] });
       // Only the drug that is running is cited: the deferoxamine label (references.md §4, confirmed).
-      expect(row(cal, id)!.sourceIds).toEqual(['monitoring-deferoxamine-label']);
+      expect(row(cal, id)!.sourceIds).toEqual(['deferoxamine-label']);
       expect(row(cal, id)!.why).toMatch(/^On deferoxamine: .* yearly \(label; confirmed\)\.$/);
     }
   });

@@ -95,8 +95,12 @@ describe('the scenario and demo cases (../shared/scenarios.md)', () => {
     expect(index!.triggers[0]!.value).toBeCloseTo((40 * 5) / 7 / 1250, 12);
     expect(index!.severity).toBe('information');
     expect(ofRule(findings, 'deferoxamine-growth-limit')[0]!.text).toContain('at the labelled threshold of 40');
-    expect(ofRule(findings, 'deferoxamine-hearing-eyes')).toHaveLength(1);
-    expect(ofRule(findings, 'ascorbic-acid-with-deferoxamine')[0]!.text).toContain('within the published threshold of 200 mg a day');
+    // Hearing and eyes: none on record in the demo, so each is due on the review date (US deferoxamine label §5).
+    expect(ofRule(findings, 'deferoxamine-hearing-eyes').map((it) => it.text.split(':')[1]!.trim().split(' due')[0])).toEqual(['hearing (audiology)', 'eye examination']);
+    // 100 mg a day at 7 years: within the 200 mg the label gives (scenarios.md §3), above the 50 mg it says generally suffices under 10.
+    const [ascorbic] = ofRule(findings, 'ascorbic-acid-with-deferoxamine');
+    expect(ascorbic!.severity).toBe('information');
+    expect(ascorbic!.text).toContain('within the 200 mg a day the label gives for adults, but above the labelled threshold of 50 mg a day');
   });
 
   it('TH-0417 (scenario 1): creatinine and ALT more than a month old, and intake above the expected removal', () => {

@@ -1,5 +1,5 @@
 import { afterAll, describe, expect, it } from 'vitest';
-import { addDaysIso } from '../../../core/dates';
+import { addDaysIso, addMonthsIso } from '../../../core/dates';
 import { expectDescriptive, reviewDate, findingsFor, ofRule, period, producedTexts, result, smallCase } from './safetyCases';
 
 afterAll(() => expectDescriptive(producedTexts));
@@ -64,16 +64,36 @@ describe('deferoxamine-therapeutic-index (Porter et al., Br J Haematol 1989;73:4
   });
 });
 
-describe('deferoxamine-hearing-eyes (deferoxamine label: yearly audiology and eye examinations)', () => {
-  it('on deferoxamine: information that the case holds no audiology or eye results; otherwise nothing', () => {
-    const [finding] = ofRule(findingsFor(withPeriods([period('deferoxamine', 40)])), 'deferoxamine-hearing-eyes');
-    expect(finding!.severity).toBe('information');
-    expect(finding!.text).toContain('no audiology or eye results');
+describe('deferoxamine-hearing-eyes (US deferoxamine label §5: hearing and eye examinations, yearly; read from the audiology and eye results)', () => {
+  const exam = (kind: string, daysBefore: number, outcome: string) => ({ id: `${kind}-${daysBefore}`, date: addDaysIso(reviewDate, -daysBefore), kind, outcome });
+  const withExams = (exams: Record<string, unknown>[]) => {
+    const json = withPeriods([period('deferoxamine', 40)]);
+    return { ...json, results: [...(json['results'] as unknown[]), ...exams] };
+  };
+
+  it('none on record: information for each, due on the review date; not on deferoxamine: nothing', () => {
+    const found = ofRule(findingsFor(withPeriods([period('deferoxamine', 40)])), 'deferoxamine-hearing-eyes');
+    expect(found.map((it) => it.severity)).toEqual(['information', 'information']);
+    expect(found[0]!.text).toContain('no hearing (audiology) done is on record');
     expect(ofRule(findingsFor(withPeriods([period('deferasirox', 14)])), 'deferoxamine-hearing-eyes')).toHaveLength(0);
+  });
+
+  it('normal results within the year: nothing; a year and a day ago: due again; "not done" does not count', () => {
+    expect(ofRule(findingsFor(withExams([exam('audiology', 300, 'normal'), exam('eye-examination', 300, 'normal')])), 'deferoxamine-hearing-eyes')).toHaveLength(0);
+    expect(ofRule(findingsFor(withExams([exam('audiology', 366, 'normal'), exam('eye-examination', 300, 'normal')])), 'deferoxamine-hearing-eyes').map((it) => it.text)).toEqual([
+      expect.stringContaining('hearing (audiology) due on 2026-11-19'),
+    ]);
+    expect(ofRule(findingsFor(withExams([exam('audiology', 10, 'not-done'), exam('eye-examination', 300, 'normal')])), 'deferoxamine-hearing-eyes')).toHaveLength(1);
+  });
+
+  it('a result changed from baseline is a review finding', () => {
+    const [finding] = ofRule(findingsFor(withExams([exam('audiology', 30, 'changed-from-baseline'), exam('eye-examination', 30, 'normal')])), 'deferoxamine-hearing-eyes');
+    expect(finding).toMatchObject({ severity: 'review' });
+    expect(finding!.text).toContain('recorded as changed from baseline');
   });
 });
 
-describe('ascorbic-acid-with-deferoxamine (guideline literature and label: 2–3 mg/kg/day, ≤ 200 mg/day, only with deferoxamine, not in cardiac failure)', () => {
+describe('ascorbic-acid-with-deferoxamine (older US deferoxamine label, vitamin C: after the first month of regular deferoxamine; about 50 mg/day under 10, 100 mg in older children, up to 200 mg in adults; not in cardiac failure)', () => {
   const ascorbic = (mg: number, startDaysBefore = 300) => ({
     id: `vc-${mg}`,
     name: 'ascorbic acid',
@@ -82,22 +102,52 @@ describe('ascorbic-acid-with-deferoxamine (guideline literature and label: 2–3
     startDate: addDaysIso(reviewDate, -startDaysBefore),
     endDate: null,
   });
+  const adult = (mg: number, startDaysBefore?: number, extra: Record<string, unknown> = {}) =>
+    ofRule(findingsFor({ ...smallCase({ chelationPeriods: [period('deferoxamine', 40)], coMedications: [ascorbic(mg, startDaysBefore)] }), ...extra }), 'ascorbic-acid-with-deferoxamine');
 
-  it('150 mg a day at 60 kg (2.5 mg/kg/day) with deferoxamine: information "within"', () => {
-    const [finding, ...rest] = ofRule(findingsFor(smallCase({ chelationPeriods: [period('deferoxamine', 40)], coMedications: [ascorbic(150)] })), 'ascorbic-acid-with-deferoxamine');
+  it('an adult: 200 mg a day is within the 200 mg cap (information); 201 is above (review)', () => {
+    const [within, ...rest] = adult(200);
     expect(rest).toHaveLength(0);
-    expect(finding!.severity).toBe('information');
-    expect(finding!.text).toContain('within the usual 2–3 mg/kg/day');
+    expect(within).toMatchObject({ severity: 'information' });
+    expect(within!.text).toContain('within the labelled threshold of 200 mg a day for the age');
+    expect(within!.text).toContain('cardiac failure is not recorded');
+    const [above] = adult(201);
+    expect(above).toMatchObject({ severity: 'review' });
+    expect(above!.text).toContain('above the labelled threshold of 200 mg a day, the most the label gives');
   });
 
-  it('250 mg a day is above the 200 mg cap: review', () => {
-    const found = ofRule(findingsFor(smallCase({ chelationPeriods: [period('deferoxamine', 40)], coMedications: [ascorbic(250)] })), 'ascorbic-acid-with-deferoxamine');
-    expect(found[0]!.severity).toBe('review');
-    expect(found[0]!.text).toContain('above the published threshold of 200 mg a day');
+  it('amounts by age (what the label says generally suffices): under 10 years 50 mg, older children 100 mg; above them information, above 200 mg review', () => {
+    const child = (ageYears: number, mg: number) =>
+      ofRule(findingsFor(smallCase({ ageYears, weightKg: ageYears < 10 ? 23 : 45, heightCm: ageYears < 10 ? 121 : 155, chelationPeriods: [period('deferoxamine', 30)], coMedications: [ascorbic(mg)] })), 'ascorbic-acid-with-deferoxamine');
+    expect(child(7, 50).map((it) => [it.severity, it.text.includes('within the labelled threshold of 50 mg a day for the age')])).toEqual([['information', true]]);
+    expect(child(7, 51).map((it) => [it.severity, it.text.includes('above the labelled threshold of 50 mg a day that the label says generally suffices')])).toEqual([['information', true]]);
+    expect(child(14, 100)[0]!.text).toContain('within the labelled threshold of 100 mg a day');
+    expect(child(14, 101)[0]!.text).toContain('above the labelled threshold of 100 mg a day');
+    expect(child(7, 201).map((it) => it.severity)).toEqual(['review']);
   });
 
-  it('without deferoxamine: review; with severe heart iron (T2* 8 ms): review', () => {
+  it('after the first month of regular deferoxamine: from the day the month ends nothing; a day earlier, review', () => {
+    // period() starts deferoxamine 400 days before the review date.
+    const runStart = addDaysIso(reviewDate, -400);
+    const monthEnds = addMonthsIso(runStart, 1);
+    const daysBefore = (date: string) => Math.round((Date.parse(`${reviewDate}T00:00:00Z`) - Date.parse(`${date}T00:00:00Z`)) / 86400000);
+    expect(adult(150, daysBefore(monthEnds)).map((it) => it.severity)).toEqual(['information']);
+    const early = adult(150, daysBefore(monthEnds) + 1);
+    expect(early.map((it) => it.severity)).toEqual(['review', 'information']);
+    expect(early[0]!.text).toContain('within the first month of regular deferoxamine');
+  });
+
+  it('without deferoxamine: review; with cardiac failure recorded: review; recorded absent: information only', () => {
     expect(ofRule(findingsFor(smallCase({ chelationPeriods: [period('deferasirox', 14)], coMedications: [ascorbic(150)] })), 'ascorbic-acid-with-deferoxamine')[0]!.text).toContain('no deferoxamine running');
+    const failure = (status: string) => ({ clinicalState: { cardiacFailure: [{ id: 'cf', date: addDaysIso(reviewDate, -30), status }] } });
+    expect(adult(150, undefined, failure('present')).map((it) => [it.severity, it.text.includes('excludes vitamin C supplements in cardiac failure')])).toEqual([
+      ['review', true],
+      ['information', false],
+    ]);
+    expect(adult(150, undefined, failure('absent')).map((it) => it.severity)).toEqual(['information']);
+  });
+
+  it('severe heart iron (T2* 8 ms) without cardiac failure recorded: review', () => {
     const heart = smallCase({
       chelationPeriods: [period('deferoxamine', 40)],
       coMedications: [ascorbic(150)],
