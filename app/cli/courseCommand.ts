@@ -16,7 +16,13 @@ import {
 import { citeShort, findSource } from '../../core/references';
 import { formatIssues, type Result } from '../../core/result';
 import { bloodLead, checkLabValue, serumCreatinine, urinaryCopper, type UrinaryCopperUnit } from '../../core/units/formulas';
+import { createHash } from 'node:crypto';
+import { buildCourseSheet } from '../../core/report/courseSheet';
+import { sheetPapers, type Sheet, type SheetPaper } from '../../core/report/sheet';
+import { writeFileAtomic } from '../host/atomicWrite';
 import { courseIcs } from '../host/courseCalendar';
+import type { SheetPdfOptions } from '../host/sheetPdf';
+import { toolVersion } from '../host/toolVersion';
 import { writeCalendarFile } from '../host/icalendar';
 import { parseArgs, splitOutput } from './args';
 import { formatNumber } from './format';
@@ -34,7 +40,7 @@ export const courseUsage = `Usage:
                           [--strength-mg N --strength-basis salt|base]
                           [--switch-from trientine-dihydrochloride|trientine-tetrahydrochloride --current-daily-mg N
                            [--current-strength-mg N --current-strength-basis salt|base]]
-                          [--json] [-o schedule.ics] [--force]
+                          [--json] [-o schedule.ics] [--sheet course.pdf [--paper a4|letter] [--prepared-by NAME]] [--force]
 Plans a heavy-metal course: dose per administration with its basis and caps, every administration dated and timed
 on the ward's clock (--time-zone, default this computer's zone), rest days, totals, monitoring due dates.
 For review by the prescriber and a toxicologist; follow local protocols.`;
@@ -44,6 +50,9 @@ export interface CourseHostIo {
   readonly now?: () => Date;
   readonly timeZone?: () => string;
   readonly writeCalendar?: (path: string, text: string, options: { readonly overwrite: boolean }) => Result<void>;
+  /** The sheet's PDF writer and an atomic file writer (the sheet command's services). */
+  readonly renderSheet?: (sheet: Sheet, options: SheetPdfOptions) => Promise<Buffer>;
+  readonly writeSheet?: (path: string, bytes: Uint8Array, options: { readonly overwrite: boolean }) => Promise<Result<void>>;
 }
 
 const switches = ['--json', '--list', '--force', '--encephalopathy', '--help'] as const;
@@ -79,6 +88,9 @@ const textOptions = [
   '--switch-from',
   '--current-strength-basis',
   '--output',
+  '--sheet',
+  '--paper',
+  '--prepared-by',
 ];
 const bases: readonly DoseBasis[] = ['weight-band', 'mg-per-kg', 'mg-per-m2', 'fixed-mg', 'daily-mg', 'daily-mg-per-kg-rounded'];
 const trientineProducts: readonly TrientineProductId[] = ['trientine-dihydrochloride', 'trientine-tetrahydrochloride'];
@@ -236,7 +248,7 @@ const flagOfPath: Readonly<Record<string, string>> = {
  * plan a heavy-metal course, print it (or --json), and with -o write it as an iCalendar file.
  * Exit 0 planned; 1 refused or bad input (the field, the value and the range named); 2 used wrongly.
  */
-export function courseCommand(argv: readonly string[], io: CliIo & CourseHostIo): number {
+export async function courseCommand(argv: readonly string[], io: CliIo & CourseHostIo): Promise<number> {
   const args = parseArgs(argv, switches);
   const problems: string[] = [];
   const { rest, output: shortOutput } = splitOutput(args.positionals, problems);
@@ -301,6 +313,14 @@ export function courseCommand(argv: readonly string[], io: CliIo & CourseHostIo)
     problems.push(...checkLabValue(urinaryCopper, numbers['urinaryCopper'], copperUnit).map((it) => `--urinary-copper: ${it.message}`));
   }
   const output = shortOutput ?? args.options['--output'];
+  const sheetPath = args.options['--sheet'];
+  const paper = args.options['--paper'] ?? 'a4';
+  const preparedBy = args.options['--prepared-by'];
+  if (sheetPath !== undefined && !/\.pdf$/i.test(sheetPath)) problems.push(`--sheet: "${sheetPath}" does not end in .pdf; the sheet is written as a PDF.`);
+  if (!(sheetPapers as readonly string[]).includes(paper)) problems.push(`--paper: "${paper}" is not a paper size of the sheet (a4 or letter).`);
+  if (preparedBy !== undefined && (preparedBy.trim() === '' || preparedBy.length > 100 || /[\u0000-\u001f]/.test(preparedBy))) {
+    problems.push(`--prepared-by: "${preparedBy}" is not a name of 1–100 printable characters.`);
+  }
   if (problems.length > 0) {
     io.err(problems.join('\n'));
     return exitCodes.invalidInput;
@@ -352,11 +372,30 @@ export function courseCommand(argv: readonly string[], io: CliIo & CourseHostIo)
       return exitCodes.invalidInput;
     }
   }
+  if (sheetPath !== undefined) {
+    const planJson = JSON.stringify(plan.value);
+    const sheet = buildCourseSheet({
+      plan: plan.value,
+      label: label ?? 'course',
+      toolVersion,
+      preparedBy: preparedBy?.trim() ?? null,
+      planSha256: createHash('sha256').update(planJson, 'utf8').digest('hex'),
+    });
+    // The PDF library loads only when a sheet is written, as for the review sheet.
+    const render = io.renderSheet ?? (await import('../host/sheetPdf')).writeSheetPdf;
+    const bytes = await render(sheet, { paper: paper as SheetPaper });
+    const written = await (io.writeSheet ?? ((path, data, options) => writeFileAtomic(path, data, options)))(sheetPath, bytes, { overwrite: args.switches.has('--force') });
+    if (!written.ok) {
+      io.err(formatIssues(written.issues));
+      return exitCodes.invalidInput;
+    }
+  }
   if (args.switches.has('--json')) {
-    io.out(JSON.stringify({ ...(label !== undefined ? { label } : {}), ...plan.value, ...(output !== undefined ? { written: output } : {}), caution: courseCaution }, null, 2));
+    io.out(JSON.stringify({ ...(label !== undefined ? { label } : {}), ...plan.value, ...(output !== undefined ? { written: output } : {}), ...(sheetPath !== undefined ? { sheet: sheetPath } : {}), caution: courseCaution }, null, 2));
   } else {
     io.out(formatCoursePlan(plan.value, label));
     if (output !== undefined) io.out(`Wrote ${plan.value.administrations.length + plan.value.monitoring.length} event(s) to ${output} (iCalendar).`);
+    if (sheetPath !== undefined) io.out(`Wrote the course sheet (${paper === 'a4' ? 'A4' : 'Letter'}) to ${sheetPath}.`);
   }
   return exitCodes.ok;
 }

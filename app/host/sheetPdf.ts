@@ -188,7 +188,7 @@ export function sheetDocument(sheet: Sheet, options: SheetPdfOptions): TDocument
         {
           columns: [
             { text: printable(`${header.title} — ${header.caseLabel}`), bold: true, fontSize: 10 },
-            { text: printable(`review date ${header.reviewDate} · prepared by ${header.preparedBy ?? 'not stated'}`), alignment: 'right', fontSize: 8 },
+            { text: printable(`${(header.dateLabel ?? 'Review date').toLowerCase()} ${header.reviewDate} · prepared by ${header.preparedBy ?? 'not stated'}`), alignment: 'right', fontSize: 8 },
           ],
         },
         {
@@ -201,7 +201,7 @@ export function sheetDocument(sheet: Sheet, options: SheetPdfOptions): TDocument
     footer: (currentPage, pageCount) => ({
       margin: [40, 14, 40, 0],
       columns: [
-        { text: `${header.toolVersion} · case file SHA-256 ${header.caseFileSha256}`, fontSize: 6.5, color: '#333333' },
+        { text: `${header.toolVersion} · ${header.hashLabel ?? 'case file SHA-256'} ${header.caseFileSha256}`, fontSize: 6.5, color: '#333333' },
         { text: `page ${currentPage} of ${pageCount}`, alignment: 'right', fontSize: 8, width: 70 },
       ],
     }),
@@ -211,10 +211,10 @@ export function sheetDocument(sheet: Sheet, options: SheetPdfOptions): TDocument
           widths: [90, '*'],
           body: [
             [{ text: 'Patient', bold: true }, printable(header.patientLine)],
-            [{ text: 'Review date', bold: true }, header.reviewDate],
+            [{ text: header.dateLabel ?? 'Review date', bold: true }, header.reviewDate],
             [{ text: 'Prepared by', bold: true }, printable(header.preparedBy ?? 'not stated')],
             [{ text: 'Tool', bold: true }, header.toolVersion],
-            [{ text: 'Case file SHA-256', bold: true }, { text: header.caseFileSha256, fontSize: 7.5 }],
+            [{ text: header.hashLabel ? header.hashLabel.charAt(0).toUpperCase() + header.hashLabel.slice(1) : 'Case file SHA-256', bold: true }, { text: header.caseFileSha256, fontSize: 7.5 }],
           ],
         },
         layout: 'noBorders',

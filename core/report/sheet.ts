@@ -26,6 +26,10 @@ export interface SheetHeader {
   readonly caseFileSha256: string;
   /** Patient line: label, age, weight, diagnosis group. */
   readonly patientLine: string;
+  /** How the date is named where it is printed; default 'Review date' (a course plan prints its first day). */
+  readonly dateLabel?: string;
+  /** What the hash is of, where it is printed; default 'case file SHA-256' (a course plan prints its own). */
+  readonly hashLabel?: string;
 }
 
 export interface SheetColumn {

@@ -248,3 +248,50 @@ describe('course --list and bad input', async () => {
     }
   });
 });
+
+describe('course --sheet: the planned course printed through the review sheet', () => {
+  // A PDF render under a shared, loaded CPU can take seconds; the ceiling is generous and is not a speed target.
+  const renderCeilingMs = 60_000;
+
+  it('builds the sheet as data: sections, the schedule row by row, the caution and a sign-off for prescriber and toxicologist', async () => {
+    let captured: import('../../../core/report/sheet').Sheet | undefined;
+    const { code, out } = await runWith(['course', ...pb2204, '--sheet', join(mkdtempSync(join(tmpdir(), 'cl-course-')), 'plan.pdf')], {
+      timeZone: () => 'Europe/London',
+      renderSheet: async (sheet) => {
+        captured = sheet;
+        return Buffer.from('%PDF-fake');
+      },
+    });
+    expect(code).toBe(0);
+    expect(out).toContain('Wrote the course sheet (A4)');
+    const sheet = captured!;
+    expect(sheet.sections.map((it) => it.id)).toEqual(['course', 'phases', 'schedule', 'monitoring', 'binding', 'notes']);
+    expect(sheet.header).toMatchObject({ caseLabel: 'PB-2204', reviewDate: '2026-10-24', dateLabel: 'First day', hashLabel: 'plan SHA-256' });
+    expect(sheet.header.caseFileSha256).toMatch(/^[0-9a-f]{64}$/);
+    const schedule = sheet.sections[2]!.blocks[0]!;
+    expect(schedule.kind === 'table' && schedule.rows.length).toBe(43);
+    expect(schedule.kind === 'table' && schedule.rows[42]).toEqual(['2026-11-12', '09:00', '+00:00', '1', 'succimer', '100.0 mg', 'every-12-h 28']);
+    expect(sheet.signOff.prescriberFields).toEqual(['Prescriber', 'Toxicologist', 'Pharmacist']);
+    const texts = sheet.sections.flatMap((section) => section.blocks.flatMap((block) => (block.kind === 'paragraph' ? [block.text] : block.kind === 'table' ? block.rows.flat() : block.kind === 'facts' ? block.rows.map((it) => it.value) : [])));
+    for (const text of texts) for (const pattern of forbiddenPhrasings) expect(pattern.test(text), `"${text}" matches ${pattern}`).toBe(false);
+  });
+
+  it('writes a real PDF whose text (pdftotext, poppler) carries the doses, the last dose and the caution on every page', async () => {
+    const path = join(mkdtempSync(join(tmpdir(), 'cl-course-')), 'PB-2205.pdf');
+    const { code } = await cli('course', ...pb2205, '--sheet', path);
+    expect(code).toBe(0);
+    const { execFileSync } = await import('node:child_process');
+    const text = execFileSync('pdftotext', ['-layout', path, '-'], { encoding: 'utf8' });
+    const pages = text.split('\f').filter((it) => it.trim() !== '');
+    expect(pages.length).toBeGreaterThan(1);
+    for (const page of pages) expect(page).toContain('Decision support only, not a prescription');
+    expect(text).toContain('Heavy-metal course plan — PB-2205');
+    expect(text).toContain('50.2 mg');
+    expect(text).toContain('167.5 mg');
+    expect(text).toMatch(/2026-10-29\s+19:00\s+\+00:00/); // the last edetate dose
+    expect(text).toContain('Toxicologist');
+    expect(text).not.toContain('[U+');
+    // An existing PDF is left alone without --force.
+    expect((await cli('course', ...pb2205, '--sheet', path)).code).toBe(1);
+  }, renderCeilingMs);
+});
