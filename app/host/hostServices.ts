@@ -2,11 +2,17 @@ import { mkdirSync, readdirSync, readFileSync, statSync } from 'node:fs';
 import { join } from 'node:path';
 import type { HostHandlers, HostValue } from '../../core/contract';
 import { parseCase } from '../../core/model/parseCase';
+import { computeCase } from '../../core/ledger/computeCase';
 import { monitoringCalendar } from '../../core/monitoring';
+import { buildSheet } from '../../core/report/buildSheet';
+import { evaluateFindings } from '../../core/safety';
 import { fail, issue, ok, type Result } from '../../core/result';
 import { readCaseFile } from './caseFiles';
 import { notAvailable } from './hostDispatch';
-import { monitoringIcs, writeCalendarFile } from './icalendar';
+import { monitoringIcs } from './icalendar';
+import { writeFileAtomic } from './atomicWrite';
+import { sha256OfFile } from './contentHash';
+import { toolVersion } from './toolVersion';
 import type { SettingsStore } from './settingsStore';
 import { insideFolder } from './workspaceFiles';
 
@@ -33,10 +39,11 @@ function revisionOf(path: string): string {
   return `${Math.round(stats.mtimeMs)}-${stats.size}`;
 }
 
+const noWorkspace = (): Result<never> => fail(issue('required', ['workspace'], 'No workspace folder is chosen yet; choose the folder that holds the case files.'));
+
 function withWorkspace<T>(environment: HostEnvironment, run: (folder: string) => Result<T>): Result<T> {
   const folder = environment.workspace.get();
-  if (folder === null) return fail(issue('required', ['workspace'], 'No workspace folder is chosen yet; choose the folder that holds the case files.'));
-  return run(folder);
+  return folder === null ? noWorkspace() : run(folder);
 }
 
 function summarise(folder: string, caseId: string): Summary {
@@ -47,28 +54,29 @@ function summarise(folder: string, caseId: string): Summary {
   return { caseId, patientLabel: read.value.patient.label, archived: false, modifiedAt, issues: [...(read.warnings ?? [])] };
 }
 
-/** A free name in the exports folder: `stem.ext`, else `stem-2.ext`, `stem-3.ext`… */
-function writeFresh(folder: string, stem: string, extension: string, text: string): Result<string> {
+/** Write into the exports folder under a free name: `stem.ext`, else `stem-2.ext`, `stem-3.ext`… (atomically, never over an earlier export). */
+async function writeFresh(folder: string, stem: string, extension: string, data: string | Uint8Array): Promise<Result<string>> {
   try {
     mkdirSync(folder, { recursive: true });
   } catch (error) {
-    return fail(issue('invalid_file', ['output'], `Cannot make the exports folder ${folder}: ${(error as Error).message}.`));
+    return fail(issue('write_failed', ['output'], `Cannot make the exports folder ${folder}: ${(error as Error).message}.`));
   }
   for (let attempt = 1; attempt < 100; attempt += 1) {
     const path = join(folder, `${stem}${attempt === 1 ? '' : `-${attempt}`}.${extension}`);
-    const written = writeCalendarFile(path, text, { overwrite: false });
+    const written = await writeFileAtomic(path, data, { overwrite: false });
     if (written.ok) return ok(path);
-    if (!written.issues[0]?.message.includes('already exists')) return fail(...written.issues);
+    if (written.issues[0]?.code !== 'already_exists') return fail(...written.issues);
   }
-  return fail(issue('invalid_file', ['output'], `The exports folder ${folder} already holds 99 files named ${stem}; nothing was written.`));
+  return fail(issue('already_exists', ['output'], `The exports folder ${folder} already holds 99 files named ${stem}; nothing was written.`));
 }
 
 /**
  * The host's services behind the contract, wired to what exists: case files
  * are listed and opened with app/host/caseFiles.ts, the monitoring calendar is
- * written with app/host/icalendar.ts, settings with settingsStore.ts. Calls
- * whose service has not landed yet (the case store's writes, imports, the
- * sheet's PDF writer) answer 'not_available' in words, never a missing call.
+ * written with app/host/icalendar.ts, the review sheet with app/host/sheetPdf.ts
+ * (both into the workspace's exports folder, never over an earlier export),
+ * settings with settingsStore.ts. Calls whose service has not landed yet (the
+ * case store's writes, imports) answer 'not_available' in words, never a missing call.
  */
 export function createHostServices(environment: HostEnvironment): HostHandlers {
   return {
@@ -118,18 +126,38 @@ export function createHostServices(environment: HostEnvironment): HostHandlers {
     recoverCase: () => notAvailable('Recovering a case from its journal'),
     importDryRun: () => notAvailable('Importing records'),
     importCommit: () => notAvailable('Importing records'),
-    exportSheetPdf: () => notAvailable('Exporting the review sheet as PDF'),
-    exportCalendar: ({ caseId, asOfDate }) =>
-      withWorkspace(environment, (folder) => {
-        const path = insideFolder(folder, caseId);
-        if (!path.ok) return path;
-        const loaded = readCaseFile(path.value);
-        if (!loaded.ok) return loaded;
-        const calendar = monitoringCalendar(loaded.value, asOfDate);
-        if (!calendar.ok) return calendar;
-        const written = writeFresh(join(folder, 'exports'), `${caseId.replace(/\.json$/, '')}-monitoring-${asOfDate}`, 'ics', monitoringIcs(calendar.value, environment.now()));
-        return written.ok ? ok({ path: written.value }) : written;
-      }),
+    exportSheetPdf: async ({ caseId, asOfDate, paper }) => {
+      const folder = environment.workspace.get();
+      if (folder === null) return noWorkspace();
+      const path = insideFolder(folder, caseId);
+      if (!path.ok) return path;
+      const loaded = readCaseFile(path.value);
+      if (!loaded.ok) return loaded;
+      const computed = computeCase(loaded.value, asOfDate);
+      if (!computed.ok) return computed;
+      // The local protocol's thresholds recorded in the case apply to every review of it (as on the command line).
+      const findings = evaluateFindings(loaded.value, computed.value, asOfDate, loaded.value.thresholdOverrides);
+      if (!findings.ok) return findings;
+      const hash = sha256OfFile(path.value);
+      if (!hash.ok) return hash;
+      const sheet = buildSheet({ caseFile: loaded.value, results: computed.value, findings: findings.value, caseFileSha256: hash.value, toolVersion, preparedBy: null });
+      // The PDF library loads only when a sheet is written (app/host/sheetPdf.ts owns it).
+      const bytes = await (await import('./sheetPdf')).writeSheetPdf(sheet, { paper });
+      const written = await writeFresh(join(folder, 'exports'), `${caseId.replace(/\.json$/, '')}-sheet-${asOfDate}`, 'pdf', bytes);
+      return written.ok ? ok({ path: written.value }) : written;
+    },
+    exportCalendar: async ({ caseId, asOfDate }) => {
+      const folder = environment.workspace.get();
+      if (folder === null) return noWorkspace();
+      const path = insideFolder(folder, caseId);
+      if (!path.ok) return path;
+      const loaded = readCaseFile(path.value);
+      if (!loaded.ok) return loaded;
+      const calendar = monitoringCalendar(loaded.value, asOfDate);
+      if (!calendar.ok) return calendar;
+      const written = await writeFresh(join(folder, 'exports'), `${caseId.replace(/\.json$/, '')}-monitoring-${asOfDate}`, 'ics', monitoringIcs(calendar.value, environment.now()));
+      return written.ok ? ok({ path: written.value }) : written;
+    },
     readSettings: () => environment.settings.read(),
     writeSettings: (settings) => environment.settings.write(settings),
   };

@@ -1,3 +1,4 @@
+import { execFileSync } from 'node:child_process';
 import { existsSync, readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import ICAL from 'ical.js';
@@ -59,9 +60,26 @@ describe('host services over a workspace of the demo cases', () => {
   });
 
   it('answers in words for a service that has not landed, naming what is missing', async () => {
-    const answer = await createHostDispatch(createHostServices(demoEnvironment()))('exportSheetPdf', { caseId: 'th-0417.json', asOfDate: '2026-11-20', paper: 'a4' });
-    expect(answer).toEqual({ ok: false, issues: [expect.objectContaining({ code: 'not_available', message: 'Exporting the review sheet as PDF is not available in this version yet.' })] });
+    const answer = await createHostDispatch(createHostServices(demoEnvironment()))('renameCase', { caseId: 'th-0417.json', newCaseId: 'x.json' });
+    expect(answer).toEqual({ ok: false, issues: [expect.objectContaining({ code: 'not_available', message: 'Renaming a case is not available in this version yet.' })] });
   });
+
+  it('exports the review sheet as a PDF that poppler reads, with the caution on every page, never over an earlier one', async () => {
+    const environment = demoEnvironment();
+    const dispatch = createHostDispatch(createHostServices(environment));
+    const first = await dispatch('exportSheetPdf', { caseId: 'th-0417.json', asOfDate: '2026-11-20', paper: 'a4' });
+    if (!first.ok) throw new Error(first.issues.map((it) => it.message).join('; '));
+    const path = (first.value as { path: string }).path;
+    expect(path).toBe(join(environment.folder, 'exports', 'th-0417-sheet-2026-11-20.pdf'));
+    const second = await dispatch('exportSheetPdf', { caseId: 'th-0417.json', asOfDate: '2026-11-20', paper: 'letter' });
+    expect(second.ok && (second.value as { path: string }).path).toBe(join(environment.folder, 'exports', 'th-0417-sheet-2026-11-20-2.pdf'));
+    // poppler-utils (pdfinfo, pdftotext) is the outside reader of the PDF.
+    const pages = Number(/Pages:\s+(\d+)/.exec(execFileSync('pdfinfo', [path], { encoding: 'utf8' }))![1]);
+    const text = execFileSync('pdftotext', ['-layout', path, '-'], { encoding: 'utf8' });
+    expect(pages).toBeGreaterThan(0);
+    expect(text.split('\f').filter((page) => page.trim() !== '').every((page) => /for review by the prescriber/i.test(page.replace(/\s+/g, ' ')))).toBe(true);
+    expect(text).toContain('TH-0417');
+  }, 60_000);
 
   it('refuses to choose a folder where there is no dialog, and uses the dialog where there is', async () => {
     const preview = await createHostDispatch(createHostServices(demoEnvironment()))('chooseWorkspace', {});
