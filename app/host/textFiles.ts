@@ -1,5 +1,6 @@
 import { readFileSync } from 'node:fs';
 import { fail, issue, ok, type Result } from '../../core/result';
+import { describeFsError } from './atomicWrite';
 
 /** The UTF-8 byte-order mark some editors write at the start of a file. */
 const byteOrderMark = [0xef, 0xbb, 0xbf];
@@ -42,9 +43,7 @@ export function readTextFile(path: string, what: string, field: readonly (string
   try {
     bytes = readFileSync(path);
   } catch (error) {
-    const code = (error as NodeJS.ErrnoException).code;
-    const reason = code === 'ENOENT' ? 'no such file' : code === 'EISDIR' ? 'it is a folder, not a file' : (error as Error).message;
-    return fail(issue('invalid_file', field, `Cannot read ${what} ${path}: ${reason}.`));
+    return fail(issue('invalid_file', field, `Cannot read ${what} ${path}: ${describeFsError(error)}.`));
   }
   const body = byteOrderMark.every((byte, index) => bytes[index] === byte) ? bytes.subarray(byteOrderMark.length) : bytes;
   try {

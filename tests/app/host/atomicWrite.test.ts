@@ -2,12 +2,8 @@ import { mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'n
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
-import {
-  isTemporaryFileName,
-  nodeAtomicWriteFs,
-  writeFileAtomic,
-  type AtomicWriteFs,
-} from '../../../app/host/atomicWrite';
+import { isTemporaryFileName, writeFileAtomic } from '../../../app/host/atomicWrite';
+import { faultyFs as faulty, type FaultStep } from './faultyFs';
 
 // The outside reference here is the real file system (read back with Node's
 // fs) and POSIX rename(2) (IEEE Std 1003.1-2017): "If the link named by the
@@ -15,54 +11,13 @@ import {
 // for other processes. The faults are injected because these tests run as
 // root, which a chmod-ed folder does not stop.
 
+const faultyFs = (failAt: FaultStep, code: string, steps: string[] = []) => faulty(failAt, code, { steps, isFolder: (path) => path === folder });
+
 let folder: string;
 beforeEach(() => {
   folder = mkdtempSync(join(tmpdir(), 'atomic-write-'));
 });
 afterEach(() => rmSync(folder, { recursive: true, force: true }));
-
-const fault = (code: string) => Object.assign(new Error(`simulated ${code}`), { code });
-
-/** Node's fs with one step failing, and a record of the steps in order. */
-function faultyFs(failAt: 'open' | 'writeFile' | 'sync' | 'rename' | 'folderSync' | null, code: string, steps: string[] = []): AtomicWriteFs {
-  return {
-    open: async (path, flags, mode) => {
-      const isFolder = path === folder;
-      steps.push(isFolder ? 'open folder' : `open ${flags}`);
-      if (failAt === 'open' && !isFolder) throw fault(code);
-      const handle = await nodeAtomicWriteFs.open(path, flags, mode);
-      return {
-        writeFile: async (data) => {
-          steps.push('write');
-          if (failAt === 'writeFile') {
-            await handle.writeFile(typeof data === 'string' ? data.slice(0, 5) : data.slice(0, 5)); // a part reached the disk
-            throw fault(code);
-          }
-          await handle.writeFile(data);
-        },
-        sync: async () => {
-          steps.push(isFolder ? 'sync folder' : 'sync');
-          if ((failAt === 'sync' && !isFolder) || (failAt === 'folderSync' && isFolder)) throw fault(code);
-          await handle.sync();
-        },
-        close: async () => {
-          steps.push(isFolder ? 'close folder' : 'close');
-          await handle.close();
-        },
-      };
-    },
-    rename: async (from, to) => {
-      steps.push('rename');
-      if (failAt === 'rename') throw fault(code);
-      await nodeAtomicWriteFs.rename(from, to);
-    },
-    unlink: async (path) => {
-      steps.push('unlink');
-      await nodeAtomicWriteFs.unlink(path);
-    },
-    stat: nodeAtomicWriteFs.stat,
-  };
-}
 
 describe('writeFileAtomic', () => {
   it('writes a new file and replaces an existing one, leaving no temporary file', async () => {
