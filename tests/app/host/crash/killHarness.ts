@@ -99,7 +99,7 @@ export async function runKillTest(options: KillTestOptions): Promise<KillTestRep
     logLevel: 'warning',
   });
   const random = seeded(options.seed);
-  const lanes = options.lanes ?? 4;
+  const lanes = options.lanes ?? 2;
   const maxDelayMs = options.maxDelayMs ?? 40;
   const counts = { newState: 0, oldState: 0, other: 0, tornJournalLines: 0, temporaryFilesLeft: 0, savesCompleted: 0 };
   const failures: string[] = [];

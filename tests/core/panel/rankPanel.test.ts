@@ -1,0 +1,85 @@
+import { describe, expect, it } from 'vitest';
+import { parseCase } from '../../../core/model/parseCase';
+import { panelTiers, rankPanel, type PanelEntry } from '../../../core/panel';
+import { fail, issue } from '../../../core/result';
+import { deepFreeze, readDemo } from '../model/caseFixtures';
+import { period, result, reviewDate, smallCase } from '../safety/safetyCases';
+
+// The tiers follow the order the issue sets (urgent findings, overdue
+// monitoring, positive projected balance); the findings and due dates behind
+// them are checked against their published sources in tests/core/safety and
+// tests/core/monitoring. Here the scenarios are chosen so that each trigger is
+// plain from a published threshold:
+// - urgent: deferasirox with eGFR below 40 mL/min/1.73 m² (US label, boxed
+//   warning; references.md §9): creatinine 3.0 mg/dL in a 30-year-old man gives
+//   CKD-EPI 2021 eGFR about 28;
+// - overdue: deferasirox with the last creatinine 75 days before the review
+//   (the label asks for at least monthly creatinine);
+// - positive balance: a transfusion every 21 days and no chelation, so iron
+//   can only accumulate.
+const entry = (fileName: string, json: unknown): PanelEntry => ({ fileName, loaded: parseCase(json) });
+const upToDate = (creatinineDaysBefore: number, creatinineMgPerDl: number) => [
+  result('liver-iron', 200, 5, 'mg/g{dry}', { method: 'biopsy' }),
+  result('cardiac-t2star', 200, 30, 'ms', { fieldStrengthT: 1.5 }),
+  result('ferritin', 60, 1500, 'ug/L'),
+  result('ferritin', 10, 1500, 'ug/L'),
+  result('creatinine', creatinineDaysBefore, creatinineMgPerDl, 'mg/dL'),
+  result('alt', 10, 25, 'U/L'),
+  result('neutrophils', 3, 3.2, '10*9/L'),
+];
+const withLabel = (json: Record<string, unknown>, label: string) => ({
+  ...json,
+  patient: { ...(json['patient'] as object), label },
+  review: { reviewDate, notes: [], signOff: null },
+});
+
+const urgent = withLabel(smallCase({ results: upToDate(5, 3.0), chelationPeriods: [period('deferasirox', 20)] }), 'PN-URG');
+const overdue = withLabel(smallCase({ results: upToDate(75, 0.8), chelationPeriods: [period('deferasirox', 20)] }), 'PN-DUE');
+const accumulating = withLabel(smallCase({ transfusionEveryDays: 21 }), 'PN-ACC');
+
+describe('rankPanel', () => {
+  const entries = deepFreeze([
+    entry('c-accumulating.json', accumulating),
+    { fileName: 'b-broken.json', loaded: fail(issue('invalid_file', [], 'Case file b-broken.json is not valid JSON.')) },
+    entry('a-overdue.json', overdue),
+    entry('d-urgent.json', urgent),
+  ]);
+  const panel = rankPanel(entries, { today: '2030-01-01' });
+
+  it('ranks urgent findings first, then overdue monitoring, then a positive projected balance', () => {
+    expect(panel.rows.map((row) => [row.label, row.tier])).toEqual([
+      ['PN-URG', 'urgent-finding'],
+      ['PN-DUE', 'overdue-monitoring'],
+      ['PN-ACC', 'positive-balance'],
+    ]);
+    expect(panel.rows[0]!.mostSevereFinding?.severity).toBe('urgent');
+    expect(panel.rows[0]!.mostSevereFinding?.ruleId).toBe('deferasirox-egfr');
+    expect(panel.rows[1]!.nextMonitoring?.what.toLowerCase()).toContain('creatinine');
+    expect(panel.rows[1]!.nextMonitoring!.daysOverdue).toBeGreaterThan(0);
+    expect(panel.rows[2]!.projectedNetMgPerKgPerDay).toBeGreaterThan(0);
+    // By hand: the trailing year (2025-11-21 to 2026-11-20) holds 16 of the 21-day transfusions
+    // (37, 58, …, 352 days before the review), each 560 mL × 0.60 × 1.08 mg iron per mL of red cells
+    // (volume × haematocrit × iron per mL: the transfusional-iron relation, references.md §1):
+    // 16 × 362.88 mg / 365 days / 60 kg = 0.2651 mg/kg/day; 0.5 % allows for rounding in the account.
+    expect(panel.rows[2]!.trailingIntakeMgPerKgPerDay).toBeCloseTo((16 * 560 * 0.6 * 1.08) / 365 / 60, 3);
+  });
+
+  it('lists a case that does not open with its reason, never skipping it', () => {
+    expect(panel.notReviewed).toEqual([{ fileName: 'b-broken.json', label: null, issues: [expect.objectContaining({ code: 'invalid_file' })] }]);
+    expect(panel.rows.length + panel.notReviewed.length).toBe(entries.length);
+  });
+
+  it("reviews each case on its own review date unless one date is given", () => {
+    expect(panel.rows.every((row) => row.asOf === reviewDate)).toBe(true);
+    const later = rankPanel(entries, { asOf: '2026-12-31', today: '2030-01-01' });
+    expect(later.rows.every((row) => row.asOf === '2026-12-31')).toBe(true);
+  });
+
+  it('gives the same order whatever order the cases come in, and keeps tiers in order', () => {
+    const reversed = rankPanel([...entries].reverse(), { today: '2030-01-01' });
+    expect(reversed).toEqual(panel);
+    const demos = rankPanel([entry('th-0417.json', readDemo('th-0417')), entry('th-0093.json', readDemo('th-0093')), ...entries], { today: '2030-01-01' });
+    const tierIndexes = demos.rows.map((row) => panelTiers.indexOf(row.tier));
+    expect(tierIndexes).toEqual([...tierIndexes].sort((a, b) => a - b));
+  });
+});
