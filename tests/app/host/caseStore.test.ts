@@ -7,6 +7,7 @@ import { openCaseStore, serializeCase, type CaseStore, type OpenedCase } from '.
 import { currentCaseFileVersion, type Case } from '../../../core/model/caseFile';
 import type { Result } from '../../../core/result';
 import { deepFreeze, readDemo, withChange } from '../../core/model/caseFixtures';
+import { stateAt } from './crash/killStates';
 import { faultyFs } from './faultyFs';
 
 // Outside references: the real file system (read back with Node's fs), SHA-256
@@ -120,6 +121,21 @@ describe('case store: two windows on one file', () => {
 });
 
 describe('case store: versions', () => {
+  it('migrates an older version in memory and writes the current version only on save', async () => {
+    // A version 1 file (the small kill-test case is written in version 1).
+    const older = `${JSON.stringify(stateAt(1), null, 2)}\n`;
+    writeFileSync(join(folder, 'old.json'), older);
+    const opened = value(await store.open('old.json'));
+    expect(opened.migratedFromVersion).toBe(1);
+    expect(opened.caseFile.version).toBe(currentCaseFileVersion);
+    expect(onDisk('old.json')).toBe(older);
+    const listed = value(await store.list())[0]!;
+    expect(listed.status === 'ok' && listed.migratedFromVersion).toBe(1);
+    expect(onDisk('old.json')).toBe(older);
+    value(await store.save('old.json', opened.caseFile, { expected: opened.revision, change: 'saved in the current version' }));
+    expect(JSON.parse(onDisk('old.json')).version).toBe(currentCaseFileVersion);
+  });
+
   it('refuses a newer version on open and never overwrites it', async () => {
     const newer = JSON.stringify({ ...demo(), version: currentCaseFileVersion + 1 });
     writeFileSync(join(folder, 'new.json'), newer);
