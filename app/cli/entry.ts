@@ -2,6 +2,7 @@ import { writeCalendarFile } from '../host/icalendar';
 import { readCaseFile } from '../host/caseFiles';
 import { homedir } from 'node:os';
 import { join } from 'node:path';
+import { openCaseStore } from '../host/caseStore';
 import { readTextFile } from '../host/textFiles';
 import { userConfigFolder } from '../host/userFolders';
 import { runPreview } from '../preview/runPreview';
@@ -27,6 +28,7 @@ const io: CliHostIo = {
     const { name, version } = require(join(appFolder, 'package.json')) as { name: string; version: string };
     return runPreview({ appName: name, appVersion: version, appFolder, configFolder: userConfigFolder(process.env, process.platform, homedir()), ...options });
   },
+  openStore: (folder) => openCaseStore(folder),
 };
 
 void runAtBoundary(process.argv.slice(2), io, (argv) => runCli(argv, io)).then((code) => {

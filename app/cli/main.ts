@@ -8,6 +8,8 @@ import { courseCommand, type CourseHostIo } from './courseCommand';
 import type { CaseIo } from './caseReview';
 import { explainCommand } from './explainCommand';
 import { doseCommand } from './doseCommand';
+import { addCommand, newCommand, type StoreIo } from './editCommands';
+import { panelCommand } from './panelCommand';
 import { findingsCommand } from './findingsCommand';
 import { previewCommand, type PreviewHostIo } from './previewCommand';
 import { sheetCommand, type SheetHostIo } from './sheetCommand';
@@ -40,13 +42,19 @@ Commands:
                                             a heavy-metal course planned to the dose, the day and the salt (course --help)
   sheet <case.json> -o review.pdf [--paper a4|letter] [--as-of YYYY-MM-DD] [--prepared-by NAME] [--force]
                                             the review sheet as a PDF, with the caution on every page
+  new <case.json> --label CODE --birth-date D --sex-at-birth S --diagnosis-group G --weight-kg N
+                                            a new case file, with its journal (new --help for all options)
+  add transfusion|result|period|comedication <case.json> --date D ...
+                                            one entry, checked like check, saved atomically (add --help)
+  panel <folder> [--as-of YYYY-MM-DD] [--json]
+                                            every case in a folder reviewed and ranked by urgency
 
 ${calcUsage}
 
 ${decisionSupportCaution}`;
 
 /** Everything the host hands the command line: streams, the case reader, the clock, file reading and writing. */
-export type CliHostIo = CaseIo & CalendarHostIo & TextIo & PreviewHostIo & CourseHostIo & Partial<SheetHostIo>;
+export type CliHostIo = CaseIo & CalendarHostIo & TextIo & PreviewHostIo & CourseHostIo & Partial<SheetHostIo> & StoreIo;
 
 /** A subcommand: parsed arguments and the host io in, the exit code out (it may be async). */
 export type Command = (args: ParsedArgs, io: CliHostIo) => number | Promise<number>;
@@ -62,6 +70,9 @@ const commands: Readonly<Record<string, Command>> = {
   explain: explainCommand,
   preview: previewCommand,
   sheet: sheetCommand,
+  new: newCommand,
+  add: addCommand,
+  panel: panelCommand,
 };
 
 /**

@@ -3,6 +3,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { runCli, type CliHostIo } from '../../../app/cli/main';
 import { readCaseFile } from '../../../app/host/caseFiles';
+import { openCaseStore } from '../../../app/host/caseStore';
 import { writeCalendarFile } from '../../../app/host/icalendar';
 import { readTextFile } from '../../../app/host/textFiles';
 
@@ -32,6 +33,7 @@ export async function runWith(argv: readonly string[], overrides: Partial<CliHos
     today: () => testToday,
     now: () => testNow,
     writeCalendar: writeCalendarFile,
+    openStore: (folder) => openCaseStore(folder, { now: () => testNow }),
     ...overrides,
   };
   const code = await runCli(argv, io);
