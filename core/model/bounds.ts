@@ -105,7 +105,18 @@ function numberSchema(expected: string) {
         ? `is missing; expected a number, plausible ${expected}.`
         : `${JSON.stringify(problem.input) ?? String(problem.input)} is not a number; expected ${expected}.`,
     params: { code: 'not_a_number' } satisfies CustomIssueParams,
-  });
+  }).meta({ type: 'number', description: `a number; plausible ${expected}` });
+}
+
+/** What the format's documentation and JSON Schema say of a bounded number (docs/case-file.md is generated from it). */
+function boundsMeta(bounds: Bounds) {
+  const { min, max, minExclusive } = bounds.possible;
+  return {
+    type: bounds.integer ? 'integer' : 'number',
+    ...(minExclusive ? { exclusiveMinimum: min } : { minimum: min }),
+    maximum: max,
+    description: `${bounds.fraction ? 'a fraction of 1' : bounds.integer ? 'a whole number' : 'a number'}; plausible ${plausibleRangeText(bounds)} (refused: ${possibleRangeText(bounds)})`,
+  };
 }
 
 function addFinding(ctx: z.RefinementCtx, finding: BoundsFinding | undefined, path: readonly (string | number)[] = []): void {
@@ -121,7 +132,9 @@ function addFinding(ctx: z.RefinementCtx, finding: BoundsFinding | undefined, pa
  * @example boundedNumber(daysPerWeekBounds, 'refuse').safeParse(8).success === false
  */
 export function boundedNumber(bounds: Bounds, level: CheckLevel) {
-  return numberSchema(plausibleRangeText(bounds)).superRefine((value, ctx) => addFinding(ctx, checkBounds(value, bounds, level)));
+  return numberSchema(plausibleRangeText(bounds))
+    .superRefine((value, ctx) => addFinding(ctx, checkBounds(value, bounds, level)))
+    .meta(boundsMeta(bounds));
 }
 
 /**
@@ -180,5 +193,6 @@ export function measuredQuantity<const Unit extends string>(boundsByUnit: Readon
         finding && other ? { ...finding, message: `${finding.message.replace(/; check the value and its unit\.$/u, '')}; it would be plausible in ${displayUnit(other)} (${plausibleRangeText(boundsByUnit[other])}): check the unit.` } : finding,
         ['value'],
       );
-    });
+    })
+    .meta({ description: `a quantity { value, unit } in ${units.join(' or ')} (UCUM codes); plausible ${expected}` });
 }

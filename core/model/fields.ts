@@ -8,7 +8,7 @@ export const isoDateSchema = z.custom<IsoDate>(isCaseDate, {
   error: (problem) =>
     problem.input === undefined ? 'is missing; expected a date YYYY-MM-DD.' : describeCaseDateProblem(problem.input),
   params: { code: 'invalid_date' } satisfies CustomIssueParams,
-});
+}).meta({ type: 'string', format: 'date', description: 'a calendar date YYYY-MM-DD' });
 
 /** Identifier of an entry, unique within the case (the journal and the screens refer to entries by it). */
 export const entryIdSchema = z.string().min(1).max(64);
