@@ -10,13 +10,14 @@ import { explainCommand } from './explainCommand';
 import { doseCommand } from './doseCommand';
 import { addCommand, newCommand, type StoreIo } from './editCommands';
 import { panelCommand } from './panelCommand';
+import { importCommand } from './importCommand';
 import { findingsCommand } from './findingsCommand';
 import { previewCommand, type PreviewHostIo } from './previewCommand';
 import { sheetCommand, type SheetHostIo } from './sheetCommand';
 import { decisionSupportCaution } from './format';
 import { exitCodes, type TextIo } from './io';
 
-const switches = ['--json', '--list', '--help', '--force'] as const;
+const switches = ['--json', '--list', '--help', '--force', '--dry-run'] as const;
 
 export const usage = `chelation-ledger — decision support for chelation therapy reviews.
 
@@ -46,6 +47,8 @@ Commands:
                                             a new case file, with its journal (new --help for all options)
   add transfusion|result|period|comedication <case.json> --date D ...
                                             one entry, checked like check, saved atomically (add --help)
+  import <file.csv|bundle.json> --into <case.json> [--dry-run]
+                                            transfusions and results from CSV or a FHIR R4 Bundle (import --help)
   panel <folder> [--as-of YYYY-MM-DD] [--json]
                                             every case in a folder reviewed and ranked by urgency
 
@@ -73,6 +76,7 @@ const commands: Readonly<Record<string, Command>> = {
   new: newCommand,
   add: addCommand,
   panel: panelCommand,
+  import: importCommand,
 };
 
 /**

@@ -1,0 +1,197 @@
+import { copyFileSync, readFileSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { readCsvImport } from '../../../app/host/imports/csvImport';
+import { readFhirImport } from '../../../app/host/imports/fhirImport';
+import { readImportDate } from '../../../app/host/imports/importDates';
+import { cli, demoCase, tempDir } from '../cli/harness';
+
+// Outside references:
+// - FHIR R4 specification examples, rebuilt here from their published JSON
+//   (hl7.org/fhir/R4): Observation/example "Simple Weight Example" (LOINC
+//   29463-7, 185 [lb_av], 2016-03-28), Observation/f001 (glucose, LOINC 15074-8,
+//   6.3 mmol/L: a code this tool does not read), Patient/example (birth date
+//   1974-12-25, gender male; the name is there to show it is never read), and
+//   the US Core serum total bilirubin example (LOINC 1975-2, 8.6 mg/dL, 2005-07-07).
+// - The international avoirdupois pound, 0.45359237 kg exactly (UCUM [lb_av]
+//   = 7000 [gr], [gr] = 64.79891 mg): 185 lb = 83.91458845 kg.
+// - ucum-lhc for the other conversions; papaparse's quoting (RFC 4180).
+const weightExample = {
+  resourceType: 'Observation',
+  id: 'example',
+  status: 'final',
+  category: [{ coding: [{ system: 'http://terminology.hl7.org/CodeSystem/observation-category', code: 'vital-signs', display: 'Vital Signs' }] }],
+  code: {
+    coding: [
+      { system: 'http://loinc.org', code: '29463-7', display: 'Body Weight' },
+      { system: 'http://loinc.org', code: '3141-9', display: 'Body weight Measured' },
+      { system: 'http://snomed.info/sct', code: '27113001', display: 'Body weight' },
+      { system: 'http://acme.org/devices/clinical-codes', code: 'body-weight', display: 'Body Weight' },
+    ],
+  },
+  subject: { reference: 'Patient/example' },
+  encounter: { reference: 'Encounter/example' },
+  effectiveDateTime: '2016-03-28',
+  valueQuantity: { value: 185, unit: 'lbs', system: 'http://unitsofmeasure.org', code: '[lb_av]' },
+};
+const glucoseF001 = {
+  resourceType: 'Observation',
+  id: 'f001',
+  status: 'final',
+  code: { coding: [{ system: 'http://loinc.org', code: '15074-8', display: 'Glucose [Moles/volume] in Blood' }] },
+  subject: { reference: 'Patient/f001' },
+  effectivePeriod: { start: '2013-04-02T09:30:10+01:00' },
+  issued: '2013-04-03T15:30:10+01:00',
+  valueQuantity: { value: 6.3, unit: 'mmol/l', system: 'http://unitsofmeasure.org', code: 'mmol/L' },
+};
+const patientExample = {
+  resourceType: 'Patient',
+  id: 'example',
+  identifier: [{ use: 'usual', system: 'urn:oid:1.2.36.146.595.217.0.1', value: '12345' }],
+  name: [{ use: 'official', family: 'Chalmers', given: ['Peter', 'James'] }],
+  gender: 'male',
+  birthDate: '1974-12-25',
+};
+const bilirubinUsCore = {
+  resourceType: 'Observation',
+  id: 'serum-total-bilirubin',
+  status: 'final',
+  code: { coding: [{ system: 'http://loinc.org', code: '1975-2', display: 'Bilirubin, serum' }], text: 'Bilirubin' },
+  effectiveDateTime: '2005-07-07',
+  valueQuantity: { value: 8.6, unit: 'mg/dL', system: 'http://unitsofmeasure.org', code: 'mg/dL' },
+};
+// Our own resource: a red-cell transfusion as R4 records it (Procedure, SNOMED CT 116863004, references.md §8),
+// with the volume in an extension (the extension URL is invented for the test).
+const transfusionProcedure = {
+  resourceType: 'Procedure',
+  id: 'tx1',
+  status: 'completed',
+  code: { coding: [{ system: 'http://snomed.info/sct', code: '116863004', display: 'Transfusion of red blood cells' }] },
+  performedDateTime: '2026-10-06T10:00:00Z',
+  extension: [{ url: 'http://example.org/fhir/StructureDefinition/transfused-volume', valueQuantity: { value: 0.55, unit: 'L', system: 'http://unitsofmeasure.org', code: 'L' } }],
+};
+const bundle = (...resources: unknown[]) => ({ resourceType: 'Bundle', type: 'collection', entry: resources.map((resource) => ({ resource })) });
+
+describe('FHIR R4 Bundle import', () => {
+  const plan = readFhirImport(bundle(weightExample, glucoseF001, patientExample, bilirubinUsCore, transfusionProcedure), null);
+  if (!plan.ok) throw new Error('bundle not read');
+
+  it('converts the specification weight example from [lb_av] to kg through UCUM', () => {
+    const weight = plan.value.entries.find((it) => it.list === 'weights')!;
+    expect(weight.where).toBe('entry[0] Observation/example');
+    expect(weight.entry).toEqual({ date: '2016-03-28', weight: { value: expect.closeTo(185 * 0.45359237, 9), unit: 'kg' } });
+  });
+
+  it('lists the glucose example as an unknown code instead of dropping it', () => {
+    expect(plan.value.unknownCodes).toEqual([{ where: 'entry[1] Observation/f001', code: 'http://loinc.org|15074-8', display: 'Glucose [Moles/volume] in Blood' }]);
+  });
+
+  it('reads the Patient for birth date and sex only', () => {
+    expect(plan.value.patient).toEqual({ birthDate: '1974-12-25', sexAtBirth: 'male' });
+    expect(JSON.stringify(plan.value)).not.toMatch(/Chalmers|Peter|12345/);
+  });
+
+  it('reads the US Core bilirubin example by its LOINC code, and a transfusion Procedure with its volume in mL', () => {
+    expect(plan.value.entries.find((it) => it.list === 'results')!.entry).toMatchObject({ date: '2005-07-07', kind: 'bilirubin', measured: { value: 8.6, unit: 'mg/dL' } });
+    expect(plan.value.entries.find((it) => it.list === 'transfusions')!.entry).toMatchObject({ date: '2026-10-06', kind: 'simple', volume: { value: 550, unit: 'mL' }, unitHaematocrit: null, unitCount: 1 });
+  });
+
+  it('refuses what is not a Bundle, naming where', () => {
+    const read = readFhirImport({ resourceType: 'Patient' }, null);
+    expect(read.ok).toBe(false);
+    expect(!read.ok && read.issues[0]!.message).toContain('not a FHIR Bundle');
+  });
+
+  it('rejects a preliminary result with where and why', () => {
+    const read = readFhirImport(bundle({ ...bilirubinUsCore, status: 'preliminary' }), null);
+    expect(read.ok && read.value.rejected).toEqual([{ where: 'entry[0] Observation/serum-total-bilirubin', reason: 'status "preliminary" (only final, amended or corrected results are imported)' }]);
+  });
+});
+
+describe('CSV import', () => {
+  it('guesses the mapping from the headers and says so; converts litres and percentages through UCUM', () => {
+    const csv = 'Date,Volume (L),Hct (%),Units\n2026-01-05,0.56,60,2\n"2026-02-02",0.54,58,2\n';
+    const plan = readCsvImport(csv, null);
+    expect(plan.ok).toBe(true);
+    if (!plan.ok) return;
+    expect(plan.value.understood).toContain('date ← column "Date" (guessed)');
+    expect(plan.value.entries.map((it) => it.entry)).toEqual([
+      { date: '2026-01-05', kind: 'simple', volume: { value: 560, unit: 'mL' }, unitHaematocrit: 0.6, unitCount: 2 },
+      { date: '2026-02-02', kind: 'simple', volume: { value: 540, unit: 'mL' }, unitHaematocrit: 0.58, unitCount: 2 },
+    ]);
+  });
+
+  it('reports ambiguous dates instead of guessing, and reads them with an order', () => {
+    const csv = 'date,test,value,unit\n03/04/2026,ferritin,1500,ug/L\n05/06/2026,ferritin,1400,ng/mL\n';
+    const plan = readCsvImport(csv, null);
+    expect(plan.ok && plan.value.entries).toEqual([]);
+    expect(plan.ok && plan.value.rejected.map((it) => it.where)).toEqual(['line 2', 'line 3']);
+    expect(plan.ok && plan.value.rejected[0]!.reason).toContain('could be day-first or month-first');
+    const dayFirst = readCsvImport(csv, null, { dateOrder: 'day-first' });
+    expect(dayFirst.ok && dayFirst.value.entries.map((it) => it.entry['date'])).toEqual(['2026-04-03', '2026-06-05']);
+    // One date with a day above 12 settles the order for the file.
+    const implied = readCsvImport(`${csv}25/06/2026,ferritin,1300,ug/L\n`, null);
+    expect(implied.ok && implied.value.entries.map((it) => it.entry['date'])).toEqual(['2026-04-03', '2026-06-05', '2026-06-25']);
+  });
+
+  it('converts creatinine from mg/L to the case unit via UCUM with creatinine molar mass 113.12 g/mol; lists every rejected row by line', () => {
+    const csv = 'date,test,value,unit\n2026-01-05,creatinine,7,mg/L\n2026-01-06,glucose,5,mmol/L\n2026-01-07,ferritin,high,ug/L\n2026-01-08,ferritin,1200,furlongs\n';
+    const plan = readCsvImport(csv, null);
+    if (!plan.ok) throw new Error('not read');
+    // 7 mg/L = 0.7 mg/dL (mg/dL is the first unit the case model lists for creatinine).
+    expect(plan.value.entries[0]!.entry['measured']).toEqual({ value: 0.7, unit: 'mg/dL' });
+    expect(plan.value.rejected.map((it) => it.where)).toEqual(['line 3', 'line 4', 'line 5']);
+    expect(plan.value.rejected[2]!.reason).toContain('"furlongs"');
+  });
+
+  it('keeps quoted commas and line breaks (papaparse) and counts lines from the file', () => {
+    const csv = 'date,volume,haematocrit,units,product\n2026-01-05,560,0.6,2,"red cells, washed\nirradiated"\n2026-01-06,abc,0.6,2,x\n';
+    const plan = readCsvImport(csv, null);
+    expect(plan.ok && plan.value.entries[0]!.entry['note']).toBe('product: red cells, washed\nirradiated');
+    expect(plan.ok && plan.value.rejected).toEqual([{ where: 'line 4', reason: 'volume "abc" is not a number' }]);
+  });
+
+  it('refuses a haematocrit that looks like a percentage without a % header', () => {
+    const plan = readCsvImport('date,volume,haematocrit\n2026-01-05,560,60\n', null);
+    expect(plan.ok && plan.value.rejected[0]!.reason).toContain('looks like a percentage');
+  });
+
+  it('reads ISO, day-first and month-first dates (calendar checked)', () => {
+    expect(readImportDate('2026-02-30', undefined).ok).toBe(false);
+    expect(readImportDate('29/02/2024', undefined)).toEqual({ ok: true, date: '2024-02-29' });
+    expect(readImportDate('02/29/2024', undefined)).toEqual({ ok: true, date: '2024-02-29' });
+  });
+});
+
+describe('import command', () => {
+  it('shows what would be added on --dry-run and adds nothing; adds it without --dry-run with one journal line', async () => {
+    const folder = tempDir();
+    const casePath = join(folder, 'th-0417.json');
+    copyFileSync(demoCase('th-0417'), casePath);
+    const before = readFileSync(casePath, 'utf8');
+    const csvPath = join(folder, 'tx.csv');
+    writeFileSync(csvPath, 'date,volume,haematocrit,units\n2026-11-25,560,0.6,2\n2026-11-26,-5,0.6,2\n');
+    const dry = await cli('import', csvPath, '--into', casePath, '--dry-run');
+    expect(dry.code).toBe(0);
+    expect(dry.out).toContain('Would add: 1 transfusion(s)');
+    expect(dry.out).toMatch(/line 3: transfusions\[\d+\]\.volume\.value -5 mL is not possible/);
+    expect(readFileSync(casePath, 'utf8')).toBe(before);
+    const real = await cli('import', csvPath, '--into', casePath);
+    expect(real.code).toBe(0);
+    const saved = JSON.parse(readFileSync(casePath, 'utf8'));
+    expect(saved.transfusions.at(-1)).toMatchObject({ id: 'imp-2026-11-25', date: '2026-11-25', volume: { value: 560, unit: 'mL' } });
+  });
+
+  it('imports a FHIR bundle and warns on a birth date that differs from the case', async () => {
+    const folder = tempDir();
+    const casePath = join(folder, 'th-0417.json');
+    copyFileSync(demoCase('th-0417'), casePath);
+    const bundlePath = join(folder, 'bundle.json');
+    writeFileSync(bundlePath, JSON.stringify(bundle(patientExample, { ...bilirubinUsCore, effectiveDateTime: '2026-11-01' }, glucoseF001)));
+    const run = await cli('import', bundlePath, '--into', casePath, '--dry-run');
+    expect(run.out).toContain('Would add: 0 transfusion(s), 1 result(s)');
+    expect(run.out).toContain('differs from the case');
+    expect(run.out).toContain('http://loinc.org|15074-8');
+    expect(run.out).not.toContain('Chalmers');
+  });
+});
