@@ -37,6 +37,10 @@ function rowText(row: PanelRow, index: number): string {
 
 /** `panel <folder> [--as-of DATE] [--json]`: every case reviewed and ranked by urgency (core/panel). */
 export async function panelCommand(args: ParsedArgs, io: CliIo & StoreIo): Promise<number> {
+  if (args.switches.has('--help')) {
+    io.out(panelUsage);
+    return exitCodes.ok;
+  }
   const folder = args.positionals[0];
   if (folder === undefined || args.positionals.length > 1) {
     io.err(panelUsage);

@@ -11,7 +11,7 @@ import {
   neutrophilBounds,
   plateletBounds,
   urinaryCopperBounds,
-} from '../../../core/model/plausibleRanges';
+} from '../../../core/ranges/plausibleRanges';
 import type { Case } from '../../../core/model/caseFile';
 import { ok, type Result } from '../../../core/result';
 import { convertUcum } from './ucum';

@@ -114,7 +114,7 @@ describe('calc <calculator>', () => {
 });
 
 describe('the built command line', () => {
-  it('runs from the single-file bundle that npm install builds', { timeout: 60_000 }, async () => {
+  it('runs from the single-file bundle that npm install builds', async () => {
     // Inside the project, so the bundle finds its external runtime dependencies in node_modules.
     const outfile = join(mkdtempSync(join(projectRoot, 'dist', 'test-cli-')), 'cli.cjs');
     await buildCli(outfile);
