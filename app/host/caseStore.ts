@@ -5,6 +5,7 @@ import { parseCase } from '../../core/model/parseCase';
 import { fail, issue, ok, type Issue, type Result } from '../../core/result';
 import { describeFsError, isTemporaryFileName, nodeAtomicWriteFs, syncFolder, writeFileAtomic, type AtomicWriteFs } from './atomicWrite';
 import { caseJsonFromText } from './caseFiles';
+import { decodeTextBytes } from './textFiles';
 import { appendJournal, contentHash, journalEntries, journalNameFor, readJournal, type JournalEntry, type JournalLine } from './caseJournal';
 
 /**
@@ -180,7 +181,9 @@ export function openCaseStore(folder: string, options: CaseStoreOptions = {}): C
     try {
       const bytes = await nodeFs.readFile(path);
       const stat = await nodeFs.stat(path);
-      return ok({ text: bytes.toString('utf8'), revision: { mtimeMs: stat.mtimeMs, size: stat.size, sha256: contentHash(bytes) } });
+      const text = decodeTextBytes(bytes, path, 'case file');
+      if (!text.ok) return text;
+      return ok({ text: text.value, revision: { mtimeMs: stat.mtimeMs, size: stat.size, sha256: contentHash(bytes) } });
     } catch (error) {
       if ((error as NodeJS.ErrnoException).code === 'ENOENT') return ok(null);
       return fail(issue('invalid_file', [], `Cannot read case file ${path}: ${describeFsError(error)}.`));

@@ -45,6 +45,20 @@ export function readTextFile(path: string, what: string, field: readonly (string
   } catch (error) {
     return fail(issue('invalid_file', field, `Cannot read ${what} ${path}: ${describeFsError(error)}.`));
   }
+  return decodeTextBytes(bytes, path, what, field);
+}
+
+/**
+ * The text of a file's bytes: a UTF-8 byte-order mark dropped, bytes that are
+ * not UTF-8 refused naming the JSON fields that hold them (never replaced).
+ * Shared by readTextFile and the case store.
+ *
+ * @param bytes - the file's content
+ * @param path - the file, as messages name it
+ * @param what - what the file is ("case file")
+ * @param field - the path the issue carries
+ */
+export function decodeTextBytes(bytes: Uint8Array, path: string, what: string, field: readonly (string | number)[] = []): Result<string> {
   const body = byteOrderMark.every((byte, index) => bytes[index] === byte) ? bytes.subarray(byteOrderMark.length) : bytes;
   try {
     return ok(new TextDecoder('utf-8', { fatal: true }).decode(body));

@@ -224,6 +224,13 @@ describe('case store: failures keep the work and the old file', () => {
     expect(value(await store.open('a.json')).caseFile).toEqual(opened.caseFile);
   });
 
+  it('a byte-order mark is accepted; bytes that are not UTF-8 are refused naming the file', async () => {
+    writeFileSync(join(folder, 'bom.json'), `\ufeff${JSON.stringify(demo())}`);
+    expect((await store.open('bom.json')).ok).toBe(true);
+    writeFileSync(join(folder, 'latin1.json'), Buffer.from([0x7b, 0x22, 0xe9, 0x22, 0x7d]));
+    expect(issuesOf(await store.open('latin1.json'))[0]!.message).toContain('latin1.json: it holds bytes that are not UTF-8');
+  });
+
   it('a torn journal line does not swallow the next change', async () => {
     const opened = value(await store.create('a.json', demo(), 'created'));
     appendFileSync(join(folder, 'a.journal.jsonl'), '\n{"at":"2026-12-01T09:30:00.000Z","change":"cut sh');
