@@ -1,6 +1,7 @@
 import { mkdirSync, readdirSync, readFileSync, statSync } from 'node:fs';
 import { join } from 'node:path';
 import type { HostHandlers, HostValue } from '../../core/contract';
+import type { Case } from '../../core/model/caseFile';
 import { parseCase } from '../../core/model/parseCase';
 import { computeCase } from '../../core/ledger/computeCase';
 import { monitoringCalendar } from '../../core/monitoring';
@@ -70,6 +71,22 @@ async function writeFresh(folder: string, stem: string, extension: string, data:
   return fail(issue('already_exists', ['output'], `The exports folder ${folder} already holds 99 files named ${stem}; nothing was written.`));
 }
 
+/** A case as saved in the workspace (exports are made from the file, not from unsaved edits). */
+function savedCase(environment: HostEnvironment, caseId: string): Result<{ readonly folder: string; readonly path: string; readonly caseFile: Case }> {
+  const folder = environment.workspace.get();
+  if (folder === null) return noWorkspace();
+  const path = insideFolder(folder, caseId);
+  if (!path.ok) return path;
+  const loaded = readCaseFile(path.value);
+  return loaded.ok ? ok({ folder, path: path.value, caseFile: loaded.value }) : loaded;
+}
+
+/** An export of a case into the workspace's exports folder, named `<case>-<what>.<extension>`. */
+async function writeExport(folder: string, caseId: string, what: string, extension: string, data: string | Uint8Array): Promise<Result<{ readonly path: string }>> {
+  const written = await writeFresh(join(folder, 'exports'), `${caseId.replace(/\.json$/, '')}-${what}`, extension, data);
+  return written.ok ? ok({ path: written.value }) : written;
+}
+
 /**
  * The host's services behind the contract, wired to what exists: case files
  * are listed and opened with app/host/caseFiles.ts, the monitoring calendar is
@@ -127,36 +144,27 @@ export function createHostServices(environment: HostEnvironment): HostHandlers {
     importDryRun: () => notAvailable('Importing records'),
     importCommit: () => notAvailable('Importing records'),
     exportSheetPdf: async ({ caseId, asOfDate, paper }) => {
-      const folder = environment.workspace.get();
-      if (folder === null) return noWorkspace();
-      const path = insideFolder(folder, caseId);
-      if (!path.ok) return path;
-      const loaded = readCaseFile(path.value);
-      if (!loaded.ok) return loaded;
-      const computed = computeCase(loaded.value, asOfDate);
+      const saved = savedCase(environment, caseId);
+      if (!saved.ok) return saved;
+      const { folder, path, caseFile } = saved.value;
+      const computed = computeCase(caseFile, asOfDate);
       if (!computed.ok) return computed;
       // The local protocol's thresholds recorded in the case apply to every review of it (as on the command line).
-      const findings = evaluateFindings(loaded.value, computed.value, asOfDate, loaded.value.thresholdOverrides);
+      const findings = evaluateFindings(caseFile, computed.value, asOfDate, caseFile.thresholdOverrides);
       if (!findings.ok) return findings;
-      const hash = sha256OfFile(path.value);
+      const hash = sha256OfFile(path);
       if (!hash.ok) return hash;
-      const sheet = buildSheet({ caseFile: loaded.value, results: computed.value, findings: findings.value, caseFileSha256: hash.value, toolVersion, preparedBy: null });
+      const sheet = buildSheet({ caseFile, results: computed.value, findings: findings.value, caseFileSha256: hash.value, toolVersion, preparedBy: null });
       // The PDF library loads only when a sheet is written (app/host/sheetPdf.ts owns it).
       const bytes = await (await import('./sheetPdf')).writeSheetPdf(sheet, { paper });
-      const written = await writeFresh(join(folder, 'exports'), `${caseId.replace(/\.json$/, '')}-sheet-${asOfDate}`, 'pdf', bytes);
-      return written.ok ? ok({ path: written.value }) : written;
+      return writeExport(folder, caseId, `sheet-${asOfDate}`, 'pdf', bytes);
     },
     exportCalendar: async ({ caseId, asOfDate }) => {
-      const folder = environment.workspace.get();
-      if (folder === null) return noWorkspace();
-      const path = insideFolder(folder, caseId);
-      if (!path.ok) return path;
-      const loaded = readCaseFile(path.value);
-      if (!loaded.ok) return loaded;
-      const calendar = monitoringCalendar(loaded.value, asOfDate);
+      const saved = savedCase(environment, caseId);
+      if (!saved.ok) return saved;
+      const calendar = monitoringCalendar(saved.value.caseFile, asOfDate);
       if (!calendar.ok) return calendar;
-      const written = await writeFresh(join(folder, 'exports'), `${caseId.replace(/\.json$/, '')}-monitoring-${asOfDate}`, 'ics', monitoringIcs(calendar.value, environment.now()));
-      return written.ok ? ok({ path: written.value }) : written;
+      return writeExport(saved.value.folder, caseId, `monitoring-${asOfDate}`, 'ics', monitoringIcs(calendar.value, environment.now()));
     },
     readSettings: () => environment.settings.read(),
     writeSettings: (settings) => environment.settings.write(settings),
