@@ -28,7 +28,7 @@ export const chelatorsSources = [
     year: 2012,
     locator: 'Table I',
     status: 'secondary',
-    note: 'Chelator : Fe ratios deferoxamine 1 : 1 (hexadentate), deferiprone 3 : 1 (bidentate), deferasirox 2 : 1 (tridentate), and the molecular formulas, as reproduced in references.md §3; the table itself was not seen in this project. The ratios follow from the denticities (six donor atoms per Fe³⁺); a drug review (Adis, Drugs 2007) also states that two deferasirox molecules bind one Fe³⁺.',
+    note: 'Chelator : Fe ratios deferoxamine 1 : 1 (hexadentate), deferiprone 3 : 1 (bidentate), deferasirox 2 : 1 (tridentate), and the molecular formulas, as reproduced in a secondary summary; the table itself was not seen in this project. The ratios follow from the denticities (six donor atoms per Fe³⁺); a drug review (Adis, Drugs 2007) also states that two deferasirox molecules bind one Fe³⁺.',
   },
   {
     id: 'deferoxamine-label',
@@ -38,7 +38,7 @@ export const chelatorsSources = [
     year: 2025,
     locator: '§2 dosage and administration, §3 dosage forms, §5 warnings and precautions, §11 description',
     status: 'confirmed',
-    note: 'Read again for references.md §9. Hearing and eye examinations before treatment and at regular intervals (yearly in practice). Doses stated as the mesylate: 20–60 mg/kg/day by subcutaneous infusion over 8–12 hours, 5–7 days a week; at most 40 mg/kg/day in children and 60 mg/kg/day in adults; usual starting doses by ferritin: below 2,000 µg/L about 25, 2,000–3,000 about 35, higher up to 55 mg/kg/day; intravenous at most 15 mg/kg/h (read in the acute section). Vials 500 mg (426.82 mg base) and 2 g. Brittenham 2011 is cited separately (brittenham-2011).',
+    note: 'Read again in 2026. Hearing and eye examinations before treatment and at regular intervals (yearly in practice). Doses stated as the mesylate: 20–60 mg/kg/day by subcutaneous infusion over 8–12 hours, 5–7 days a week; at most 40 mg/kg/day in children and 60 mg/kg/day in adults; usual starting doses by ferritin: below 2,000 µg/L about 25, 2,000–3,000 about 35, higher up to 55 mg/kg/day; intravenous at most 15 mg/kg/h (read in the acute section). Vials 500 mg (426.82 mg base) and 2 g. Brittenham 2011 is cited separately (brittenham-2011).',
   },
   {
     id: 'deferoxamine-aluminium-memory',
@@ -57,7 +57,7 @@ export const chelatorsSources = [
     year: 2004,
     locator: 'section 4.2',
     status: 'confirmed',
-    note: '25 mg/kg three times a day, a total daily dose of 75 mg/kg; doses above 100 mg/kg/day are not recommended. references.md §3 lists this as secondary; the 2004 text was seen.',
+    note: '25 mg/kg three times a day, a total daily dose of 75 mg/kg; doses above 100 mg/kg/day are not recommended. Earlier listed as secondary; the 2004 text was seen.',
   },
   {
     id: 'porter-1989',
@@ -77,13 +77,13 @@ export const chelatorsSources = [
     year: 2003,
     locator: 'abstract',
     status: 'confirmed',
-    note: 'Deferasirox (then ICL670) 20 mg/kg/day offset a transfusional intake of 12–15 mL packed cells/kg/month, about 0.3–0.5 mg iron/kg/day (references.md §3).',
+    note: 'Deferasirox (then ICL670) 20 mg/kg/day offset a transfusional intake of 12–15 mL packed cells/kg/month, about 0.3–0.5 mg iron/kg/day.',
   },
   {
     id: 'porter-balance-goal-2005',
     authors: 'Porter JB',
     title: 'Iron balance goal of chelation: excretion of about 0.4–0.5 mg/kg/day matches typical transfusional intake',
-    publication: 'review, 2005 (as quoted in references.md §3; not checked)',
+    publication: 'review, 2005 (as quoted in a secondary summary; not checked)',
     year: 2005,
     status: 'secondary',
   },
@@ -94,7 +94,7 @@ export const chelatorsSources = [
     publication: 'J Hepatol 2012;56:671-685',
     year: 2012,
     status: 'confirmed',
-    note: 'Trientine is dosed as salt or as base depending on the product: base 146.24 g/mol, dihydrochloride 219.15 g/mol, tetrahydrochloride 292.07 g/mol (references.md §7).',
+    note: 'Trientine is dosed as salt or as base depending on the product: base 146.24 g/mol, dihydrochloride 219.15 g/mol, tetrahydrochloride 292.07 g/mol.',
   },
   {
     id: 'aasld-wilson-2022',
@@ -103,6 +103,6 @@ export const chelatorsSources = [
     publication: 'Hepatology 2022 (online ahead of print)',
     year: 2022,
     status: 'confirmed',
-    note: 'Trientine salts and base as in EASL 2012 (references.md §7).',
+    note: 'Trientine salts and base as in EASL 2012.',
   },
 ] as const satisfies readonly Source[];

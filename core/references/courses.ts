@@ -15,7 +15,7 @@ export const coursesSources = [
     year: 2022,
     locator: '§1 Indications; Dosage and Administration (dosage table); Precautions (neutropenia)',
     status: 'confirmed',
-    note: 'Indicated for lead poisoning in children aged 1 year and older with blood lead above 45 µg/dL; not for encephalopathy (does not cross the blood-brain barrier). 10 mg/kg or 350 mg/m² every 8 hours for 5 days, then every 12 hours for 14 days. Weight bands per dose: 8–15 kg 100 mg, 16–23 kg 200 mg, 24–34 kg 300 mg, 35–44 kg 400 mg, 45 kg or more 500 mg. Repeat courses by weekly blood lead, at least two weeks apart. Complete blood count with differential and platelets before and weekly during treatment; withhold or stop when ANC is below 1,200/µL (references.md §9: confirmed).',
+    note: 'Indicated for lead poisoning in children aged 1 year and older with blood lead above 45 µg/dL; not for encephalopathy (does not cross the blood-brain barrier). 10 mg/kg or 350 mg/m² every 8 hours for 5 days, then every 12 hours for 14 days. Weight bands per dose: 8–15 kg 100 mg, 16–23 kg 200 mg, 24–34 kg 300 mg, 35–44 kg 400 mg, 45 kg or more 500 mg. Repeat courses by weekly blood lead, at least two weeks apart. Complete blood count with differential and platelets before and weekly during treatment; withhold or stop when ANC is below 1,200/µL (confirmed).',
   },
   {
     id: 'edetate-calcium-disodium-label',
@@ -25,7 +25,7 @@ export const coursesSources = [
     year: 2024,
     locator: 'Boxed warning; Dosage and Administration',
     status: 'confirmed',
-    note: '1,000 mg/m²/day IV or IM for blood lead 20–70 µg/dL; five days, then interrupted for 2 to 4 days; two courses usually. "The dosage schedule should be followed and at no time should the recommended daily dose be exceeded." IM route for overt encephalopathy. Above 70 µg/dL or with symptoms: with dimercaprol. Lead nephropathy (adults): 500 mg/m² every 24 h for 5 days at serum creatinine 2–3 mg/dL, every 48 h for 3 doses at 3–4 mg/dL, once weekly above 4 mg/dL; may be repeated at one-month intervals (references.md §9: confirmed).',
+    note: '1,000 mg/m²/day IV or IM for blood lead 20–70 µg/dL; five days, then interrupted for 2 to 4 days; two courses usually. "The dosage schedule should be followed and at no time should the recommended daily dose be exceeded." IM route for overt encephalopathy. Above 70 µg/dL or with symptoms: with dimercaprol. Lead nephropathy (adults): 500 mg/m² every 24 h for 5 days at serum creatinine 2–3 mg/dL, every 48 h for 3 doses at 3–4 mg/dL, once weekly above 4 mg/dL; may be repeated at one-month intervals (confirmed).',
   },
   {
     id: 'edetate-encephalopathy-dose',
@@ -35,7 +35,7 @@ export const coursesSources = [
     year: null,
     locator: 'Lead chelation: encephalopathy and/or blood lead > 70 µg/dL',
     status: 'confirmed',
-    note: '1,500 mg/m²/day with dimercaprol for 5 days; IM 250 mg/m² every 4 hours (6 × 250 = 1,500 mg/m²/day); wait at least 2 days before a repeat (references.md §7 lists 1,500 mg/m²/day as confirmed from label and clinical references).',
+    note: '1,500 mg/m²/day with dimercaprol for 5 days; IM 250 mg/m² every 4 hours (6 × 250 = 1,500 mg/m²/day); wait at least 2 days before a repeat (1,500 mg/m²/day confirmed in the label and clinical references).',
   },
   {
     id: 'dimercaprol-label',
@@ -45,7 +45,7 @@ export const coursesSources = [
     year: 2017,
     locator: 'Dosage and Administration',
     status: 'confirmed',
-    note: 'Deep IM only. Acute lead encephalopathy: 4 mg/kg alone as the first dose, then every 4 hours in combination with calcium disodium edetate at a separate site; 2 to 7 days by clinical response. Severe arsenic or gold poisoning: 3 mg/kg every 4 hours for 2 days, four times on the third day, then twice daily for 10 days. Mercury: 5 mg/kg first, then 2.5 mg/kg once or twice daily for 10 days (references.md §9: 4 mg/kg every 4 h confirmed; the arsenic and mercury schedules were read only in the reproduction).',
+    note: 'Deep IM only. Acute lead encephalopathy: 4 mg/kg alone as the first dose, then every 4 hours in combination with calcium disodium edetate at a separate site; 2 to 7 days by clinical response. Severe arsenic or gold poisoning: 3 mg/kg every 4 hours for 2 days, four times on the third day, then twice daily for 10 days. Mercury: 5 mg/kg first, then 2.5 mg/kg once or twice daily for 10 days (4 mg/kg every 4 h confirmed; the arsenic and mercury schedules were read only in the reproduction).',
   },
   {
     id: 'dimercaprol-cautions',
@@ -55,7 +55,7 @@ export const coursesSources = [
     year: null,
     locator: 'Contraindications; Interactions',
     status: 'secondary',
-    note: 'Not for iron, cadmium or selenium poisoning (toxic complexes); each mL holds about 700 mg of peanut oil: peanut allergy; lead: about 4 mg/kg (75–83 mg/m²) per dose (references.md §7: secondary).',
+    note: 'Not for iron, cadmium or selenium poisoning (toxic complexes); each mL holds about 700 mg of peanut oil: peanut allergy; lead: about 4 mg/kg (75–83 mg/m²) per dose (secondary).',
   },
   {
     id: 'am-fam-physician-2000-lead',
@@ -64,7 +64,7 @@ export const coursesSources = [
     publication: 'Am Fam Physician 2000;62:545',
     year: 2000,
     status: 'confirmed',
-    note: 'In encephalopathy, calcium disodium edetate is started after the second dimercaprol dose (about 4 hours), never first; succimer weight bands (references.md §9).',
+    note: 'In encephalopathy, calcium disodium edetate is started after the second dimercaprol dose (about 4 hours), never first; succimer weight bands.',
   },
   {
     id: 'mmwr-2006-edetate-disodium',
@@ -83,7 +83,7 @@ export const coursesSources = [
     publication: 'CDC 2002; Pediatrics 2005;116:1036; MMWR 2021;70:1509',
     year: 2021,
     status: 'confirmed',
-    note: 'Reference value 3.5 µg/dL; chelation usually at 45 µg/dL or more in children; 70 µg/dL or more, or encephalopathy: a medical emergency with hospital treatment (references.md §7 and §9).',
+    note: 'Reference value 3.5 µg/dL; chelation usually at 45 µg/dL or more in children; 70 µg/dL or more, or encephalopathy: a medical emergency with hospital treatment.',
   },
   {
     id: 'unithiol-pharmacology-chapter',
@@ -93,7 +93,7 @@ export const coursesSources = [
     year: null,
     locator: 'Unithiol: indications and toxicity',
     status: 'secondary',
-    note: '3–5 mg/kg every 4 hours by slow intravenous infusion over 20 minutes (aqueous preparations usually 50 mg/mL); after a few days of stabilisation, oral 4–8 mg/kg every 6–8 hours. No FDA-approved indication (references.md §9: secondary).',
+    note: '3–5 mg/kg every 4 hours by slow intravenous infusion over 20 minutes (aqueous preparations usually 50 mg/mL); after a few days of stabilisation, oral 4–8 mg/kg every 6–8 hours. No FDA-approved indication (secondary).',
   },
   {
     id: 'penicillamine-wilson',
@@ -103,7 +103,7 @@ export const coursesSources = [
     year: 2012,
     locator: 'treatment: chelators',
     status: 'confirmed',
-    note: 'Adults 750–1,500 mg/day in two or three divided doses (seldom above 2 g); children 20 mg/kg/day rounded to the nearest 250 mg, in two or three divided doses; pyridoxine 25–50 mg/day with it; on an empty stomach (references.md §9: confirmed).',
+    note: 'Adults 750–1,500 mg/day in two or three divided doses (seldom above 2 g); children 20 mg/kg/day rounded to the nearest 250 mg, in two or three divided doses; pyridoxine 25–50 mg/day with it; on an empty stomach (confirmed).',
   },
   {
     id: 'trientine-dihydrochloride-label',
@@ -113,7 +113,7 @@ export const coursesSources = [
     year: 2026,
     locator: 'Description; Dosage and Administration',
     status: 'confirmed',
-    note: 'Dosed as the salt: adults 750–1,250 mg/day in 2–4 divided doses, at most 2,000 mg/day; children (12 years or under) 500–750 mg/day, at most 1,500 mg/day (references.md §9: confirmed).',
+    note: 'Dosed as the salt: adults 750–1,250 mg/day in 2–4 divided doses, at most 2,000 mg/day; children (12 years or under) 500–750 mg/day, at most 1,500 mg/day (confirmed).',
   },
   {
     id: 'trientine-tetrahydrochloride-smpc',

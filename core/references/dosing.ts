@@ -50,11 +50,11 @@ export const dosingSources = [
     id: 'monitoring-deferasirox-label',
     authors: 'Marketing authorisation holder',
     title: 'Deferasirox prescribing information: renal and hepatic monitoring; auditory and ophthalmic testing',
-    publication: 'product labels, US and EU (references.md §4)',
+    publication: 'product labels, US and EU',
     year: null,
     locator: 'warnings and precautions',
     status: 'secondary',
-    note: 'Liver tests (AST, ALT, bilirubin) every 2 weeks during the first month, then at least monthly (US label §5.2, confirmed in references.md §9); serum creatinine at least monthly, weekly in the first month when there is renal risk (US label boxed warning and §2.1, confirmed). Auditory and ophthalmic testing before starting and yearly (from memory).',
+    note: 'Liver tests (AST, ALT, bilirubin) every 2 weeks during the first month, then at least monthly (US label §5.2, confirmed on re-reading); serum creatinine at least monthly, weekly in the first month when there is renal risk (US label boxed warning and §2.1, confirmed). Auditory and ophthalmic testing before starting and yearly (from memory).',
   },
 
 

@@ -26,7 +26,7 @@ export const ironSources = [
     publication: 'thalassaemia management guidelines (edition not checked)',
     year: null,
     status: 'memory',
-    note: 'Which guideline edition uses 1.16 is from memory (references.md §1).',
+    note: 'Which guideline edition uses 1.16 is from memory.',
   },
   {
     id: 'fischer-harmatz-2009',
@@ -53,7 +53,7 @@ export const ironSources = [
     publication: 'Blood 2012;120:3657-3669',
     year: 2012,
     status: 'confirmed',
-    note: 'About 200–250 mg iron per unit of packed cells; 2–4 units a month is about 0.3–0.6 mg/kg/day (references.md §1).',
+    note: 'About 200–250 mg iron per unit of packed cells; 2–4 units a month is about 0.3–0.6 mg/kg/day.',
   },
   {
     id: 'brittenham-2011',
@@ -90,7 +90,7 @@ export const ironSources = [
     publication: 'Blood 1997;89:739-761',
     year: 1997,
     status: 'confirmed',
-    note: 'Liver iron thresholds: upper limit of normal about 1.8 mg/g dry; ≥ 15 mg/g dry high risk of cardiac disease and early death (references.md §2).',
+    note: 'Liver iron thresholds: upper limit of normal about 1.8 mg/g dry; ≥ 15 mg/g dry high risk of cardiac disease and early death.',
   },
   {
     id: 'hernando-2022',
@@ -135,7 +135,7 @@ export const ironSources = [
     publication: 'Circulation 2009;120:1961-1968',
     year: 2009,
     status: 'confirmed',
-    note: 'Cardiac T2* < 10 ms: high risk of heart failure within a year; < 6 ms: very high risk (references.md §2).',
+    note: 'Cardiac T2* < 10 ms: high risk of heart failure within a year; < 6 ms: very high risk.',
   },
   {
     id: 'ferritin-guideline-literature',
@@ -144,6 +144,6 @@ export const ironSources = [
     publication: 'guideline literature (editions not checked)',
     year: null,
     status: 'secondary',
-    note: 'Consistently > 1000 µg/L is a usual point to consider chelation; 500–1000 µg/L a usual maintenance range; a poor marker in sickle cell disease (references.md §2).',
+    note: 'Consistently > 1000 µg/L is a usual point to consider chelation; 500–1000 µg/L a usual maintenance range; a poor marker in sickle cell disease.',
   },
 ] as const satisfies readonly Source[];

@@ -10,7 +10,7 @@ export const standardSources = [
     year: 2022,
     locator: 'Table 2 (abridged standard atomic weights, five significant figures) and conventional values',
     status: 'standard',
-    note: 'Values typed from memory of the CIAAW abridged table; tests compare them with the mf-parser package and with the molar masses in references.md.',
+    note: 'Values typed from memory of the CIAAW abridged table; tests compare them with the molar masses computed by the mf-parser package.',
   },
   {
     id: 'ucum',
