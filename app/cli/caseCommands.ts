@@ -55,7 +55,7 @@ export function checkCommand(args: ParsedArgs, io: CaseIo): number {
 export function computeCommand(args: ParsedArgs, io: CaseIo): number {
   const review = reviewCase(args, io, {
     command: 'compute',
-    usage: 'Usage: chelation-ledger compute <case.json> [--as-of YYYY-MM-DD] [--horizon-months N] [--seed N] [--json]',
+    usage: 'Usage: chelation-ledger compute <case.json> [--as-of YYYY-MM-DD] [--horizon-months N] [--seed N] [--model burden-dependent|constant-rate] [--json]',
     integerOptions: {
       '--horizon-months': { min: 1, max: 120, key: 'horizonMonths' },
       '--seed': { min: 0, max: 2 ** 31 - 1, key: 'seed' },
@@ -72,6 +72,17 @@ export function computeCommand(args: ParsedArgs, io: CaseIo): number {
 }
 
 const fmt = (value: number, decimals = 1) => formatNumber(value, decimals);
+/** Two significant figures, for estimates whose band is wide ("estimated now"). */
+const sig2 = (value: number) => (value === 0 ? '0' : formatNumber(Number(value.toPrecision(2)), Math.max(0, 1 - Math.floor(Math.log10(Math.abs(value))))));
+
+/** Iron removed per procedure and per month over the trailing year, from the account's months. */
+function bloodRemovalOf(results: CaseResults): string[] {
+  const removedMg = results.intake.removedWithBloodMg;
+  if (!(removedMg > 0)) return [];
+  const procedures = results.intake.removalProcedures;
+  const perProcedure = procedures > 0 ? `, ${fmt(removedMg / procedures, 0)} mg per procedure (${procedures} procedures)` : '';
+  return [`${fmt(removedMg, 0)} mg over the ${results.intake.windowDays} days to ${results.asOf}${perProcedure}, ${fmt((removedMg / results.intake.windowDays) * daysPerMonth, 0)} mg per month`];
+}
 
 /** The readable summary of a computed case. */
 export function formatResults(results: CaseResults, findings: readonly Finding[] = []): string {
@@ -93,7 +104,8 @@ export function formatResults(results: CaseResults, findings: readonly Finding[]
   if (body.lastMeasured && body.bodyIronMg !== null && body.licMgPerGDry !== null) {
     lines.push('Body iron:');
     lines.push(`  last measured LIC ${fmt(body.lastMeasured.licMgPerGDry)} mg/g dry on ${body.lastMeasured.date} (${body.lastMeasured.method})`);
-    lines.push(`  estimated now: LIC ${fmt(body.licMgPerGDry)} mg/g dry, body iron stores ${fmt(body.bodyIronMg / 1000, 2)} g (Angelucci relation, carried forward by the balance)`);
+    const band = body.band ? ` (10th–90th percentile ${sig2(body.band.licP10)}–${sig2(body.band.licP90)}, with the LIC's measurement spread of ${fmt((body.anchorRelativeSd ?? 0) * 100, 0)} %)` : '';
+    lines.push(`  estimated now: LIC ${sig2(body.licMgPerGDry)} mg/g dry${band}, body iron stores ${sig2(body.bodyIronMg / 1000)} g (Angelucci relation, carried forward by the balance at the ${body.efficiencyBasis} efficiency basis)`);
     lines.push('');
   }
   if (results.currentRegimens.length > 0) {
@@ -129,7 +141,11 @@ export function formatResults(results: CaseResults, findings: readonly Finding[]
   }
   if (results.projection) {
     const projection = results.projection;
-    lines.push(`Projected LIC (mg/g dry; central, 10th–90th percentile band from ${projection.samples} seeded samples, seed ${projection.seed}; future intake ${fmt(projection.intakeMgPerDay)} mg/day):`);
+    const model = projection.model === 'burden-dependent'
+      ? `burden-dependent model: removal falls in proportion to the iron above the floor of LIC ${fmt(projection.floorLicMgPerGDry)} mg/g dry, calibrated on today's removal`
+      : `constant-rate model: today's removal held until the floor of LIC ${fmt(projection.floorLicMgPerGDry)} mg/g dry`;
+    lines.push(`Projected LIC (mg/g dry; ${model}; central, 10th–90th percentile band from ${projection.samples} seeded samples, seed ${projection.seed}; future intake ${fmt(projection.intakeMgPerDay)} mg/day):`);
+    lines.push(`  ${projection.basis.statement}`);
     for (const scenario of projection.scenarios) {
       const points = [6, 12, 24, projection.horizonMonths]
         .filter((months, index, all) => months <= projection.horizonMonths && all.indexOf(months) === index)
@@ -137,13 +153,24 @@ export function formatResults(results: CaseResults, findings: readonly Finding[]
           const month = scenario.months[months]!;
           return `${months} mo ${fmt(month.licMgPerGDry)} (${fmt(month.licP10)}–${fmt(month.licP90)})`;
         });
-      lines.push(`  ${scenario.name} [${scenario.efficiencyBasis} efficiency; net ${fmt(scenario.netMgPerKgPerDay, 2)} mg/kg/day]: ${points.join('; ')}`);
+      lines.push(`  ${scenario.name} [${scenario.efficiencyBasis} efficiency; net today ${fmt(scenario.netMgPerKgPerDay, 2)} mg/kg/day]: ${points.join('; ')}`);
       for (const crossing of scenario.crossings) {
-        if (crossing.monthsAhead !== null) {
-          lines.push(`    at this regimen the projected LIC ${crossing.direction} ${crossing.thresholdMgPerGDry} at about ${crossing.monthsAhead} months (${crossing.date}); band ${crossing.bandEarliestMonths ?? '–'} to ${crossing.bandLatestMonths ?? `beyond ${projection.horizonMonths}`} months`);
-        }
+        if (crossing.thresholdMgPerGDry === 15 && crossing.monthsAhead === null) continue;
+        const central = crossing.monthsAhead !== null ? `at about month ${crossing.monthsAhead} (${crossing.date})` : `not within ${projection.horizonMonths} months`;
+        const bandText =
+          crossing.bandEarliestMonths === null
+            ? `band: not within ${projection.horizonMonths} months`
+            : `band: month ${crossing.bandEarliestMonths} to ${crossing.bandLatestMonths ?? `beyond ${projection.horizonMonths}`}`;
+        lines.push(`    LIC ${crossing.direction} ${crossing.thresholdMgPerGDry}: ${central}; ${bandText}`);
       }
+      for (const zone of scenario.labelZones) if (zone.centralMonth !== null || zone.bandMonth !== null) lines.push(`    ${zone.text}`);
     }
+    lines.push('');
+  }
+  const procedures = bloodRemovalOf(results);
+  if (procedures.length > 0) {
+    lines.push('Iron removed with blood (exchange, venesection; pre-procedure haematocrit):');
+    for (const line of procedures) lines.push(`  ${line}`);
     lines.push('');
   }
   if (results.notices.length > 0) {

@@ -1,6 +1,7 @@
 import { isIsoDate } from '../../core/dates/isoDate';
 import { parseDecimal } from '../../core/numbers/parseDecimal';
 import { computeCase, type CaseResults, type ComputeOptions } from '../../core/ledger/computeCase';
+import { projectionModels, type ProjectionModel } from '../../core/ledger/removalModel';
 import type { Case } from '../../core/model/caseFile';
 import { formatIssues, type Issue, type Result } from '../../core/result';
 import { evaluateFindings, type Finding } from '../../core/safety';
@@ -56,7 +57,7 @@ export function reviewCase(args: ParsedArgs, io: CaseIo, options: ReviewOptions)
     return exitCodes.invalidInput;
   }
   const integerOptions = options.integerOptions ?? {};
-  const known = ['--as-of', ...Object.keys(integerOptions)];
+  const known = ['--as-of', '--model', ...Object.keys(integerOptions)];
   const problems: string[] = [];
   for (const flag of Object.keys(args.options)) {
     if (!known.includes(flag)) problems.push(`${flag}: not an option of ${options.command} (${[...known, '--json'].join(', ')}).`);
@@ -73,11 +74,15 @@ export function reviewCase(args: ParsedArgs, io: CaseIo, options: ReviewOptions)
     if (!Number.isInteger(value) || value < min || value > max) problems.push(`${flag}: "${raw}" is not a whole number in ${min}–${max}.`);
     else computeOptions[key] = value;
   }
+  const model = args.options['--model'];
+  if (model !== undefined && !(projectionModels as readonly string[]).includes(model)) {
+    problems.push(`--model: "${model}" is not a projection model (${projectionModels.join(', ')}; default ${projectionModels[0]}).`);
+  }
   if (problems.length > 0) {
     io.err(problems.join('\n'));
     return exitCodes.invalidInput;
   }
-  const computed = computeCase(loaded.value, asOf, computeOptions as ComputeOptions);
+  const computed = computeCase(loaded.value, asOf, { ...(computeOptions as ComputeOptions), ...(model !== undefined ? { model: model as ProjectionModel } : {}) });
   if (!computed.ok) {
     const asOfFrom = asOfSource(args, loaded.value);
     io.err(formatIssues(computed.issues.map((it) => (it.path[0] === 'asOf' ? { ...it, path: [asOfFrom] } : it))));

@@ -77,9 +77,14 @@ export const assumptionCatalogue = [
     id: 'efficiency-deferiprone',
     label: 'chelation efficiency of deferiprone (share of a dose excreted as iron complex)',
     unit: '1',
-    // about 7 %: Porter's reviews and guideline chapters; from memory (references.md §3).
-    value: 0.07,
-    sourceIds: ['porter-efficiency-memory'],
+    // 5.5 % (was 7 % from memory): Hoffbrand et al., Blood 1998;91:295 (abstract, confirmed) —
+    // deferiprone 75 mg/kg/day, mean urine iron 31.2 mg/24 h (range 16.3–58.2) at stable stores in
+    // adults; at a mean adult weight of about 55 kg (from memory: the abstract gives no weight) that is
+    // 31.2 ÷ (75 × 55 × 55.845 ⁄ (3 × 139.15) mg Fe per g) ≈ 5.7 %, and deferiprone's iron leaves
+    // almost entirely in urine (from memory). 5.5 % gives 0.55 mg/kg/day at 75 mg/kg/day, the abstract's
+    // 31.2 mg/day ÷ 55 kg = 0.57. The 7 % of the reviews would credit 0.70 mg/kg/day.
+    value: 0.055,
+    sourceIds: ['hoffbrand-1998-deferiprone', 'porter-efficiency-memory'],
     alternatives: [],
     min: 0.01,
     max: 0.5,
@@ -122,6 +127,75 @@ export const assumptionCatalogue = [
     ],
     min: 0,
     max: 3,
+  },
+  {
+    id: 'projection-floor-lic-mg-per-g-dry',
+    label: 'projection floor: LIC below which chelation is modelled as removing no more iron',
+    unit: 'mg/g{dry}',
+    // 1.8 mg/g dry, the upper limit of normal liver iron (Olivieri & Brittenham, Blood 1997;89:739;
+    // confirmed). A modelling choice of ours: iron up to normal stores is taken as not chelatable, so the
+    // projected LIC approaches an equilibrium above it instead of crossing zero.
+    value: 1.8,
+    sourceIds: ['olivieri-brittenham-1997', 'projection-model-choice'],
+    alternatives: [{ value: 1.0, label: 'a lower floor (more of the stores chelatable)', sourceIds: ['projection-model-choice'] }],
+    min: 0,
+    max: 7,
+  },
+  {
+    id: 'projection-burden-share',
+    label: 'share of the expected removal that falls in proportion to the chelatable iron (projection shape)',
+    unit: '1',
+    // 1: removal wholly proportional to body iron above the floor (a first-order fall), calibrated so
+    // that today it equals today's expected or measured removal. A modelling choice of ours, checked
+    // against the THALASSA 2-year and the 5-year deferasirox trajectories (tests/core/ledger/
+    // publishedTrajectories.test.ts). 0 is the constant-rate model (removal held until the floor).
+    value: 1,
+    sourceIds: ['projection-model-choice'],
+    alternatives: [
+      { value: 0, label: 'constant-rate model (removal held at today’s rate until the floor)', sourceIds: ['projection-model-choice'] },
+      { value: 0.5, label: 'half proportional, half constant', sourceIds: ['projection-model-choice'] },
+    ],
+    min: 0,
+    max: 1,
+  },
+  {
+    id: 'measured-response-regimen-share',
+    label: 'share of the days between two LIC results on one regimen for the measured response to be used',
+    unit: '1',
+    // 0.9: a modelling choice of ours. A week of overlap between two periods in a year-long interval
+    // (2 %) should not discard the patient's own response; a regimen covering less than 90 % of the
+    // days leaves too much of the change to the other regimen.
+    value: 0.9,
+    sourceIds: ['projection-model-choice'],
+    alternatives: [],
+    min: 0.5,
+    max: 1,
+  },
+  {
+    id: 'lic-measurement-sd-biopsy',
+    label: 'measurement spread of a biopsy LIC (relative standard deviation)',
+    unit: '1',
+    // 0.19: sampling variability of needle-biopsy liver iron (coefficient of variation about 19 %
+    // between cores; from memory — Emond et al., Clin Chem 1999;45:340; Villeneuve et al., J Hepatol 1996).
+    value: 0.19,
+    sourceIds: ['biopsy-variability-memory'],
+    alternatives: [],
+    min: 0,
+    max: 0.6,
+  },
+  {
+    id: 'lic-measurement-sd-mri',
+    label: 'measurement spread of an MRI LIC (relative standard deviation)',
+    unit: '1',
+    // 0.15: liver T2* reproducibility across scanners and field strengths, coefficient of variation 6.6 %
+    // (repeatability 5.5 %; Bachtiar et al., PLoS One 2019;14:e0214921, abstract, confirmed), combined in
+    // quadrature with the scatter of an R2*-to-LIC calibration about its line (about 13 %, from memory):
+    // √(6.6² + 13²) ≈ 15 %. Applied to a report's own LIC too (its method's spread is not stated).
+    value: 0.15,
+    sourceIds: ['bachtiar-2019', 'hernando-2022', 'calibration-scatter-memory'],
+    alternatives: [],
+    min: 0,
+    max: 0.6,
   },
 ] as const satisfies readonly Assumption[];
 

@@ -52,28 +52,6 @@ export function measuredChelationMg(input: {
 }
 
 /**
- * Projected LIC after a number of days at constant daily rates.
- *
- * LIC (mg/g dry) = max(0, stores + days × (intake − removal − basal loss)) ÷ (10.6 × weight)
- *
- * Source: Angelucci et al., N Engl J Med 2000;343:327. Removal is held constant
- * (real chelators remove less as iron falls).
- *
- * @example projectedLic(6283.68, 52, 365, 23.4, 0, 1) ≈ 11.4 + 22.4 × 365 / 551.2
- */
-export function projectedLic(
-  startBodyIronMg: number,
-  weightKg: number,
-  days: number,
-  intakeMgPerDay: number,
-  removalMgPerDay: number,
-  basalLossMgPerDay: number,
-): number {
-  const stores = Math.max(0, startBodyIronMg + days * (intakeMgPerDay - removalMgPerDay - basalLossMgPerDay));
-  return stores / (angelucciSlopeMgPerKgPerMgPerGDry * weightKg);
-}
-
-/**
  * Iron in the red cells transfused and removed over a window.
  *
  * iron in (mg) = Σ volume × unit haematocrit (mL of pure red cells) × iron per mL of pure red cells

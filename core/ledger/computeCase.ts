@@ -1,4 +1,4 @@
-import type { ResolvedAssumption } from '../assumptions';
+import { resolveAssumption, type ResolvedAssumption } from '../assumptions';
 import type { IsoDate } from '../dates/isoDate';
 import type { Case } from '../model/caseFile';
 import { periodsActiveOn } from '../model/periodsActiveOn';
@@ -7,6 +7,8 @@ import { ageOnDate } from '../patient/ageOnDate';
 import { fail, issue, ok, type Result } from '../result';
 import { bodyIronOnDate, type BodyIronSummary } from './bodyIronOnDate';
 import { caseToLedgerInput, type LedgerNotice } from './caseToLedger';
+import { efficiencyBasisOf } from './efficiencyBasis';
+import { projectionModels, type ProjectionModel } from './removalModel';
 import { ferritinSummary, type FerritinSummary } from './ferritinSummary';
 import { intakeSummary, type IntakeSummary } from './intakeSummary';
 import { computeIronAccount, type MonthOfAccount } from './ironAccount';
@@ -26,6 +28,8 @@ export interface ComputeOptions {
   readonly samples?: number;
   /** Ferritin trend window, months before the review date (default 12). */
   readonly ferritinWindowMonths?: number;
+  /** Projection model (default 'burden-dependent'; 'constant-rate' for comparison). */
+  readonly model?: ProjectionModel;
 }
 
 export interface CaseResults {
@@ -70,6 +74,9 @@ export function computeCase(caseFile: Case, asOf: IsoDate, options: ComputeOptio
   if (caseFile.patient.weights.length === 0) {
     return fail(issue('required', ['patient', 'weights'], 'At least one dated weight is needed to compute the iron account (kg, plausible 2–200).'));
   }
+  if (options.model !== undefined && !projectionModels.includes(options.model)) {
+    return fail(issue('unknown_choice', ['model'], `Projection model "${options.model}" is not one of ${projectionModels.join(', ')}.`));
+  }
   if (!Number.isInteger(horizonMonths) || horizonMonths < 1 || horizonMonths > 120) {
     return fail(issue('out_of_range', ['horizonMonths'], `Projection horizon ${horizonMonths} months is outside 1–120 months.`));
   }
@@ -83,25 +90,33 @@ export function computeCase(caseFile: Case, asOf: IsoDate, options: ComputeOptio
 
   const intake = intakeSummary(context);
   if (!intake.ok) return intake;
-  const bodyIron = bodyIronOnDate(context);
+  const responseRun = responseSummaries(context);
+  if (!responseRun.ok) return responseRun;
+  const responses = responseRun.value;
+  const lastResponse = responses[responses.length - 1];
+  const basis = efficiencyBasisOf(context, responses);
+  const bodyIron = bodyIronOnDate(context, basis, { seed, samples });
   const currentRegimens: RegimenSummary[] = [];
   for (const period of periodsActiveOn(caseFile.chelationPeriods, asOf)) {
     const regimen = regimenSummary(period, weightKg, context.overrides);
     if (!regimen.ok) return regimen;
     currentRegimens.push(regimen.value);
   }
-  const responseRun = responseSummaries(context);
-  if (!responseRun.ok) return responseRun;
-  const responses = responseRun.value;
-  const lastResponse = responses[responses.length - 1];
   const ferritin = ferritinSummary(context, options.ferritinWindowMonths ?? 12, lastResponse);
-  const projectionRun = projectionSummary(context, intake.value.intake, bodyIron.bodyIron, lastResponse, { horizonMonths, seed, samples });
+  const ageYears = ageOnDate(caseFile.patient.age, asOf);
+  const model = options.model ?? 'burden-dependent';
+  const projectionRun = projectionSummary(context, intake.value.intake, bodyIron.bodyIron, basis, ageYears, { horizonMonths, seed, samples, model });
   if (!projectionRun.ok) return projectionRun;
   const projection = projectionRun.value;
+  // The projection's and the basis' own assumptions, listed with the conversion's.
+  const modelAssumptionIds = [
+    'measured-response-regimen-share',
+    ...(bodyIron.bodyIron.lastMeasured ? ['projection-floor-lic-mg-per-g-dry', 'projection-burden-share', bodyIron.bodyIron.lastMeasured.method === 'biopsy' ? 'lic-measurement-sd-biopsy' : 'lic-measurement-sd-mri'] : []),
+  ];
 
   return ok({
     asOf,
-    patient: { label: caseFile.patient.label, ageYears: ageOnDate(caseFile.patient.age, asOf), weightKg, diagnosisGroup: caseFile.patient.diagnosisGroup },
+    patient: { label: caseFile.patient.label, ageYears, weightKg, diagnosisGroup: caseFile.patient.diagnosisGroup },
     intake: intake.value.intake,
     months: account.months,
     bodyIron: bodyIron.bodyIron,
@@ -110,6 +125,6 @@ export function computeCase(caseFile: Case, asOf: IsoDate, options: ComputeOptio
     ferritin: ferritin.ferritin,
     projection: projection.projection,
     notices: [...normalised.notices, ...intake.value.notices, ...bodyIron.notices, ...ferritin.notices, ...projection.notices],
-    assumptions: normalised.assumptions,
+    assumptions: [...normalised.assumptions, ...modelAssumptionIds.map((id) => resolveAssumption(id, context.overrides))],
   });
 }

@@ -1,7 +1,10 @@
 import { inputRange, liverIronBounds, weightBounds } from '../ranges';
 import { defineFormula, type AnyFormula } from '../formulas/types';
 import { ironPerMlRedCellsInput } from '../iron/formulas';
-import { carriedForwardStores, measuredChelationMg, netIronBalanceMg, netTransfusionalIron, projectedLic } from './balance';
+import { angelucciSlopeMgPerKgPerMgPerGDry } from '../iron/bodyIron';
+import { daysPerYear } from '../units/time';
+import { carriedForwardStores, measuredChelationMg, netIronBalanceMg, netTransfusionalIron } from './balance';
+import { calibrationExcessMg, storesAfterDays } from './removalModel';
 
 const lic = (label: string) =>
   ({ kind: 'number', label, ...inputRange(liverIronBounds['mg/g{dry}']), meaning: `${label}, mg Fe per g dry liver` }) as const;
@@ -112,24 +115,52 @@ export const measuredChelation = defineFormula({
 
 export const projectedLicFormula = defineFormula({
   id: 'projected-lic',
-  title: 'Projected LIC at constant rates',
-  expression: 'LIC (mg/g dry) = max(0, stores + days × (intake − removal − basal loss)) ÷ (10.6 × weight)',
-  sourceIds: ['angelucci-2000'],
-  notes: ['Removal is held constant; real chelators remove less as iron falls, so projections far below LIC 3 overstate the fall. Weight is held at its latest value.'],
+  title: 'Projected LIC: removal that falls as the chelatable iron falls (or held at today’s rate)',
+  expression:
+    'excess E = stores − floor LIC × 10.6 × weight; removal = R₀ × [(1 − s) + s × E ÷ E_cal]; dE/dt = intake − basal loss − removal (closed form); at the floor nothing more is removed; LIC = stores ÷ (10.6 × weight)',
+  sourceIds: ['angelucci-2000', 'olivieri-brittenham-1997', 'projection-model-choice'],
+  notes: [
+    'Burden-dependent model (default): s = 1, removal proportional to the iron above the floor, calibrated so that on the review date it equals the expected (or measured) removal R₀; the LIC approaches an equilibrium instead of crossing zero.',
+    'Constant-rate model (--model constant-rate): s = 0, today’s removal held until the floor.',
+    'Under 18 the weight follows the patient’s own recent trend (bounded) until age 18; otherwise it is held.',
+  ],
   inputs: {
     startBodyIronMg: { kind: 'number', label: 'body iron stores at the review date', unit: 'mg', min: 0, max: 100000, meaning: 'estimated stores at the start' },
-    weightKg: weight('weight'),
+    weightKg: weight('weight at the review date'),
+    weightGainKgPerYear: { kind: 'number', label: 'weight gain while growing', unit: 'kg/a', min: 0, max: 10, meaning: 'the patient’s own recent trend, bounded; 0 for an adult' },
+    growthDays: { kind: 'number', label: 'days the weight gain applies', unit: 'd', min: 0, max: 7000, meaning: 'days until age 18 (0 for an adult)' },
     days: { kind: 'number', label: 'days ahead', unit: 'd', min: 0, max: 3660, meaning: 'days from the review date' },
     intakeMgPerDay: { kind: 'number', label: 'future intake', unit: 'mg/d', min: -500, max: 500, meaning: 'transfusional iron net of blood removed, per day' },
-    removalMgPerDay: { kind: 'number', label: 'chelation removal', unit: 'mg/d', min: 0, max: 500, meaning: 'expected removal of the regimen, per day' },
+    removalMgPerDay: { kind: 'number', label: 'chelation removal on the review date', unit: 'mg/d', min: 0, max: 500, meaning: 'expected (or measured) removal of the regimen, per day: the calibration point' },
     basalLossMgPerDay: { kind: 'number', label: 'basal loss', unit: 'mg/d', min: 0, max: 3, assumption: 'basal-iron-loss-mg-per-day', meaning: 'basal iron loss per day' },
+    floorLicMgPerGDry: { kind: 'number', label: 'projection floor', unit: 'mg/g{dry}', min: 0, max: 7, assumption: 'projection-floor-lic-mg-per-g-dry', meaning: 'LIC at or below which no more iron is removed' },
+    burdenShare: { kind: 'number', label: 'burden-proportional share of removal', unit: '1', min: 0, max: 1, assumption: 'projection-burden-share', meaning: '1 burden-dependent, 0 constant-rate' },
   },
   outputs: {
     licMgPerGDry: { label: 'projected LIC', unit: 'mg/g{dry}', meaning: 'central projection', decimals: 1 },
+    equilibriumLicMgPerGDry: { label: 'equilibrium LIC of the model', unit: 'mg/g{dry}', meaning: 'where the burden-dependent projection levels off at constant weight (0 when the model has no equilibrium above the floor)', decimals: 1 },
   },
-  compute: (inputs) => ({
-    licMgPerGDry: projectedLic(inputs.startBodyIronMg, inputs.weightKg, inputs.days, inputs.intakeMgPerDay, inputs.removalMgPerDay, inputs.basalLossMgPerDay),
-  }),
+  compute: (inputs) => {
+    const model = {
+      startStoresMg: inputs.startBodyIronMg,
+      startWeightKg: inputs.weightKg,
+      weightGainKgPerDay: inputs.weightGainKgPerYear / daysPerYear,
+      growthDays: inputs.growthDays,
+      netInflowMgPerDay: inputs.intakeMgPerDay - inputs.basalLossMgPerDay,
+      removalAtStartMgPerDay: inputs.removalMgPerDay,
+      floorLicMgPerGDry: inputs.floorLicMgPerGDry,
+      burdenShare: inputs.burdenShare,
+      calibrationExcessMg: calibrationExcessMg(inputs.startBodyIronMg, inputs.weightKg, inputs.floorLicMgPerGDry),
+    };
+    const stores = storesAfterDays(model, inputs.days);
+    const storesPerLic = angelucciSlopeMgPerKgPerMgPerGDry * inputs.weightKg;
+    const rate = (model.burdenShare * model.removalAtStartMgPerDay) / model.calibrationExcessMg;
+    const drive = model.netInflowMgPerDay - (1 - model.burdenShare) * model.removalAtStartMgPerDay;
+    return {
+      licMgPerGDry: stores.storesMg / (angelucciSlopeMgPerKgPerMgPerGDry * stores.weightKg),
+      equilibriumLicMgPerGDry: rate > 0 ? Math.max(inputs.floorLicMgPerGDry, inputs.floorLicMgPerGDry + drive / rate / storesPerLic) : 0,
+    };
+  },
 });
 
 /** Ledger formulas, in the order `calc --list` shows them. */

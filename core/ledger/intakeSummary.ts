@@ -21,6 +21,8 @@ export interface IntakeSummary {
   readonly windowDays: number;
   readonly transfusedMg: number;
   readonly removedWithBloodMg: number;
+  /** Exchanges and venesections in the window (records that took iron out with blood). Added for the per-procedure figure. */
+  readonly removalProcedures: number;
   readonly netMg: number;
   readonly mgPerKgPerDay: number;
   readonly band: string;
@@ -74,6 +76,7 @@ export function intakeSummary(context: ReviewContext): Result<{ readonly intake:
       windowDays,
       transfusedMg,
       removedWithBloodMg,
+      removalProcedures: context.normalised.input.movements.filter((it) => it.date >= windowFrom && it.date <= asOf && it.ironOutMg > 0).length,
       netMg,
       mgPerKgPerDay: intakeRun.value.outputs.intakeMgPerKgPerDay,
       band: intakeBand(intakeRun.value.outputs.intakeMgPerKgPerDay as MgPerKgPerDay).label,

@@ -37,6 +37,14 @@ export interface MeasuredResponse {
   readonly measuredToExpectedRatio: number | null;
   readonly caveats: readonly ResponseCaveat[];
   readonly caveatText: readonly string[];
+  /**
+   * The regimen (the set of chelation periods on record together) that ran on
+   * most days of the interval, its share of the days, and the other regimens
+   * with their days. Added for the one-basis rule: the response is usable when
+   * the dominant regimen covers at least the stated share.
+   */
+  readonly dominantRegimen: { readonly periodIds: readonly string[]; readonly drugs: readonly string[]; readonly share: number };
+  readonly mixedRegimens: readonly { readonly label: string; readonly days: number }[];
 }
 
 /**
@@ -58,6 +66,7 @@ export function measuredResponses(
   account: IronAccount,
   measurements: readonly LicMeasurement[],
   chelation: readonly ChelationSpan[],
+  regimenShare = 0.9,
 ): MeasuredResponse[] {
   const sorted = [...measurements].sort((a, b) => a.date.localeCompare(b.date));
   const responses: MeasuredResponse[] = [];
@@ -95,12 +104,12 @@ export function measuredResponses(
       caveats.push('method-changed');
       caveatText.push(`The two LIC results come from different methods (${from.method}; ${to.method}): part of the change may be the method.`);
     }
-    const changed = chelation.filter(
-      (span) => (span.start > from.date && span.start <= to.date) || (span.end !== null && span.end >= from.date && span.end < to.date),
-    );
-    if (changed.length > 0) {
+    const coverage = regimenCoverage(chelation, from.date, to.date, days);
+    if (coverage.dominant.share < regimenShare) {
       caveats.push('regimen-changed');
-      caveatText.push(`The regimen changed inside the interval (${changed.map((it) => it.label).join('; ')}): the measured removal mixes regimens.`);
+      caveatText.push(
+        `No one regimen ran on ${Math.round(regimenShare * 100)} % of the interval's days (the most common covered ${Math.round(coverage.dominant.share * 100)} %; ${coverage.mixed.map((it) => `${it.label}: ${it.days} days`).join('; ')}): the measured removal mixes regimens.`,
+      );
     }
     if (expectedChelationMg <= 0) {
       caveats.push('no-chelation');
@@ -124,7 +133,37 @@ export function measuredResponses(
       measuredToExpectedRatio: expectedChelationMg > 0 ? measuredChelationMg / expectedChelationMg : null,
       caveats,
       caveatText,
+      dominantRegimen: coverage.dominant,
+      mixedRegimens: coverage.mixed,
     });
   }
   return responses;
+}
+
+/**
+ * Days of the interval (after `fromDate` up to `toDate`) on each regimen — the
+ * set of spans on record together that day (end dates inclusive) — and the
+ * regimen with the most days.
+ */
+function regimenCoverage(chelation: readonly ChelationSpan[], fromDate: IsoDate, toDate: IsoDate, days: number) {
+  const inWindow = chelation.filter((span) => span.start <= toDate && (span.end === null || span.end > fromDate));
+  const counts = new Map<string, { spans: ChelationSpan[]; days: number }>();
+  const fromEpoch = daysBetween('1970-01-01', fromDate);
+  const starts = inWindow.map((span) => daysBetween('1970-01-01', span.start));
+  const ends = inWindow.map((span) => (span.end === null ? Number.POSITIVE_INFINITY : daysBetween('1970-01-01', span.end)));
+  for (let offset = 1; offset <= days; offset += 1) {
+    const day = fromEpoch + offset;
+    const active = inWindow.filter((_, index) => starts[index]! <= day && day <= ends[index]!);
+    const key = active.map((span) => span.id).join('+');
+    const entry = counts.get(key) ?? { spans: active, days: 0 };
+    entry.days += 1;
+    counts.set(key, entry);
+  }
+  const ranked = [...counts.values()].sort((a, b) => b.days - a.days);
+  const top = ranked[0] ?? { spans: [], days: 0 };
+  const labelOf = (spans: readonly ChelationSpan[]) => (spans.length === 0 ? 'no chelation' : spans.map((span) => span.label).join(' + '));
+  return {
+    dominant: { periodIds: top.spans.map((span) => span.id), drugs: [...new Set(top.spans.map((span) => span.drug))], share: days > 0 ? top.days / days : 1 },
+    mixed: ranked.slice(1).map((entry) => ({ label: labelOf(entry.spans), days: entry.days })),
+  };
 }

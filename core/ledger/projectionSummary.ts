@@ -10,10 +10,17 @@ import { projectedLicFormula } from './formulas';
 import type { IntakeSummary } from './intakeSummary';
 import type { BodyIronSummary } from './bodyIronOnDate';
 import { projectScenarios, type ScenarioProjection } from './projection';
-import type { ResponseSummary } from './responseSummary';
+import { basisScaleOf, type EfficiencyBasis } from './efficiencyBasis';
+import { growthTrendOf, type GrowthTrend } from './growthTrend';
+import type { ProjectionModel } from './removalModel';
 import { assumptionUse, efficiencyUsesOf, periodsBetween, type ReviewContext } from './reviewContext';
 
 export interface ProjectionSummary {
+  /** Added with the burden-dependent model: the model, its floor, the efficiency basis and the growth rule, each stated once. */
+  readonly model: ProjectionModel;
+  readonly floorLicMgPerGDry: number;
+  readonly basis: EfficiencyBasis;
+  readonly growth: GrowthTrend;
   readonly horizonMonths: number;
   readonly seed: number;
   readonly samples: number;
@@ -25,6 +32,7 @@ export interface ProjectionOptions {
   readonly horizonMonths: number;
   readonly seed: number;
   readonly samples: number;
+  readonly model: ProjectionModel;
 }
 
 /**
@@ -39,7 +47,8 @@ export function projectionSummary(
   context: ReviewContext,
   intake: IntakeSummary,
   bodyIron: BodyIronSummary,
-  lastResponse: ResponseSummary | undefined,
+  basis: EfficiencyBasis,
+  ageYears: number | null,
   options: ProjectionOptions,
 ): Result<{ readonly projection: ProjectionSummary | null; readonly notices: readonly LedgerNotice[] }> {
   if (bodyIron.bodyIronMg === null) return ok({ projection: null, notices: [] });
@@ -49,13 +58,9 @@ export function projectionSummary(
   const intakeMgPerDay = intake.netMg / intake.windowDays;
   const basal = resolveAssumption('basal-iron-loss-mg-per-day', overrides);
   const currentPeriods = periodsActiveOn(caseFile.chelationPeriods, asOf);
-  const usableResponse = lastResponse && lastResponse.caveats.length === 0 && lastResponse.measuredToExpectedRatio !== null ? lastResponse : undefined;
-  // The measured ÷ expected ratio belongs to the drugs of the regimen it was measured on;
-  // a scenario's periods of those drugs are scaled by it (it reflects adherence and this
-  // patient's response), other drugs use the published efficiency.
-  const measuredDrugs = new Set(usableResponse ? periodsBetween(context, usableResponse.fromDate, usableResponse.toDate).map((period) => period.drug) : []);
-  const measuredRatio = usableResponse ? Math.max(0, usableResponse.measuredToExpectedRatio!) : 1;
-  const scaleOf = (period: ChelationPeriod) => (measuredDrugs.has(period.drug) ? measuredRatio : 1);
+  const measuredDrugs = new Set(basis.drugs);
+  const scaleOf = (period: ChelationPeriod) => basisScaleOf(basis, period.drug);
+  const measuredRatio = basis.ratio;
   const filmCoatedFactor = resolveAssumption('deferasirox-film-coated-factor', overrides).value;
   const removalOf = (periods: readonly ChelationPeriod[]) => (weight: number) =>
     periods.reduce(
@@ -76,12 +81,11 @@ export function projectionSummary(
     },
     ...caseFile.proposedRegimens.map((regimen) => ({ id: regimen.id, name: regimen.name, periods: regimen.periods })),
   ].map(({ id, name, periods }) => ({ id, name, removalMgPerDay: removalOf(periods), efficiencyBasis: basisOf(periods), efficiencyScale: 1 }));
-  if (usableResponse && measuredDrugs.size > 0) {
-    notices.push({
-      severity: 'information',
-      text: `Projections scale ${[...measuredDrugs].join(' and ')} by the removal measured between the LIC results of ${usableResponse.fromDate} and ${usableResponse.toDate} (${Math.round(measuredRatio * 100)} % of the published expectation, whether from dose response or adherence); other drugs use the published efficiencies.`,
-    });
-  }
+  const floor = resolveAssumption('projection-floor-lic-mg-per-g-dry', overrides);
+  const share = resolveAssumption('projection-burden-share', overrides);
+  const burdenShare = options.model === 'constant-rate' ? 0 : share.value;
+  const growth = growthTrendOf(context.normalised.input.weights, asOf, ageYears);
+  if (growth.gainKgPerYear > 0 || growth.growthDays > 0) notices.push({ severity: 'information', text: growth.statement });
   const startBodyIronMg = Math.max(0, bodyIron.bodyIronMg);
   const projected = projectScenarios({
     asOf,
@@ -93,10 +97,20 @@ export function projectionSummary(
     seed,
     samples,
     scenarios,
+    model: options.model,
+    floorLicMgPerGDry: floor.value,
+    burdenShare,
+    weightGainKgPerYear: growth.gainKgPerYear,
+    growthDays: growth.growthDays,
+    ...(bodyIron.anchorStoresMg !== null && bodyIron.anchorRelativeSd !== null ? { anchorStoresMg: bodyIron.anchorStoresMg, anchorRelativeSd: bodyIron.anchorRelativeSd } : {}),
   });
   const milestoneMonths = [6, 12, 24, horizonMonths].filter((months, index, all) => months <= horizonMonths && all.indexOf(months) === index);
   const issues: Issue[] = [];
   const projection: ProjectionSummary = {
+      model: options.model,
+      floorLicMgPerGDry: floor.value,
+      basis,
+      growth,
       horizonMonths,
       seed,
       samples,
@@ -114,11 +128,19 @@ export function projectionSummary(
               days: daysBetween(asOf, point.date),
               intakeMgPerDay: Math.max(-500, intakeMgPerDay),
               removalMgPerDay: scenario.removalMgPerDay,
+              weightGainKgPerYear: growth.gainKgPerYear,
+              growthDays: growth.growthDays,
+              ...(options.model === 'constant-rate' ? { burdenShare: 0 } : {}),
             },
             {
               overrides,
               origins: {
                 startBodyIronMg: { kind: 'computed', derivation: bodyIron.derivation! },
+                weightGainKgPerYear: { kind: 'record', description: growth.statement, refs: [] },
+                growthDays: { kind: 'record', description: growth.growthDays > 0 ? 'days from the review date to age 18' : 'adult: no growth', refs: [] },
+                ...(options.model === 'constant-rate'
+                  ? { burdenShare: { kind: 'record' as const, description: 'constant-rate model chosen (--model constant-rate): removal held at today’s rate until the floor', refs: [] } }
+                  : {}),
                 intakeMgPerDay: {
                   kind: 'record',
                   description: `net transfusional iron ${intake.windowFrom} to ${asOf} ÷ ${intake.windowDays} days`,
@@ -129,8 +151,8 @@ export function projectionSummary(
                   kind: 'record',
                   description:
                     scenario.efficiencyBasis === 'measured'
-                      ? `expected removal of ${scenario.name}, ${[...measuredDrugs].join(' and ')} × measured ÷ expected ${measuredRatio.toFixed(2)}`
-                      : `expected removal of ${scenario.name} at the published efficiencies`,
+                      ? `${options.model} model calibrated on the removal of ${scenario.name} on the review date: ${[...measuredDrugs].join(' and ')} × measured ÷ expected ${measuredRatio.toFixed(2)}`
+                      : `${options.model} model calibrated on the removal of ${scenario.name} on the review date at the published efficiencies`,
                   refs: periods.map((period) => period.id),
                   assumptions: efficiencyUsesOf(periods, overrides),
                 },

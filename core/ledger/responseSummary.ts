@@ -30,7 +30,8 @@ export function responseSummaries(context: ReviewContext): Result<ResponseSummar
   const { account, normalised, overrides } = context;
   const basalAssumption = assumptionUse(resolveAssumption('basal-iron-loss-mg-per-day', overrides));
   const issues: Issue[] = [];
-  const summaries = measuredResponses(account, normalised.input.licMeasurements, normalised.input.chelation).flatMap((response) => {
+  const regimenShare = resolveAssumption('measured-response-regimen-share', overrides).value;
+  const summaries = measuredResponses(account, normalised.input.licMeasurements, normalised.input.chelation, regimenShare).flatMap((response) => {
     const fromIndex = dayIndexOf(context, response.fromDate);
     const toIndex = dayIndexOf(context, response.toDate);
     const intervalIron = transfusionalIronBetween(context, response.fromDate, response.toDate);

@@ -3,6 +3,7 @@ import { chemistrySources } from './chemistry';
 import { coursesSources } from './courses';
 import { dosingSources } from './dosing';
 import { ironSources } from './iron';
+import { ledgerSources } from './ledger';
 import { patientSources } from './patient';
 import { safetySources } from './safety';
 import type { Source } from './source';
@@ -20,6 +21,7 @@ export const sourceCatalogue: readonly Source[] = [
   ...dosingSources,
   ...safetySources,
   ...coursesSources,
+  ...ledgerSources,
 ];
 
 const byId = new Map<string, Source>();

@@ -157,7 +157,8 @@ export const positiveBalanceRule = defineRule({
     const results = context.results;
     const current = results.projection?.scenarios.find((scenario) => scenario.id === 'current');
     if (current) {
-      if (!(current.netMgPerKgPerDay > 0)) return [];
+      // A net within rounding of zero (shown to 2 decimals) is not a finding.
+      if (!(current.netMgPerKgPerDay >= 0.005)) return [];
       const milestone = current.milestones[0];
       return [
         {
@@ -171,13 +172,15 @@ export const positiveBalanceRule = defineRule({
       ];
     }
     // No liver iron, so no projection: compare the trailing-year intake with the regimens' expected removal.
+    // Net of basal loss, as the projection is (basal loss about 1 mg/day, assumption basal-iron-loss-mg-per-day).
     const removal = results.currentRegimens.reduce((sum, regimen) => sum + regimen.expectedRemovalMgPerKgPerDay, 0);
-    const net = results.intake.mgPerKgPerDay - removal;
-    if (!(net > 0)) return [];
+    const basalMgPerKgPerDay = (results.assumptions.find((it) => it.id === 'basal-iron-loss-mg-per-day')?.value ?? 1) / results.patient.weightKg;
+    const net = results.intake.mgPerKgPerDay - removal - basalMgPerKgPerDay;
+    if (!(net >= 0.005)) return [];
     return [
       {
         severity: 'review',
-        text: `At the current regimen${results.currentRegimens.length === 0 ? ' (no chelation)' : ''} intake exceeds the expected removal by ${shown(net, 2)} mg/kg/day (trailing-year intake ${shown(results.intake.mgPerKgPerDay, 2)} mg/kg/day; no liver iron on record, so no projection); ${forPrescriberReview}.`,
+        text: `At the current regimen${results.currentRegimens.length === 0 ? ' (no chelation)' : ''} intake exceeds the expected removal by ${shown(net, 2)} mg/kg/day (trailing-year intake ${shown(results.intake.mgPerKgPerDay, 2)} mg/kg/day, net of basal loss; no liver iron on record, so no projection); ${forPrescriberReview}.`,
         triggers: [{ name: 'trailing-year intake', value: results.intake.mgPerKgPerDay, unit: 'mg/kg/d', date: results.asOf, ref: null, derivation: results.intake.derivation }],
       },
     ];

@@ -54,8 +54,8 @@ describe('projections', () => {
     expect(otherSeed[1]!.months[24]!.licP90).not.toBe(low!.months[24]!.licP90);
   });
 
-  it('reports the month the central projection crosses 7 mg/g dry', () => {
-    const [, , high] = projectScenarios(input);
+  it('reports the month the central projection crosses 7 mg/g dry (constant-rate model: hand arithmetic)', () => {
+    const [, , high] = projectScenarios({ ...input, model: 'constant-rate' });
     // net = (0.45 − 0.6) × 52 − 1 = −8.8 mg/day; from 11.4 to 7 needs 4.4 × 551.2 / 8.8 = 275.6 days → month 10.
     const seven = high!.crossings.find((it) => it.thresholdMgPerGDry === 7)!;
     expect(seven.direction).toBe('falls below');
