@@ -147,19 +147,25 @@ export function measuredResponses(
  */
 function regimenCoverage(chelation: readonly ChelationSpan[], fromDate: IsoDate, toDate: IsoDate, days: number) {
   const inWindow = chelation.filter((span) => span.start <= toDate && (span.end === null || span.end > fromDate));
-  const counts = new Map<string, { spans: ChelationSpan[]; days: number }>();
-  const fromEpoch = daysBetween('1970-01-01', fromDate);
-  const starts = inWindow.map((span) => daysBetween('1970-01-01', span.start));
-  const ends = inWindow.map((span) => (span.end === null ? Number.POSITIVE_INFINITY : daysBetween('1970-01-01', span.end)));
+  // Day offsets of each span relative to fromDate; a regimen is the set of spans on a day, keyed by their indices.
+  const starts = inWindow.map((span) => daysBetween(fromDate, span.start));
+  const ends = inWindow.map((span) => (span.end === null ? Number.POSITIVE_INFINITY : daysBetween(fromDate, span.end)));
+  const counts = new Map<string, number>();
+  let key = '';
+  let run = 0;
   for (let offset = 1; offset <= days; offset += 1) {
-    const day = fromEpoch + offset;
-    const active = inWindow.filter((_, index) => starts[index]! <= day && day <= ends[index]!);
-    const key = active.map((span) => span.id).join('+');
-    const entry = counts.get(key) ?? { spans: active, days: 0 };
-    entry.days += 1;
-    counts.set(key, entry);
+    let dayKey = '';
+    for (let index = 0; index < inWindow.length; index += 1) if (starts[index]! <= offset && offset <= ends[index]!) dayKey += `${index},`;
+    if (dayKey !== key) {
+      if (run > 0) counts.set(key, (counts.get(key) ?? 0) + run);
+      key = dayKey;
+      run = 0;
+    }
+    run += 1;
   }
-  const ranked = [...counts.values()].sort((a, b) => b.days - a.days);
+  if (run > 0) counts.set(key, (counts.get(key) ?? 0) + run);
+  const spansOf = (regimenKey: string) => regimenKey.split(',').filter((it) => it !== '').map((it) => inWindow[Number(it)]!);
+  const ranked = [...counts.entries()].sort((a, b) => b[1] - a[1]).map(([regimenKey, count]) => ({ spans: spansOf(regimenKey), days: count }));
   const top = ranked[0] ?? { spans: [], days: 0 };
   const labelOf = (spans: readonly ChelationSpan[]) => (spans.length === 0 ? 'no chelation' : spans.map((span) => span.label).join(' + '));
   return {
