@@ -12,7 +12,7 @@ export const ledgerSources = [
     publication: '—',
     year: null,
     status: 'common-practice',
-    note: 'Stated as assumptions with their reasoning in core/assumptions; overridable with a recorded reason.',
+    note: 'Stated with its reasoning beside each assumption it sets; overridable with a recorded reason.',
   },
   {
     id: 'hoffbrand-1998-deferiprone',
