@@ -91,7 +91,7 @@ function visit(container, key, value, out) {
 }
 
 // Values the case model must refuse wherever a number or a date stands.
-const badNumbers = [-1, -0.5, -1e6, '52', 'abc', true, 1e309 /* JSON: Infinity is not valid, stringified as null */];
+const badNumbers = [-1, -0.5, -1e6, '52', 'abc', true];
 const badDates = ['2023-02-29', '2026-13-01', '2026-1-1', '0219-05-01', '3019-01-01', '2026-01-01garbage', '', 20260101];
 // Values inside the model's possible ranges but far from usual (valid: a review or a clear message, never a trace).
 const edgeNumbers = [0, 1e-9, 1e-320, 0.000001, 399.9, 1999, 9999, 19999];

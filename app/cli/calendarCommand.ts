@@ -2,7 +2,7 @@ import { isIsoDate } from '../../core/dates/isoDate';
 import { parseDecimal } from '../../core/numbers/parseDecimal';
 import { monitoringCalendar, type MonitoringCalendar, type MonitoringItem } from '../../core/monitoring';
 import { formatIssues, type Result } from '../../core/result';
-import { itemSources, monitoringIcs, writeCalendarFile } from '../host/icalendar';
+import { itemSources, monitoringIcs, writeCalendarOutput } from '../host/icalendar';
 import { splitOutput, type ParsedArgs } from './args';
 import { asOfSource, type CaseIo } from './caseReview';
 import { decisionSupportCaution } from './format';
@@ -12,7 +12,7 @@ import { exitCodes } from './io';
 export interface CalendarHostIo {
   /** The instant of writing (the host's clock; core never reads it). */
   readonly now: () => Date;
-  readonly writeCalendar: (path: string, text: string, options: { readonly overwrite: boolean }) => Result<void>;
+  readonly writeCalendar: (path: string, text: string, options: { readonly overwrite: boolean; readonly inputs?: readonly string[] }) => Promise<Result<void>>;
 }
 
 export const calendarUsage = `Usage:
@@ -58,7 +58,7 @@ export function formatMonitoringCalendar(calendar: MonitoringCalendar): string {
  * `calendar <case.json> [--as-of DATE] [--anc-interval-days N] [-o due.ics] [--force] [--json]`:
  * print the monitoring due, and with -o write it as an iCalendar file.
  */
-export function calendarCommand(args: ParsedArgs, io: CaseIo & Partial<CalendarHostIo>): number {
+export async function calendarCommand(args: ParsedArgs, io: CaseIo & Partial<CalendarHostIo>): Promise<number> {
   const problems: string[] = [];
   const { rest, output: shortOutput } = splitOutput(args.positionals, problems);
   const path = rest[0];
@@ -93,8 +93,8 @@ export function calendarCommand(args: ParsedArgs, io: CaseIo & Partial<CalendarH
   }
   if (output !== undefined) {
     const now = io.now ?? (() => new Date()); // the host's clock: DTSTAMP only
-    const write = io.writeCalendar ?? writeCalendarFile;
-    const written = write(output, monitoringIcs(calendar.value, now()), { overwrite: args.switches.has('--force') });
+    const write = io.writeCalendar ?? writeCalendarOutput;
+    const written = await write(output, monitoringIcs(calendar.value, now()), { overwrite: args.switches.has('--force'), inputs: [path] });
     if (!written.ok) {
       io.err(formatIssues(written.issues));
       return exitCodes.invalidInput;

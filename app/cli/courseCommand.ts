@@ -23,7 +23,7 @@ import { writeFileAtomic } from '../host/atomicWrite';
 import { courseIcs } from '../host/courseCalendar';
 import type { SheetPdfOptions } from '../host/sheetPdf';
 import { toolVersion } from '../host/toolVersion';
-import { writeCalendarFile } from '../host/icalendar';
+import { writeCalendarOutput } from '../host/icalendar';
 import { parseArgs, splitOutput } from './args';
 import { formatNumber } from './format';
 import { exitCodes, type CliIo } from './io';
@@ -49,7 +49,7 @@ For review by the prescriber and a toxicologist; follow local protocols.`;
 export interface CourseHostIo {
   readonly now?: () => Date;
   readonly timeZone?: () => string;
-  readonly writeCalendar?: (path: string, text: string, options: { readonly overwrite: boolean }) => Result<void>;
+  readonly writeCalendar?: (path: string, text: string, options: { readonly overwrite: boolean; readonly inputs?: readonly string[] }) => Promise<Result<void>>;
   /** The sheet's PDF writer and an atomic file writer (the sheet command's services). */
   readonly renderSheet?: (sheet: Sheet, options: SheetPdfOptions) => Promise<Buffer>;
   readonly writeSheet?: (path: string, bytes: Uint8Array, options: { readonly overwrite: boolean }) => Promise<Result<void>>;
@@ -365,8 +365,8 @@ export async function courseCommand(argv: readonly string[], io: CliIo & CourseH
   const label = args.options['--label'];
   if (output !== undefined) {
     const now = io.now ?? (() => new Date()); // the host's clock: DTSTAMP only
-    const write = io.writeCalendar ?? writeCalendarFile;
-    const written = write(output, courseIcs(plan.value, label ?? 'course', now()), { overwrite: args.switches.has('--force') });
+    const write = io.writeCalendar ?? writeCalendarOutput;
+    const written = await write(output, courseIcs(plan.value, label ?? 'course', now()), { overwrite: args.switches.has('--force') });
     if (!written.ok) {
       io.err(formatIssues(written.issues));
       return exitCodes.invalidInput;

@@ -1,4 +1,4 @@
-import { writeCalendarFile } from '../host/icalendar';
+import { writeCalendarOutput } from '../host/icalendar';
 import { readCaseFile } from '../host/caseFiles';
 import { homedir } from 'node:os';
 import { join } from 'node:path';
@@ -21,7 +21,7 @@ const io: CliHostIo = {
     return `${now.getFullYear()}-${String(now.getMonth() + 1).padStart(2, '0')}-${String(now.getDate()).padStart(2, '0')}`;
   },
   now: () => new Date(),
-  writeCalendar: writeCalendarFile,
+  writeCalendar: writeCalendarOutput,
   startPreview: (options) => {
     // dist/cli.cjs sits in <app folder>/dist.
     const appFolder = join(__dirname, '..');

@@ -1,5 +1,7 @@
 import { createHash } from 'node:crypto';
-import { writeFileSync } from 'node:fs';
+import { realpathSync, statSync, writeFileSync } from 'node:fs';
+import { resolve } from 'node:path';
+import { writeFileAtomic } from './atomicWrite';
 import { addDaysIso, type IsoDate } from '../../core/dates';
 import type { MonitoringCalendar, MonitoringItem } from '../../core/monitoring';
 import { citeShort, findSource } from '../../core/references';
@@ -196,11 +198,7 @@ export function monitoringIcs(calendar: MonitoringCalendar, dtStamp: Date): stri
   return writeIcs({ name: `Monitoring ${calendar.caseLabel} (as of ${calendar.asOf})`, events: monitoringEvents(calendar), dtStamp });
 }
 
-/**
- * Write the .ics text to a file. An existing file is refused unless
- * `overwrite` is set: the exclusive create ('wx') makes the check and the
- * write one step, so nothing is lost to a race.
- */
+/** Write an iCalendar file directly (the host's export folder, which picks a free name first). */
 export function writeCalendarFile(path: string, text: string, options: { readonly overwrite: boolean }): Result<void> {
   try {
     writeFileSync(path, text, { encoding: 'utf8', flag: options.overwrite ? 'w' : 'wx' });
@@ -212,4 +210,50 @@ export function writeCalendarFile(path: string, text: string, options: { readonl
     }
     return fail(issue('invalid_file', ['output'], `Cannot write ${path}: ${(error as Error).message}.`));
   }
+}
+
+/** The same file on disk, following links; a path that does not exist yet is compared as written. */
+function sameFile(first: string, second: string): boolean {
+  const real = (path: string) => {
+    try {
+      return realpathSync(path);
+    } catch {
+      return resolve(path);
+    }
+  };
+  return real(first) === real(second);
+}
+
+/**
+ * Write an iCalendar file the user named with -o, atomically (app/host/atomicWrite.ts:
+ * a temporary file in the same folder, flushed, then renamed), so a failed write never
+ * leaves a truncated file where the old one was. Refused with a message, nothing
+ * written: a folder given as the file, an existing file without --force, and any file
+ * the same command reads (`inputs`: the case file), even with --force.
+ *
+ * @param path - the file to write
+ * @param text - the whole calendar
+ * @param options - overwrite (--force) and the command's input files
+ */
+export async function writeCalendarOutput(
+  path: string,
+  text: string,
+  options: { readonly overwrite: boolean; readonly inputs?: readonly string[] },
+): Promise<Result<void>> {
+  const input = (options.inputs ?? []).find((it) => sameFile(it, path));
+  if (input !== undefined) {
+    return fail(issue('invalid_file', ['output'], `${path} is the file this command reads (${input}); it is never written over. Choose another file name for the calendar.`));
+  }
+  let isFolder = false;
+  try {
+    isFolder = statSync(path).isDirectory();
+  } catch {
+    // Does not exist yet: the usual case.
+  }
+  if (isFolder) return fail(issue('invalid_file', ['output'], `${path} is a folder; give a file name for the calendar after -o (for example ${path.replace(/\/$/, '')}/due.ics).`));
+  const written = await writeFileAtomic(path, text, { overwrite: options.overwrite });
+  if (!written.ok && written.issues[0]?.code === 'already_exists') {
+    return fail(issue('invalid_file', ['output'], `${path} already exists; nothing was written. Add --force to replace it.`));
+  }
+  return written.ok ? written : fail(...written.issues.map((it) => ({ ...it, path: ['output'] })));
 }

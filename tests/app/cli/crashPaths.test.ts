@@ -1,6 +1,6 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { cli, demoCase, writeTemp } from './harness';
+import { cli, demoCase, tempDir, writeTemp } from './harness';
 
 // The crash paths of issue 17, each reproduced first as a stack trace: a case that `check`
 // accepts must give a review (exit 0, findings where a value is out of the published
@@ -146,5 +146,24 @@ describe('model gaps found by the fuzz run', () => {
     const { code, err } = await cli('check', path);
     expect(code).toBe(0);
     expect(err).toContain('proposedRegimens[0].periods[1] (deferasirox from 2026-11-20) overlaps proposedRegimens[0].periods[0] of the same drug');
+  });
+});
+
+describe('calendar output', () => {
+  it('never writes over the case file it reads, even with --force', async () => {
+    const path = variant(() => undefined);
+    const before = readFileSync(path, 'utf8');
+    const { code, err } = await cli('calendar', path, '-o', path, '--force');
+    expect(code).toBe(1);
+    expect(err).toContain('is the file this command reads');
+    expect(readFileSync(path, 'utf8')).toBe(before);
+  });
+
+  it('says a folder given to -o is a folder, instead of suggesting --force', async () => {
+    const folder = tempDir();
+    const { code, err } = await cli('calendar', demoCase('th-0417'), '-o', folder);
+    expect(code).toBe(1);
+    expect(err).toContain(`${folder} is a folder; give a file name for the calendar after -o`);
+    expect(err).not.toContain('--force');
   });
 });

@@ -4,7 +4,7 @@ import { join } from 'node:path';
 import { runCli, type CliHostIo } from '../../../app/cli/main';
 import { readCaseFile } from '../../../app/host/caseFiles';
 import { openCaseStore } from '../../../app/host/caseStore';
-import { writeCalendarFile } from '../../../app/host/icalendar';
+import { writeCalendarOutput } from '../../../app/host/icalendar';
 import { readTextFile } from '../../../app/host/textFiles';
 
 /** What one run of the command line printed, and its exit code. */
@@ -32,7 +32,7 @@ export async function runWith(argv: readonly string[], overrides: Partial<CliHos
     readText: readTextFile,
     today: () => testToday,
     now: () => testNow,
-    writeCalendar: writeCalendarFile,
+    writeCalendar: writeCalendarOutput,
     openStore: (folder) => openCaseStore(folder, { now: () => testNow }),
     ...overrides,
   };
