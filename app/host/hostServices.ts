@@ -1,14 +1,14 @@
-import { mkdirSync, readdirSync, readFileSync, statSync } from 'node:fs';
+import { mkdirSync, readdirSync, statSync } from 'node:fs';
 import { join } from 'node:path';
 import type { HostHandlers, HostValue } from '../../core/contract';
 import type { Case } from '../../core/model/caseFile';
-import { parseCase } from '../../core/model/parseCase';
 import { computeCase } from '../../core/ledger/computeCase';
 import { monitoringCalendar } from '../../core/monitoring';
 import { buildSheet } from '../../core/report/buildSheet';
 import { evaluateFindings } from '../../core/safety';
 import { fail, issue, ok, type Result } from '../../core/result';
 import { readCaseFile } from './caseFiles';
+import { openCaseStore, type CaseStore, type DiskRevision, type OpenedCase } from './caseStore';
 import { notAvailable } from './hostDispatch';
 import { monitoringIcs } from './icalendar';
 import { writeFileAtomic } from './atomicWrite';
@@ -34,11 +34,6 @@ export interface HostEnvironment {
 }
 
 type Summary = HostValue<'listCases'>[number];
-
-function revisionOf(path: string): string {
-  const stats = statSync(path);
-  return `${Math.round(stats.mtimeMs)}-${stats.size}`;
-}
 
 const noWorkspace = (): Result<never> => fail(issue('required', ['workspace'], 'No workspace folder is chosen yet; choose the folder that holds the case files.'));
 
@@ -87,15 +82,38 @@ async function writeExport(folder: string, caseId: string, what: string, extensi
   return written.ok ? ok({ path: written.value }) : written;
 }
 
+/** The contract's revision token for a file's state on disk: modification time, size and content hash. */
+export function revisionToken(revision: DiskRevision): string {
+  return `${revision.mtimeMs}|${revision.size}|${revision.sha256 || 'absent'}`;
+}
+
+/** The disk revision a token names, or an issue when the token is not one this host gave. */
+export function revisionFromToken(token: string): Result<DiskRevision> {
+  const [mtime, size, sha256] = token.split('|');
+  const mtimeMs = Number(mtime);
+  const bytes = Number(size);
+  if (!Number.isFinite(mtimeMs) || !Number.isInteger(bytes) || bytes < 0 || sha256 === undefined || !/^([0-9a-f]{64}|absent)$/.test(sha256)) {
+    return fail(issue('invalid_file', ['baseRevision'], 'The case was not opened through this window (its revision is not one this host gave); open it again before saving.'));
+  }
+  return ok({ mtimeMs, size: bytes, sha256: sha256 === 'absent' ? '' : sha256 });
+}
+
+const savedValue = (opened: OpenedCase) => ok({ caseId: opened.fileName, revision: revisionToken(opened.revision), warnings: [...opened.warnings] });
+
 /**
- * The host's services behind the contract, wired to what exists: case files
+ * The host's services behind the contract, wired to what exists: case writes go
+ * through app/host/caseStore.ts (atomic, journalled, refusing a silent overwrite); case files
  * are listed and opened with app/host/caseFiles.ts, the monitoring calendar is
  * written with app/host/icalendar.ts, the review sheet with app/host/sheetPdf.ts
  * (both into the workspace's exports folder, never over an earlier export),
- * settings with settingsStore.ts. Calls whose service has not landed yet (the
- * case store's writes, imports) answer 'not_available' in words, never a missing call.
+ * settings with settingsStore.ts. Imports answer 'not_available' in words until
+ * the import plan is shared with the command line's (app/cli/importCommand.ts).
  */
 export function createHostServices(environment: HostEnvironment): HostHandlers {
+  const store = async <T>(run: (caseStore: CaseStore) => Promise<Result<T>>): Promise<Result<T>> => {
+    const folder = environment.workspace.get();
+    return folder === null ? noWorkspace() : run(openCaseStore(folder, { now: environment.now }));
+  };
   return {
     appInfo: () => ok({ name: environment.appName, version: environment.appVersion }),
     currentWorkspace: () => ok({ folder: environment.workspace.get() }),
@@ -121,26 +139,54 @@ export function createHostServices(environment: HostEnvironment): HostHandlers {
         return ok(names.map((caseId) => summarise(folder, caseId)));
       }),
     openCase: ({ caseId }) =>
-      withWorkspace(environment, (folder) => {
-        const path = insideFolder(folder, caseId);
-        if (!path.ok) return path;
-        let json: unknown;
-        try {
-          json = JSON.parse(readFileSync(path.value, 'utf8'));
-        } catch (error) {
-          const missing = (error as NodeJS.ErrnoException).code === 'ENOENT';
-          return fail(issue('invalid_file', ['caseId'], missing ? `There is no case ${caseId} in the workspace.` : `Case file ${caseId} cannot be read: ${(error as Error).message}.`));
-        }
-        const parsed = parseCase(json);
-        if (!parsed.ok) return parsed;
-        return ok({ caseId, document: parsed.value as unknown as Record<string, unknown>, revision: revisionOf(path.value), warnings: [...(parsed.warnings ?? [])] });
+      store(async (caseStore) => {
+        const opened = await caseStore.open(caseId);
+        if (!opened.ok) return opened;
+        return ok({ caseId, document: opened.value.caseFile as unknown as Record<string, unknown>, revision: revisionToken(opened.value.revision), warnings: [...opened.value.warnings] });
       }),
-    createCase: () => notAvailable('Creating a case from the desktop app'),
-    saveCase: () => notAvailable('Saving a case from the desktop app'),
-    saveCaseAs: () => notAvailable('Saving a case under a new name'),
-    renameCase: () => notAvailable('Renaming a case'),
-    archiveCase: () => notAvailable('Archiving a case'),
-    recoverCase: () => notAvailable('Recovering a case from its journal'),
+    createCase: ({ caseId, document }) =>
+      store(async (caseStore) => {
+        const created = await caseStore.create(caseId, document, 'case created');
+        return created.ok ? savedValue(created.value) : created;
+      }),
+    saveCase: ({ caseId, document, baseRevision }) =>
+      store(async (caseStore) => {
+        const expected = revisionFromToken(baseRevision);
+        if (!expected.ok) return expected;
+        const saved = await caseStore.save(caseId, document, { expected: expected.value, change: 'edited in the workspace' });
+        return saved.ok ? savedValue(saved.value) : saved;
+      }),
+    saveCaseAs: ({ newCaseId, document }) =>
+      store(async (caseStore) => {
+        const saved = await caseStore.saveAs(newCaseId, document, 'saved under a new name');
+        return saved.ok ? savedValue(saved.value) : saved;
+      }),
+    renameCase: ({ caseId, newCaseId }) =>
+      store(async (caseStore) => {
+        const renamed = await caseStore.rename(caseId, newCaseId);
+        if (!renamed.ok) return renamed;
+        return ok(summarise(caseStore.folder, renamed.value.fileName));
+      }),
+    archiveCase: ({ caseId }) =>
+      store(async (caseStore) => {
+        const summary = summarise(caseStore.folder, caseId);
+        const archived = await caseStore.archive(caseId);
+        if (!archived.ok) return archived;
+        return ok({ ...summary, archived: true });
+      }),
+    recoverCase: ({ caseId }) =>
+      store(async (caseStore) => {
+        const recovered = await caseStore.recover(caseId);
+        if (!recovered.ok) return recovered;
+        const history = await caseStore.history(caseId);
+        if (!history.ok) return history;
+        return ok({
+          caseId,
+          document: recovered.value.caseFile as unknown as Record<string, unknown>,
+          revision: revisionToken(recovered.value.revision),
+          history: history.value.entries.map((entry) => ({ at: entry.at, description: entry.change })),
+        });
+      }),
     importDryRun: () => notAvailable('Importing records'),
     importCommit: () => notAvailable('Importing records'),
     exportSheetPdf: async ({ caseId, asOfDate, paper }) => {
