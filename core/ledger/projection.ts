@@ -184,7 +184,9 @@ export function projectScenarios(input: ProjectionInput): ScenarioProjection[] {
     // One stream per scenario, derived from the seed, so adding a scenario does not shift another's band.
     const random = createRandom(input.seed * 1009 + scenarioIndex);
     const sigma = scenario.efficiencyBasis === 'measured' ? projectionSpread.removalSigmaMeasured : projectionSpread.removalSigmaPublished;
-    const sampleLics: number[][] = monthDays.map(() => []);
+    // One typed array per month: its native numeric sort is several times faster than sorting
+    // boxed numbers with a comparator, and gives the same order (no NaN can arise here).
+    const sampleLics = monthDays.map(() => new Float64Array(input.samples));
     for (let sample = 0; sample < input.samples; sample += 1) {
       const intakeFactor = Math.max(0, 1 + projectionSpread.intakeSd * random.normal());
       const adherenceFactor =
@@ -193,11 +195,13 @@ export function projectScenarios(input: ProjectionInput): ScenarioProjection[] {
       const removalFactor = Math.exp(sigma * random.normal()) * adherenceFactor;
       const anchorShiftMg = anchorSd > 0 ? anchorStoresMg * (Math.exp(anchorSd * random.normal()) - 1) : 0;
       const sampled = modelOf(Math.max(0, input.startBodyIronMg + anchorShiftMg), intakeFactor, removalFactor);
-      monthDays.forEach((days, index) => sampleLics[index]!.push(licOf(storesAfterDays(sampled, days))));
+      monthDays.forEach((days, index) => {
+        sampleLics[index]![sample] = licOf(storesAfterDays(sampled, days));
+      });
     }
     const centralModel = modelOf(input.startBodyIronMg, 1, 1);
     const months: ProjectedMonth[] = monthDays.map((days, index) => {
-      const sorted = sampleLics[index]!.sort((a, b) => a - b);
+      const sorted = sampleLics[index]!.sort();
       const stores = storesAfterDays(centralModel, days);
       const central = licOf(stores);
       return {

@@ -3,11 +3,11 @@
  * (Hyndman & Fan, Am Stat 1996;50:361, definition 7, the default of R and of
  * the simple-statistics package's quantileSorted for interior points).
  *
- * @param sortedValues - ascending, at least one value
+ * @param sortedValues - ascending, at least one value (an array or a typed array)
  * @param probability - 0–1
  * @example quantileOfSorted([1, 2, 3, 4], 0.5) === 2.5
  */
-export function quantileOfSorted(sortedValues: readonly number[], probability: number): number {
+export function quantileOfSorted(sortedValues: ArrayLike<number>, probability: number): number {
   if (sortedValues.length === 0) throw new Error('quantileOfSorted needs at least one value');
   if (probability < 0 || probability > 1) throw new Error(`probability ${probability} outside 0–1`);
   const position = (sortedValues.length - 1) * probability;
