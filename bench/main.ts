@@ -5,8 +5,9 @@
  * target, met). Benchmarks never run inside `npm test`; tests never time anything.
  */
 import { spawnSync } from 'node:child_process';
-import { mkdirSync, writeFileSync } from 'node:fs';
-import { cpus, loadavg } from 'node:os';
+import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { cpus, loadavg, tmpdir } from 'node:os';
 import { performance } from 'node:perf_hooks';
 import { computeCase } from '../core/ledger/computeCase';
 import { parseCase } from '../core/model/parseCase';
@@ -20,6 +21,7 @@ import { baselineKernel, type KernelInput } from './baselineKernel';
 import { generatedCaseJson, generatedReviewDate } from './generatedCase';
 import { measure, scalingExponent, type Timing } from './harness';
 import { bundleGzipBytes, ironCourseNavigationMs } from './rendererBench';
+import { panelRun, writeWorkspace } from './workspaceBench';
 import { barePdf, chartSvgsOf, demoSheet, pdfPageCount, plainLinesOf, writeSheetPdf } from './sheetBench';
 
 // bench/run.mjs runs the bundle from the project folder.
@@ -184,6 +186,21 @@ async function sheetFigures(): Promise<void> {
   row('sheet: ratio to bare pdfmake', writer.medianMs / baseline.medianMs, '×', 1.5, `bare pdfmake median ${baseline.medianMs.toFixed(0)} ms for ${pdfPageCount(bare)} pages`);
 }
 
+async function workspaceFigures(): Promise<void> {
+  console.log('5. Workspace: 1,000 generated case files opened, validated, computed and ranked (panel --json)');
+  const folder = mkdtempSync(join(tmpdir(), 'chelation-workspace-'));
+  try {
+    writeWorkspace(root, folder, 1000);
+    const runs = [panelRun(root, folder), panelRun(root, folder), panelRun(root, folder)];
+    const best = runs.reduce((left, right) => (right.ms < left.ms ? right : left));
+    console.log(`  ${best.reviewed} reviewed, ${best.notReviewed} not reviewed; runs ${runs.map((run) => run.ms.toFixed(0)).join(', ')} ms; peak memory ${(best.maxRssKib / 1024).toFixed(0)} MiB`);
+    row('workspace: 1,000 cases opened, computed and ranked', median(runs.map((run) => run.ms)) / 1000, 's', 2, `median of 3 runs of the panel command (start-up included); ${best.reviewed} reviewed`);
+    row('workspace: peak memory', best.maxRssKib / 1024, 'MiB', null);
+  } finally {
+    rmSync(folder, { recursive: true, force: true });
+  }
+}
+
 const median = (values: readonly number[]) => {
   const sorted = [...values].sort((left, right) => left - right);
   return sorted.length % 2 ? sorted[(sorted.length - 1) / 2]! : (sorted[sorted.length / 2 - 1]! + sorted[sorted.length / 2]!) / 2;
@@ -207,6 +224,7 @@ async function main(): Promise<void> {
   await scalingFigures();
   await chemistryFigures();
   await sheetFigures();
+  await workspaceFigures();
   await commandLineFigures();
   await rendererFigures();
 

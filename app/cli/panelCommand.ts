@@ -57,20 +57,16 @@ export async function panelCommand(args: ParsedArgs, io: CliIo & StoreIo): Promi
     return exitCodes.usage;
   }
   const store = io.openStore(folder);
-  const listed = await store.list();
-  if (!listed.ok) {
-    io.err(formatIssues(listed.issues));
+  // Each case is read and validated once, then reviewed (list() would read every file a second time).
+  const every = await store.openAll();
+  if (!every.ok) {
+    io.err(formatIssues(every.issues));
     return exitCodes.invalidInput;
   }
-  const entries: PanelEntry[] = [];
-  for (const summary of listed.value) {
-    if (summary.status === 'unreadable') {
-      entries.push({ fileName: summary.fileName, loaded: fail(...summary.issues) });
-      continue;
-    }
-    const opened = await store.open(summary.fileName);
-    entries.push({ fileName: summary.fileName, loaded: opened.ok ? { ok: true, value: opened.value.caseFile } : opened });
-  }
+  const entries: PanelEntry[] = every.value.map(({ fileName, opened }) => ({
+    fileName,
+    loaded: opened.ok ? { ok: true, value: opened.value.caseFile } : fail(...opened.issues.filter((it) => it.severity === 'error')),
+  }));
   const panel = rankPanel(entries, { ...(asOf === undefined ? {} : { asOf }), today: io.today() });
   if (args.switches.has('--json')) {
     io.out(JSON.stringify({ caution: decisionSupportCaution, folder, ...panel }, null, 2));

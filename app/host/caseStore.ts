@@ -99,6 +99,8 @@ export interface CaseStore {
   list(): Promise<Result<readonly CaseSummary[]>>;
   /** Read, migrate in memory and validate one case. */
   open(fileName: string): Promise<Result<OpenedCase>>;
+  /** Every case of the folder opened once (the files list() summarises, in the same order), for a review of the whole workspace. */
+  openAll(): Promise<Result<readonly { readonly fileName: string; readonly opened: Result<OpenedCase> }[]>>;
   /** Write a new case file; refused with 'already_exists' if the name is taken. */
   create(fileName: string, caseFile: unknown, change: string): Promise<Result<OpenedCase>>;
   /** Replace a case with a new state; refused if the file changed since `expected`, or if the state has errors. */
@@ -330,42 +332,48 @@ export function openCaseStore(folder: string, options: CaseStoreOptions = {}): C
   }
 
 
+  async function openAll(): Promise<Result<readonly { readonly fileName: string; readonly opened: Result<OpenedCase> }[]>> {
+    let names: string[];
+    try {
+      names = await nodeFs.readdir(folder);
+    } catch (error) {
+      return fail(issue('invalid_file', [], `Cannot list the workspace folder ${folder}: ${describeFsError(error)}.`));
+    }
+    const caseNames = names.filter((name) => /\.json$/i.test(name) && !name.startsWith('.') && !isTemporaryFileName(name)).sort();
+    const every: { readonly fileName: string; readonly opened: Result<OpenedCase> }[] = [];
+    for (const fileName of caseNames) every.push({ fileName, opened: await open(fileName) });
+    return ok(every);
+  }
+
   return {
     folder,
 
     async list() {
-      let names: string[];
-      try {
-        names = await nodeFs.readdir(folder);
-      } catch (error) {
-        return fail(issue('invalid_file', [], `Cannot list the workspace folder ${folder}: ${describeFsError(error)}.`));
-      }
-      const caseNames = names.filter((name) => /\.json$/i.test(name) && !name.startsWith('.') && !isTemporaryFileName(name)).sort();
-      const summaries: CaseSummary[] = [];
-      for (const fileName of caseNames) {
-        const opened = await open(fileName);
-        if (!opened.ok) {
-          summaries.push({ fileName, status: 'unreadable', issues: opened.issues.filter((it) => it.severity === 'error') });
-          continue;
-        }
-        const { caseFile } = opened.value;
-        summaries.push({
-          fileName,
-          status: 'ok',
-          label: caseFile.patient.label,
-          diagnosisGroup: caseFile.patient.diagnosisGroup,
-          version: caseFile.version,
-          migratedFromVersion: opened.value.migratedFromVersion,
-          transfusionCount: caseFile.transfusions.length,
-          resultCount: caseFile.results.length,
-          chelationPeriodCount: caseFile.chelationPeriods.length,
-          latestEntryDate: latestEntryDate(caseFile),
-          recoverable: opened.value.recoverable,
-          modifiedAtMs: opened.value.revision.mtimeMs,
-        });
-      }
-      return ok(summaries);
+      const every = await openAll();
+      if (!every.ok) return every;
+      return ok(
+        every.value.map(({ fileName, opened }): CaseSummary => {
+          if (!opened.ok) return { fileName, status: 'unreadable', issues: opened.issues.filter((it) => it.severity === 'error') };
+          const { caseFile } = opened.value;
+          return {
+            fileName,
+            status: 'ok',
+            label: caseFile.patient.label,
+            diagnosisGroup: caseFile.patient.diagnosisGroup,
+            version: caseFile.version,
+            migratedFromVersion: opened.value.migratedFromVersion,
+            transfusionCount: caseFile.transfusions.length,
+            resultCount: caseFile.results.length,
+            chelationPeriodCount: caseFile.chelationPeriods.length,
+            latestEntryDate: latestEntryDate(caseFile),
+            recoverable: opened.value.recoverable,
+            modifiedAtMs: opened.value.revision.mtimeMs,
+          };
+        }),
+      );
     },
+
+    openAll,
 
     open,
 

@@ -1,5 +1,5 @@
 import { UTCDate } from '@date-fns/utc';
-import { addDays, addMonths, differenceInCalendarDays, endOfMonth, format, startOfMonth } from 'date-fns';
+import { addDays, addMonths, endOfMonth, format, startOfMonth } from 'date-fns';
 
 /**
  * Calendar dates as ISO strings 'YYYY-MM-DD'. Arithmetic runs in UTC
@@ -18,8 +18,15 @@ export function isIsoDate(text: string): boolean {
   const match = isoPattern.exec(text);
   if (!match) return false;
   const [year, month, day] = [Number(match[1]), Number(match[2]), Number(match[3])];
-  const date = new UTCDate(year, month - 1, day);
-  return date.getFullYear() === year && date.getMonth() === month - 1 && date.getDate() === day;
+  // Years 0000–0099 stay invalid, as they were when this read them through Date (which maps them to 19xx).
+  if (year < 100 || month < 1 || month > 12 || day < 1) return false;
+  return day <= daysInMonth(year, month);
+}
+
+/** Days in a month of the Gregorian calendar (leap years: divisible by 4, except centuries not divisible by 400). */
+function daysInMonth(year: number, month: number): number {
+  if (month === 2) return (year % 4 === 0 && year % 100 !== 0) || year % 400 === 0 ? 29 : 28;
+  return month === 4 || month === 6 || month === 9 || month === 11 ? 30 : 31;
 }
 
 /** A UTC date from 'YYYY-MM-DD'; throws on an invalid date (validate at the edge first). */
@@ -36,7 +43,12 @@ export function toIsoDate(date: Date): IsoDate {
 
 /** Whole calendar days from `earlierDate` to `laterDate` (negative if reversed). @example daysBetween('2026-01-01','2026-03-01') === 59 */
 export function daysBetween(earlierDate: IsoDate, laterDate: IsoDate): number {
-  return differenceInCalendarDays(toUtcDate(laterDate), toUtcDate(earlierDate));
+  // Whole UTC days, so the difference of day numbers is the calendar-day difference
+  // (what date-fns' differenceInCalendarDays gives in UTC), without building Date objects
+  // in the ledger's hot loops.
+  if (!isIsoDate(earlierDate)) throw new Error(`Not an ISO calendar date: ${earlierDate}`);
+  if (!isIsoDate(laterDate)) throw new Error(`Not an ISO calendar date: ${laterDate}`);
+  return epochDayFromIso(laterDate) - epochDayFromIso(earlierDate);
 }
 
 /** @example addDaysIso('2026-02-27', 3) === '2026-03-02' */

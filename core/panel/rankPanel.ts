@@ -62,6 +62,14 @@ export interface PanelOptions {
   readonly today: IsoDate;
 }
 
+/**
+ * The panel shows no band (only the central projected balance, which does not
+ * depend on the sampling), so each case is computed with the fewest samples the
+ * projection accepts (core/ledger/projection.ts) rather than the review's 500:
+ * a modelling choice of ours that keeps a clinic's workspace quick to rank.
+ */
+const panelBandSamples = 50;
+
 const severityRank = (severity: Severity) => severities.indexOf(severity);
 
 function reviewOne(entry: PanelEntry, options: PanelOptions): PanelRow | PanelProblem {
@@ -69,7 +77,7 @@ function reviewOne(entry: PanelEntry, options: PanelOptions): PanelRow | PanelPr
   const caseFile = entry.loaded.value;
   const label = caseFile.patient.label;
   const asOf = options.asOf ?? caseFile.review.reviewDate ?? options.today;
-  const computed = computeCase(caseFile, asOf);
+  const computed = computeCase(caseFile, asOf, { samples: panelBandSamples });
   if (!computed.ok) return { fileName: entry.fileName, label, issues: computed.issues };
   const findings = evaluateFindings(caseFile, computed.value, asOf, caseFile.thresholdOverrides);
   if (!findings.ok) return { fileName: entry.fileName, label, issues: findings.issues };
