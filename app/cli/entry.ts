@@ -10,6 +10,13 @@ import { runAtBoundary } from './boundary';
 import { runCli, type CliHostIo } from './main';
 
 // The process boundary: the only place the command line touches process.
+// A reader that stops early (`… | head`) closes the pipe: stop quietly, with no trace.
+for (const stream of [process.stdout, process.stderr]) {
+  stream.on('error', (error: NodeJS.ErrnoException) => {
+    if (error.code === 'EPIPE') process.exit(process.exitCode ?? 0);
+    throw error;
+  });
+}
 const io: CliHostIo = {
   out: (text) => process.stdout.write(`${text}\n`),
   err: (text) => process.stderr.write(`${text}\n`),

@@ -226,6 +226,9 @@ function summarySection(input: SheetInput): SheetSection {
       style: 'note',
       text: crossings.length > 0 ? `Crossings of the LIC thresholds 15, 7 and 3 mg/g dry: ${crossings.join(' ')}` : `No regimen's central projection crosses 15, 7 or 3 mg/g dry within ${projection.horizonMonths} months.`,
     });
+    // The label zones each scenario's projection enters, in the projection's own words (core/ledger/projection.ts).
+    const zones = projection.scenarios.flatMap((scenario) => scenario.labelZones.map((zone) => `${scenario.name}: ${zone.text}`));
+    if (zones.length > 0) blocks.push({ kind: 'paragraph', style: 'note', text: `Label zones: ${zones.join(' ')}` });
   }
   if (results.notices.length > 0) {
     blocks.push({ kind: 'paragraph', style: 'note', text: `Notes: ${results.notices.map((notice) => `${notice.severity === 'review' ? 'review: ' : ''}${notice.text}`).join(' ')}` });

@@ -51,6 +51,12 @@ const bandFill: Readonly<Record<ReturnType<typeof licBand>['id'], string>> = {
   'high-cardiac-risk': '#d6d6d6',
 };
 
+/** The label zones the shown scenarios report, one per threshold: from 0 up to the threshold. */
+function projectedLabelZones(scenarios: NonNullable<LicChartResults['projection']>['scenarios']): LicLabelZone[] {
+  const thresholds = [...new Set(scenarios.flatMap((scenario) => scenario.labelZones.map((zone) => zone.thresholdMgPerGDry)))];
+  return thresholds.map((threshold) => ({ id: `label-below-${threshold}`, fromMgPerGDry: 0, toMgPerGDry: threshold, label: `label zone: below ${threshold} mg/g dry` }));
+}
+
 /**
  * Liver iron over time as an SVG chart: measured LIC results (dots), the
  * ledger's month-end estimate (solid line), and each scenario's projection
@@ -139,9 +145,11 @@ export function licChart(results: LicChartResults, options: LicChartOptions = {}
   }
   parts.push(element('g', { 'data-role': 'lic-bands' }, bandParts));
 
-  // Label zones: hatched, with their text at the left.
-  if (options.labelZones && options.labelZones.length > 0) {
-    const zoneParts = options.labelZones.map((zone) => {
+  // Label zones: hatched, with their text at the left. Without zones given, the low-iron
+  // zones the projection itself reports (core/ledger/projection.ts) are marked.
+  const labelZones = options.labelZones ?? projectedLabelZones(scenarios);
+  if (labelZones.length > 0) {
+    const zoneParts = labelZones.map((zone) => {
       const zoneTop = y(Math.min(zone.toMgPerGDry, yHigh));
       const zoneBottom = y(Math.max(zone.fromMgPerGDry, yLow));
       return element('g', { 'data-zone': zone.id }, [

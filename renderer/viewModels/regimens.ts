@@ -14,6 +14,8 @@ export interface RegimenColumn {
   readonly milestones: readonly { readonly months: number; readonly central: string; readonly band: string; readonly derivation: Derivation }[];
   readonly crossings: readonly string[];
   readonly doses: readonly PeriodDoseLine[];
+  /** The label zones the projection enters, in core's words. */
+  readonly labelZones: readonly string[];
 }
 
 export interface RegimensView {
@@ -55,12 +57,13 @@ export function regimensView(review: Review, caseFile: Case): RegimensView {
         : `${crossing.direction} ${formatNumber(crossing.thresholdMgPerGDry, 0)} at month ${crossing.monthsAhead} (${crossing.date}); across the band between month ${crossing.bandEarliestMonths ?? '—'} and ${crossing.bandLatestMonths === null ? 'beyond the horizon' : `month ${crossing.bandLatestMonths}`}`,
     ),
     doses: periodDoseLines(periodsOf(scenario.id), review.results.patient.weightKg),
+    labelZones: scenario.labelZones.map((zone) => zone.text),
   }));
   return {
     columns,
     canAddWhatIf: proposedCount < maxProposedRegimens,
     note: projection
-      ? `Projected LIC, mg/g dry weight: central value and 10th–90th percentile band (${formatNumber(projection.samples, 0)} seeded samples, seed ${projection.seed}); future intake held at ${formatQuantity(projection.intakeMgPerDay, 1, 'mg/d')}. Removal is held constant, while real chelators remove less as iron falls: values far below 3 overstate the fall.`
+      ? `Projected LIC, mg/g dry weight: central value and 10th–90th percentile band (${formatNumber(projection.samples, 0)} seeded samples, seed ${projection.seed}); future intake held at ${formatQuantity(projection.intakeMgPerDay, 1, 'mg/d')}. ${projection.model === 'constant-rate' ? 'Removal is held constant (the constant-rate model), while real chelators remove less as iron falls: values far below 3 overstate the fall.' : `Removal falls as the chelatable iron falls (proportional to body iron above a floor of LIC ${formatNumber(projection.floorLicMgPerGDry, 1)} mg/g dry, set to today's removal); the balance approaches an equilibrium instead of crossing zero.`}`
       : 'No projection: it needs a liver iron result on record.',
     projectionSettings: projection ? `horizon ${projection.horizonMonths} months` : '',
   };

@@ -69,7 +69,7 @@ export function RegimensView() {
               </tr>
               <tr>
                 <th scope="row">Label zones</th>
-                {view.columns.map((column) => <td key={column.id} className="pending">not yet available in this version</td>)}
+                {view.columns.map((column) => <td key={column.id}>{column.labelZones.length > 0 ? <ul className="plain">{column.labelZones.map((text) => <li key={text}>{text}</li>)}</ul> : 'none: the projection starts below the label threshold'}</td>)}
               </tr>
               <tr>
                 <th scope="row"><span className="visually-hidden">Actions</span></th>
