@@ -34,7 +34,7 @@ export function RegimensView() {
   return (
     <div className="with-explain">
       <div>
-        <p className="what-if-banner" role="note"><strong>What-if for the prescriber's review.</strong> Projections hold today's weight and intake; they are estimates with a band, not outcomes.</p>
+        <p className="what-if-banner" role="note"><strong>What-if for the prescriber's review.</strong> Projections hold today's intake (under 18, weight follows the patient's own trend); they are estimates with a band, not outcomes.</p>
         <p>{view.note}</p>
         <div className="table-scroll">
           <table className="side-by-side">
