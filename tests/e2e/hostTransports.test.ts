@@ -100,7 +100,7 @@ async function desktopPage(dispatch: HostDispatch, server: PreviewServer): Promi
 
 type Answer = { ok: boolean; value?: unknown; issues?: { code: string; message: string; path: unknown[] }[] };
 
-describe('the desktop transport: built preload, fake electron, real IPC registration and host services', () => {
+describe('the desktop transport: built preload, fake electron, real IPC registration and host services', { retry: 2 }, () => {
   it('runs the workspace through the preload, opens the demo case, exports the sheet, and refuses an iframe', async () => {
     const { folder, config } = demoWorkspace();
     const dispatch = dispatchOver(folder, config);
@@ -154,7 +154,7 @@ describe('the desktop transport: built preload, fake electron, real IPC registra
   }, 120_000);
 });
 
-describe('the preview transport: the same renderer over HTTP with the token', () => {
+describe('the preview transport: the same renderer over HTTP with the token', { retry: 2 }, () => {
   it('opens the demo case in the page, refuses calls without or with a wrong token, and answers exactly as IPC does', async () => {
     const { folder, config } = demoWorkspace();
     const dispatch = dispatchOver(folder, config);

@@ -68,7 +68,7 @@ async function openPage(seed?: Record<string, unknown>, options: { bypassCSP?: b
 
 const savedState = (page: Page) => page.locator('.save-state');
 
-describe('the scenario-1 quarterly review', () => {
+describe('the scenario-1 quarterly review', { retry: 2 }, () => {
   it('opens TH-0417, adds three transfusions, the new liver iron and ferritin, compares two regimens, reads the findings and exports the sheet in at most 25 actions', async () => {
     const { context, page, errors } = await openPage({ 'th-0417.json': lastQuarterCase() });
     const user = new CountedUser(page);
@@ -118,7 +118,7 @@ describe('the scenario-1 quarterly review', () => {
   }, 120_000);
 });
 
-describe('a new case from the keyboard', () => {
+describe('a new case from the keyboard', { retry: 2 }, () => {
   it('is created, takes transfusions typed and pasted, a liver iron result and a regimen, updates the iron course and the findings, takes a what-if, exports, and reopens after a reload', async () => {
     const { context, page, errors } = await openPage({});
     await page.fill('label:has-text("Label") input', 'ZZ-0001');
@@ -199,7 +199,7 @@ describe('a new case from the keyboard', () => {
   }, 120_000);
 });
 
-describe('accessibility of every screen', () => {
+describe('accessibility of every screen', { retry: 2 }, () => {
   const screens = ['Cases', 'Record', 'Iron course', 'Regimens', 'Findings', 'Sheet', 'Assumptions'] as const;
 
   it('has no serious or critical axe-core violations (WCAG 2.0–2.2 A and AA rules, contrast included), and a screenshot of each screen is saved', async () => {
@@ -253,7 +253,7 @@ describe('accessibility of every screen', () => {
   }, 120_000);
 });
 
-describe('through the preview server (app/preview) and the host client (renderer/host)', () => {
+describe('through the preview server (app/preview) and the host client (renderer/host)', { retry: 2 }, () => {
   it('lists the demo workspace, opens a case and shows its iron course, with the chart from core', async () => {
     const { mkdtempSync } = await import('node:fs');
     const { tmpdir } = await import('node:os');

@@ -128,11 +128,14 @@ describe('projection properties (fast-check)', () => {
       fc.property(arbitraryInput, fc.double({ min: 1, max: 2, noNaN: true }), (it, factor) => {
         const lower = projectScenarios(inputOf(it, 0.15));
         const higher = projectScenarios(inputOf({ ...it, removalPerKg: it.removalPerKg * factor }, 0.15));
+        // 1e-6 mg/g dry: at the floor itself (a start LIC of 1.8 with a removal near zero) the closed form's
+        // rounding moves a band edge by about 1e-7 either way; the sheet and screens print 0.1 mg/g dry.
+        const rounding = 1e-6;
         lower[0]!.months.forEach((month, index) => {
           const other = higher[0]!.months[index]!;
-          expect(other.licMgPerGDry).toBeLessThanOrEqual(month.licMgPerGDry + 1e-9);
-          expect(other.licP90).toBeLessThanOrEqual(month.licP90 + 1e-9);
-          expect(other.licP10).toBeLessThanOrEqual(month.licP10 + 1e-9);
+          expect(other.licMgPerGDry).toBeLessThanOrEqual(month.licMgPerGDry + rounding);
+          expect(other.licP90).toBeLessThanOrEqual(month.licP90 + rounding);
+          expect(other.licP10).toBeLessThanOrEqual(month.licP10 + rounding);
         });
         expect(projectScenarios(inputOf(it, 0.15))).toEqual(lower);
       }),
