@@ -165,6 +165,28 @@ function latestEntryDate(caseFile: Case): string | null {
   return dates.at(-1) ?? null;
 }
 
+/** An opened case from the JSON read and its parse: the version it was migrated from, the revision and what recover could bring back. */
+function openedFrom(
+  fileName: string,
+  json: unknown,
+  parsed: Result<Case> & { readonly ok: true },
+  revision: DiskRevision,
+  recoverable: OpenedCase['recoverable'],
+): Result<OpenedCase> {
+  const version = rawVersion(json);
+  return ok(
+    {
+      fileName,
+      caseFile: parsed.value,
+      warnings: parsed.warnings ?? [],
+      migratedFromVersion: version !== null && version < currentCaseFileVersion ? version : null,
+      revision,
+      recoverable,
+    },
+    parsed.warnings,
+  );
+}
+
 /**
  * Open a workspace folder as a case store. The folder must exist; nothing is
  * written until a method that writes is called.
@@ -264,18 +286,7 @@ export function openCaseStore(folder: string, options: CaseStoreOptions = {}): C
     if (!json.ok) return fail(...json.issues, ...hint);
     const parsed = parseCase(json.value);
     if (!parsed.ok) return fail(...parsed.issues, ...hint);
-    const version = rawVersion(json.value);
-    return ok(
-      {
-        fileName,
-        caseFile: parsed.value,
-        warnings: parsed.warnings ?? [],
-        migratedFromVersion: version !== null && version < currentCaseFileVersion ? version : null,
-        revision: disk.value.revision,
-        recoverable: recoverableFrom(lines, disk.value.revision.sha256),
-      },
-      parsed.warnings,
-    );
+    return openedFrom(fileName, json.value, parsed, disk.value.revision, recoverableFrom(lines, disk.value.revision.sha256));
   }
 
   /** The file as it is now must be what the caller opened, and must not be of a newer version. */
@@ -467,18 +478,7 @@ export function openCaseStore(folder: string, options: CaseStoreOptions = {}): C
       if (!parsed.ok) return fail(issue('invalid_file', [], `The journal's latest state of ${fileName} (${last.at}) has errors.`), ...parsed.issues);
       const disk = await readDisk(fileName);
       const revision = disk.ok && disk.value ? disk.value.revision : absentRevision;
-      const version = rawVersion(json.value);
-      return ok(
-        {
-          fileName,
-          caseFile: parsed.value,
-          warnings: parsed.warnings ?? [],
-          migratedFromVersion: version !== null && version < currentCaseFileVersion ? version : null,
-          revision,
-          recoverable: null,
-        },
-        parsed.warnings,
-      );
+      return openedFrom(fileName, json.value, parsed, revision, null);
     },
   };
 }
