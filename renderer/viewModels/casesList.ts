@@ -2,7 +2,8 @@ import type { IsoDate } from '../../core/dates/isoDate';
 import { parseCase } from '../../core/model/parseCase';
 import { severities } from '../../core/safety';
 import type { StoredCase } from '../hostPort';
-import { formatNumber, formatQuantity, words } from './format';
+import { choiceWords } from '../../core/words';
+import { formatNumber, formatQuantity } from './format';
 import { reviewOf } from './review';
 
 /** One line of the Cases screen. */
@@ -44,7 +45,7 @@ export function caseSummaryLine(stored: StoredCase, today: IsoDate): CaseSummary
   }
   const caseFile = parsed.value;
   const asOf = caseFile.review.reviewDate ?? today;
-  const base = { id: stored.id, label: caseFile.patient.label, diagnosis: words(caseFile.patient.diagnosisGroup) };
+  const base = { id: stored.id, label: caseFile.patient.label, diagnosis: choiceWords(caseFile.patient.diagnosisGroup) };
   const outcome = reviewOf(caseFile, asOf, 50);
   if (!outcome.ok) return { ...base, ...empty, problem: outcome.issues[0]?.message ?? 'The review could not be computed.' };
   const { results, findings, monitoring } = outcome.review;

@@ -1,4 +1,4 @@
-import { severities, type Finding, type Severity } from '../../core/safety';
+import { severities, type Finding, type Severity, type TriggerValue } from '../../core/safety';
 import { formatValue } from './format';
 import { sourceLine, type SourceLine } from './sources';
 
@@ -14,6 +14,20 @@ export interface FindingCard {
   readonly sourceUncertain: boolean;
 }
 
+/**
+ * A value behind a finding as one line: its name, value and unit, its date
+ * and the entry it comes from, each date written once. A value that is itself
+ * a date (the last test of a monitoring item) is not dated again, and an
+ * entry reference that names the date already shown ('results[21] 2026-10-13')
+ * keeps only its position.
+ */
+export function triggerText(trigger: TriggerValue): string {
+  const dateShown = trigger.date !== null && trigger.value !== trigger.date ? trigger.date : null;
+  const dateSuffix = trigger.date === null ? null : ` ${trigger.date}`;
+  const ref = trigger.ref !== null && dateSuffix !== null && trigger.ref.endsWith(dateSuffix) ? trigger.ref.slice(0, trigger.ref.length - dateSuffix.length) : trigger.ref;
+  return `${trigger.name}: ${formatValue(trigger.value, trigger.unit)}${dateShown ? ` (${dateShown})` : ''}${ref ? ` — ${ref}` : ''}`;
+}
+
 /** Findings grouped by severity (urgent first); every finding is shown. */
 export function findingGroups(findings: readonly Finding[]): { readonly severity: Severity; readonly cards: readonly FindingCard[] }[] {
   return severities
@@ -27,7 +41,7 @@ export function findingGroups(findings: readonly Finding[]): { readonly severity
           severity,
           title: finding.title,
           text: finding.text,
-          values: finding.triggers.map((trigger) => `${trigger.name}: ${formatValue(trigger.value, trigger.unit)}${trigger.date ? ` (${trigger.date})` : ''}${trigger.ref ? ` — ${trigger.ref}` : ''}`),
+          values: finding.triggers.map(triggerText),
           thresholds: finding.thresholds.map((threshold) => ({
             id: threshold.id,
             overridden: threshold.overridden,

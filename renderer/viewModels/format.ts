@@ -22,8 +22,3 @@ export function formatValue(value: number | string, unit: string): string {
   const decimals = Math.abs(value) >= 100 ? 0 : Math.abs(value) >= 10 ? 1 : Math.abs(value) >= 1 ? 2 : 3;
   return formatQuantity(value, decimals, unit);
 }
-
-/** Words from a code: 'film-coated-tablet' → 'film coated tablet'. */
-export function words(code: string): string {
-  return code.replace(/-/g, ' ');
-}

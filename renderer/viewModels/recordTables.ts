@@ -29,6 +29,7 @@ import {
 } from '../../core/model';
 import { examinationOutcomes } from '../../core/model/resultEntry';
 import { displayUnit } from '../../core/units/displayUnit';
+import { choiceWords } from '../../core/words';
 
 /**
  * The four record tables as rows of cells. A cell keeps exactly what the user
@@ -195,10 +196,10 @@ export function columnUnitText(column: ColumnSpec): string {
   return column.unit ? displayUnit(column.unit) : '';
 }
 
-/** What a choice looks like in a select ('mg/g{dry}' → 'mg/g dry weight'). */
+/** What a choice looks like in a select ('mg/g{dry}' → 'mg/g dry weight', 'film-coated-tablet' → 'film-coated tablets'; core/words). */
 export function choiceText(column: ColumnSpec, choice: string): string {
   if (column.key === 'unit') return displayUnit(choice);
-  return choice.replace(/-/g, ' ');
+  return choiceWords(choice);
 }
 
 // A number cell: blank is missing, a number is a number, anything else is kept
@@ -366,8 +367,10 @@ export function choiceFromText(table: RecordTableId, cells: Cells, key: string, 
   const column = tableColumns[table].find((it) => it.key === key);
   const choices = column?.choices?.(cells);
   if (!column || !choices) return text;
-  const wanted = text.trim().toLowerCase();
-  return choices.find((choice) => choice.toLowerCase() === wanted || choiceText(column, choice).toLowerCase() === wanted) ?? text;
+  // Compared without case, and with hyphens and spaces alike, so a spreadsheet's "film coated tablet" finds its choice too.
+  const loose = (typed: string) => typed.trim().toLowerCase().replace(/[-\s]+/g, ' ');
+  const wanted = loose(text);
+  return choices.find((choice) => loose(choice) === wanted || loose(choiceText(column, choice)) === wanted) ?? text;
 }
 
 /**

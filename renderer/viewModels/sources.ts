@@ -1,8 +1,10 @@
 import { findSource } from '../../core/references';
+import { choiceWords } from '../../core/words';
 
 export interface SourceLine {
   readonly id: string;
   readonly text: string;
+  /** The source's status in words ('confirmed', 'common practice'). */
   readonly status: string;
 }
 
@@ -12,5 +14,5 @@ export function sourceLine(id: string): SourceLine {
   if (!source) return { id, text: `source ${id} (not in the catalogue)`, status: 'unknown' };
   const parts = [source.authors === '—' ? null : source.authors, source.title, source.publication, source.year === null ? null : String(source.year), source.locator ?? null];
   const kept = parts.filter((part): part is string => part !== null && part !== '');
-  return { id, text: kept.map((part, index) => (index < kept.length - 1 && !part.endsWith('.') ? `${part}.` : part)).join(' '), status: source.status };
+  return { id, text: kept.map((part, index) => (index < kept.length - 1 && !part.endsWith('.') ? `${part}.` : part)).join(' '), status: choiceWords(source.status) };
 }

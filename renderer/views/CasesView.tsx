@@ -1,10 +1,10 @@
 import { useMemo, useState, type FormEvent } from 'react';
 import { diagnosisGroups, sexesAtBirth } from '../../core/model';
+import { choiceWords } from '../../core/words';
 import { todayIso } from '../hooks/useReview';
 import { useWorkspace, workspaceStore } from '../state/store';
 import { caseCountText, caseSortKeys, caseSortLabels, caseSummaryLine, visibleCaseLines, type CaseSortKey } from '../viewModels/casesList';
 import { newCaseJson } from '../viewModels/newCase';
-import { words } from '../viewModels/format';
 
 /** The workspace's cases with a summary line each; search, sort, new, open, import. */
 export function CasesView() {
@@ -93,7 +93,7 @@ function NewCaseForm() {
           <select value={fields.sexAtBirth} onChange={set('sexAtBirth')}>{sexesAtBirth.map((sex) => <option key={sex} value={sex}>{sex}</option>)}</select>
         </label>
         <label>Diagnosis group
-          <select value={fields.diagnosisGroup} onChange={set('diagnosisGroup')}>{diagnosisGroups.map((group) => <option key={group} value={group}>{words(group)}</option>)}</select>
+          <select value={fields.diagnosisGroup} onChange={set('diagnosisGroup')}>{diagnosisGroups.map((group) => <option key={group} value={group}>{choiceWords(group)}</option>)}</select>
         </label>
         <label>Weight, kg <input value={fields.weightKg} onChange={set('weightKg')} inputMode="decimal" /></label>
         <label>Weighed on <input value={fields.weightDate} onChange={set('weightDate')} placeholder="YYYY-MM-DD" /></label>

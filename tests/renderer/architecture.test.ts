@@ -116,3 +116,10 @@ describe('renderer imports point toward core', () => {
     expect(users).toEqual(['renderer/state/store.ts']);
   });
 });
+
+describe('one table of words for choice ids', () => {
+  it('no renderer module reads ids as words itself (core/words owns that table)', () => {
+    const offenders = filesUnder(rendererDir).filter((path) => /\.replace\(\/-\/g,\s*' '\)/.test(readFileSync(path, 'utf8'))).map((path) => relative(root, path));
+    expect(offenders).toEqual([]);
+  });
+});
