@@ -18,6 +18,8 @@ export interface PreviewSetup {
   readonly workspace?: string;
   /** --port; absent or 0: any free port. */
   readonly port?: number;
+  /** The built renderer folder; absent: dist/renderer in the app folder (tests build their own copy). */
+  readonly rendererFolder?: string;
 }
 
 /**
@@ -53,7 +55,7 @@ export async function runPreview(setup: PreviewSetup): Promise<Result<PreviewSer
     }),
   );
   try {
-    return ok(await startPreviewServer({ rendererRoot: join(setup.appFolder, 'dist', 'renderer'), dispatch, port: setup.port ?? 0 }));
+    return ok(await startPreviewServer({ rendererRoot: setup.rendererFolder ?? join(setup.appFolder, 'dist', 'renderer'), dispatch, port: setup.port ?? 0 }));
   } catch (error) {
     const code = (error as NodeJS.ErrnoException).code;
     const why = code === 'EADDRINUSE' ? 'it is in use by another program' : code === 'EACCES' ? 'this user may not open it' : (error as Error).message;

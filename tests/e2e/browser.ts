@@ -1,5 +1,7 @@
 import { spawnSync } from 'node:child_process';
-import { mkdirSync } from 'node:fs';
+import { mkdirSync, mkdtempSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { chromium, type Browser, type Page } from 'playwright-core';
 import { serveFolder } from './staticServer';
@@ -10,16 +12,29 @@ export const artifactsDir = fileURLToPath(new URL('./artifacts/', import.meta.ur
 /** Debian's Chromium with the flags this machine needs (stack-notes.md). */
 const chromiumFlags = ['--headless', '--no-sandbox', '--disable-gpu', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'];
 
-/** Build the renderer (the same command as `npm run build:renderer`), serve it, start Chromium. */
-export async function startWorkspace(): Promise<{ readonly url: string; readonly browser: Browser; readonly stop: () => Promise<void> }> {
-  const built = spawnSync('npx', ['vite', 'build', '--config', 'renderer/vite.config.ts'], { cwd: repoRoot, encoding: 'utf8' });
+/**
+ * Build the renderer (the same command as `npm run build:renderer`) into a
+ * folder of this test file's own. Two test files run in parallel workers: when
+ * both built into dist/renderer, one build emptied the folder while the other
+ * file's page was loading, and that page waited out its 30 s for the Cases table.
+ */
+export function buildRenderer(): string {
+  const outDir = mkdtempSync(join(tmpdir(), 'chelation-ledger-renderer-'));
+  const built = spawnSync('npx', ['vite', 'build', '--config', 'renderer/vite.config.ts', '--outDir', outDir, '--emptyOutDir'], { cwd: repoRoot, encoding: 'utf8' });
   if (built.status !== 0) throw new Error(`the renderer build failed:\n${built.stdout}\n${built.stderr}`);
+  return outDir;
+}
+
+/** Build the renderer, serve it, start Chromium. */
+export async function startWorkspace(): Promise<{ readonly url: string; readonly browser: Browser; readonly rendererFolder: string; readonly stop: () => Promise<void> }> {
+  const rendererFolder = buildRenderer();
   mkdirSync(artifactsDir, { recursive: true });
-  const server = await serveFolder(`${repoRoot}dist/renderer`);
+  const server = await serveFolder(rendererFolder);
   const browser = await chromium.launch({ executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium', args: chromiumFlags });
   return {
     url: server.url,
     browser,
+    rendererFolder,
     stop: async () => {
       await browser.close();
       await server.close();

@@ -1,4 +1,3 @@
-import { spawnSync } from 'node:child_process';
 import { copyFileSync, mkdirSync, mkdtempSync, readFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -12,7 +11,7 @@ import { createSettingsStore } from '../../app/host/settingsStore';
 import { registerHostIpc, type InvokeEvent } from '../../app/main/registerHostIpc';
 import { startPreviewServer, type PreviewServer } from '../../app/preview/previewServer';
 import { previewTokenHeader } from '../../core/contract';
-import { artifactsDir, repoRoot } from './browser';
+import { artifactsDir, buildRenderer, repoRoot } from './browser';
 
 // The desktop app's two transports end to end in Debian's Chromium (the closest these machines
 // get to Electron, stack-notes.md): (1) the built renderer with the built preload, run in the
@@ -45,10 +44,10 @@ function dispatchOver(folder: string, config: string): HostDispatch {
 
 let browser: Browser;
 let preloadSource: string;
+let rendererFolder: string;
 
 beforeAll(async () => {
-  const built = spawnSync('npx', ['vite', 'build', '--config', 'renderer/vite.config.ts'], { cwd: repoRoot, encoding: 'utf8' });
-  if (built.status !== 0) throw new Error(`the renderer build failed:\n${built.stdout}\n${built.stderr}`);
+  rendererFolder = buildRenderer();
   const desktop = await buildDesktop(mkdtempSync(join(tmpdir(), 'chelation-ledger-e2e-build-')));
   preloadSource = readFileSync(desktop.preload, 'utf8');
   mkdirSync(artifactsDir, { recursive: true });
@@ -105,7 +104,7 @@ describe('the desktop transport: built preload, fake electron, real IPC registra
     const { folder, config } = demoWorkspace();
     const dispatch = dispatchOver(folder, config);
     // The static half of the preview server stands in for app://renderer (same build folder, same CSP).
-    const server = await startPreviewServer({ rendererRoot: join(repoRoot, 'dist', 'renderer'), dispatch: async () => ({ ok: false, issues: [] as never }), port: 0 });
+    const server = await startPreviewServer({ rendererRoot: rendererFolder, dispatch: async () => ({ ok: false, issues: [] as never }), port: 0 });
     const { page, refusedFrames } = await desktopPage(dispatch, server);
     const errors: string[] = [];
     page.on('pageerror', (error) => errors.push(error.message));
@@ -158,7 +157,7 @@ describe('the preview transport: the same renderer over HTTP with the token', { 
   it('opens the demo case in the page, refuses calls without or with a wrong token, and answers exactly as IPC does', async () => {
     const { folder, config } = demoWorkspace();
     const dispatch = dispatchOver(folder, config);
-    const server = await startPreviewServer({ rendererRoot: join(repoRoot, 'dist', 'renderer'), dispatch, port: 0 });
+    const server = await startPreviewServer({ rendererRoot: rendererFolder, dispatch, port: 0 });
     const context = await browser.newContext({ viewport: { width: 1400, height: 900 } });
     const page = await context.newPage();
     const errors: string[] = [];

@@ -260,7 +260,7 @@ describe('through the preview server (app/preview) and the host client (renderer
     const { join } = await import('node:path');
     const { runPreview } = await import('../../app/preview/runPreview');
     const configFolder = mkdtempSync(join(tmpdir(), 'chelation-ledger-e2e-'));
-    const started = await runPreview({ appName: 'chelation-ledger', appVersion: '0.0.0-test', appFolder: repoRoot, configFolder });
+    const started = await runPreview({ appName: 'chelation-ledger', appVersion: '0.0.0-test', appFolder: repoRoot, configFolder, rendererFolder: workspace.rendererFolder });
     if (!started.ok) throw new Error(started.issues.map((it) => it.message).join('; '));
     const preview = started.value;
     const context = await browser.newContext({ viewport: { width: 1400, height: 900 } });
