@@ -62,8 +62,3 @@ export function createHostDispatch(handlers: HostHandlers, options: HostDispatch
     return checked.data as HostResult<unknown>;
   };
 }
-
-/** A service this build does not have yet: a clear refusal instead of a missing call. */
-export function notAvailable(what: string): HostResult<never> {
-  return refused('not_available', `${what} is not available in this version yet.`);
-}

@@ -1,4 +1,4 @@
-import { mkdirSync, readdirSync, statSync } from 'node:fs';
+import { mkdirSync } from 'node:fs';
 import { join } from 'node:path';
 import type { HostHandlers, HostValue } from '../../core/contract';
 import type { Case } from '../../core/model/caseFile';
@@ -7,9 +7,9 @@ import { monitoringCalendar } from '../../core/monitoring';
 import { buildSheet } from '../../core/report/buildSheet';
 import { evaluateFindings } from '../../core/safety';
 import { fail, issue, ok, type Result } from '../../core/result';
-import { readCaseFile } from './caseFiles';
-import { openCaseStore, type CaseStore, type DiskRevision, type OpenedCase } from './caseStore';
-import { notAvailable } from './hostDispatch';
+import { openCaseStore, type CaseStore, type OpenedCase } from './caseStore';
+import { importCommit, importDryRun } from './imports/importCalls';
+import { revisionFromToken, revisionToken } from './revisionToken';
 import { monitoringIcs } from './icalendar';
 import { writeFileAtomic } from './atomicWrite';
 import { sha256OfFile } from './contentHash';
@@ -37,17 +37,16 @@ type Summary = HostValue<'listCases'>[number];
 
 const noWorkspace = (): Result<never> => fail(issue('required', ['workspace'], 'No workspace folder is chosen yet; choose the folder that holds the case files.'));
 
-function withWorkspace<T>(environment: HostEnvironment, run: (folder: string) => Result<T>): Result<T> {
-  const folder = environment.workspace.get();
-  return folder === null ? noWorkspace() : run(folder);
+/** One line of the case list from the store's reading of the file (the same reading as openCase). */
+function summaryOf(caseId: string, opened: Result<OpenedCase>): Summary {
+  if (!opened.ok) return { caseId, patientLabel: null, archived: false, modifiedAt: null, issues: [...opened.issues] };
+  const { caseFile, warnings, revision } = opened.value;
+  return { caseId, patientLabel: caseFile.patient.label, archived: false, modifiedAt: new Date(revision.mtimeMs).toISOString(), issues: [...warnings] };
 }
 
-function summarise(folder: string, caseId: string): Summary {
-  const path = join(folder, caseId);
-  const modifiedAt = statSync(path).mtime.toISOString();
-  const read = readCaseFile(path);
-  if (!read.ok) return { caseId, patientLabel: null, archived: false, modifiedAt, issues: [...read.issues] };
-  return { caseId, patientLabel: read.value.patient.label, archived: false, modifiedAt, issues: [...(read.warnings ?? [])] };
+/** One line of the case list for a case just renamed or archived (read through the store). */
+async function summaryFromStore(caseStore: CaseStore, caseId: string): Promise<Summary> {
+  return summaryOf(caseId, await caseStore.open(caseId));
 }
 
 /** Write into the exports folder under a free name: `stem.ext`, else `stem-2.ext`, `stem-3.ext`… (atomically, never over an earlier export). */
@@ -66,14 +65,14 @@ async function writeFresh(folder: string, stem: string, extension: string, data:
   return fail(issue('already_exists', ['output'], `The exports folder ${folder} already holds 99 files named ${stem}; nothing was written.`));
 }
 
-/** A case as saved in the workspace (exports are made from the file, not from unsaved edits). */
-function savedCase(environment: HostEnvironment, caseId: string): Result<{ readonly folder: string; readonly path: string; readonly caseFile: Case }> {
+/** A case as saved in the workspace, read through the case store (exports are made from the file, not from unsaved edits). */
+async function savedCase(environment: HostEnvironment, caseId: string): Promise<Result<{ readonly folder: string; readonly path: string; readonly caseFile: Case }>> {
   const folder = environment.workspace.get();
   if (folder === null) return noWorkspace();
   const path = insideFolder(folder, caseId);
   if (!path.ok) return path;
-  const loaded = readCaseFile(path.value);
-  return loaded.ok ? ok({ folder, path: path.value, caseFile: loaded.value }) : loaded;
+  const opened = await openCaseStore(folder, { now: environment.now }).open(caseId);
+  return opened.ok ? ok({ folder, path: path.value, caseFile: opened.value.caseFile }) : opened;
 }
 
 /** An export of a case into the workspace's exports folder, named `<case>-<what>.<extension>`. */
@@ -82,32 +81,18 @@ async function writeExport(folder: string, caseId: string, what: string, extensi
   return written.ok ? ok({ path: written.value }) : written;
 }
 
-/** The contract's revision token for a file's state on disk: modification time, size and content hash. */
-export function revisionToken(revision: DiskRevision): string {
-  return `${revision.mtimeMs}|${revision.size}|${revision.sha256 || 'absent'}`;
-}
-
-/** The disk revision a token names, or an issue when the token is not one this host gave. */
-export function revisionFromToken(token: string): Result<DiskRevision> {
-  const [mtime, size, sha256] = token.split('|');
-  const mtimeMs = Number(mtime);
-  const bytes = Number(size);
-  if (!Number.isFinite(mtimeMs) || !Number.isInteger(bytes) || bytes < 0 || sha256 === undefined || !/^([0-9a-f]{64}|absent)$/.test(sha256)) {
-    return fail(issue('invalid_file', ['baseRevision'], 'The case was not opened through this window (its revision is not one this host gave); open it again before saving.'));
-  }
-  return ok({ mtimeMs, size: bytes, sha256: sha256 === 'absent' ? '' : sha256 });
-}
+export { revisionFromToken, revisionToken };
 
 const savedValue = (opened: OpenedCase) => ok({ caseId: opened.fileName, revision: revisionToken(opened.revision), warnings: [...opened.warnings] });
 
 /**
  * The host's services behind the contract, wired to what exists: case writes go
- * through app/host/caseStore.ts (atomic, journalled, refusing a silent overwrite); case files
- * are listed and opened with app/host/caseFiles.ts, the monitoring calendar is
+ * through app/host/caseStore.ts (atomic, journalled, refusing a silent overwrite), and so do
+ * listing and opening (one reading path); imports use the command line's own
+ * import (app/host/imports/importCase.ts, via importCalls.ts); the monitoring calendar is
  * written with app/host/icalendar.ts, the review sheet with app/host/sheetPdf.ts
  * (both into the workspace's exports folder, never over an earlier export),
- * settings with settingsStore.ts. Imports answer 'not_available' in words until
- * the import plan is shared with the command line's (app/cli/importCommand.ts).
+ * settings with settingsStore.ts.
  */
 export function createHostServices(environment: HostEnvironment): HostHandlers {
   const store = async <T>(run: (caseStore: CaseStore) => Promise<Result<T>>): Promise<Result<T>> => {
@@ -126,17 +111,11 @@ export function createHostServices(environment: HostEnvironment): HostHandlers {
       return ok({ folder: environment.workspace.get() });
     },
     listCases: () =>
-      withWorkspace(environment, (folder) => {
-        let names: string[];
-        try {
-          names = readdirSync(folder, { withFileTypes: true })
-            .filter((entry) => entry.isFile() && entry.name.endsWith('.json') && insideFolder(folder, entry.name).ok)
-            .map((entry) => entry.name)
-            .sort();
-        } catch (error) {
-          return fail(issue('invalid_file', ['workspace'], `Cannot read the workspace folder ${folder}: ${(error as Error).message}.`));
-        }
-        return ok(names.map((caseId) => summarise(folder, caseId)));
+      store(async (caseStore) => {
+        const every = await caseStore.openAll();
+        if (!every.ok) return every;
+        const names = every.value.filter(({ fileName }) => insideFolder(caseStore.folder, fileName).ok);
+        return ok(names.map(({ fileName, opened }) => summaryOf(fileName, opened)));
       }),
     openCase: ({ caseId }) =>
       store(async (caseStore) => {
@@ -165,11 +144,11 @@ export function createHostServices(environment: HostEnvironment): HostHandlers {
       store(async (caseStore) => {
         const renamed = await caseStore.rename(caseId, newCaseId);
         if (!renamed.ok) return renamed;
-        return ok(summarise(caseStore.folder, renamed.value.fileName));
+        return ok(summaryOf(renamed.value.fileName, renamed));
       }),
     archiveCase: ({ caseId }) =>
       store(async (caseStore) => {
-        const summary = summarise(caseStore.folder, caseId);
+        const summary = await summaryFromStore(caseStore, caseId);
         const archived = await caseStore.archive(caseId);
         if (!archived.ok) return archived;
         return ok({ ...summary, archived: true });
@@ -187,10 +166,10 @@ export function createHostServices(environment: HostEnvironment): HostHandlers {
           history: history.value.entries.map((entry) => ({ at: entry.at, description: entry.change })),
         });
       }),
-    importDryRun: () => notAvailable('Importing records'),
-    importCommit: () => notAvailable('Importing records'),
+    importDryRun: (request) => store((caseStore) => importDryRun(caseStore, request)),
+    importCommit: (request) => store((caseStore) => importCommit(caseStore, request)),
     exportSheetPdf: async ({ caseId, asOfDate, paper }) => {
-      const saved = savedCase(environment, caseId);
+      const saved = await savedCase(environment, caseId);
       if (!saved.ok) return saved;
       const { folder, path, caseFile } = saved.value;
       const computed = computeCase(caseFile, asOfDate);
@@ -206,7 +185,7 @@ export function createHostServices(environment: HostEnvironment): HostHandlers {
       return writeExport(folder, caseId, `sheet-${asOfDate}`, 'pdf', bytes);
     },
     exportCalendar: async ({ caseId, asOfDate }) => {
-      const saved = savedCase(environment, caseId);
+      const saved = await savedCase(environment, caseId);
       if (!saved.ok) return saved;
       const calendar = monitoringCalendar(saved.value.caseFile, asOfDate);
       if (!calendar.ok) return calendar;

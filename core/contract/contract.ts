@@ -88,6 +88,10 @@ const importRequestSchema = z.strictObject({
   sourceText: z.string().max(5_000_000),
   /** Column name → field, when the user corrected the guessed mapping. */
   columnMapping: z.record(z.string(), z.string()).optional(),
+  /** For CSV dates written without the year first (03/04/2026): how to read them; ambiguous dates are refused, never guessed, without it. */
+  dateOrder: z.enum(['day-first', 'month-first']).optional(),
+  /** For a FHIR Bundle: a local code map (a JSON file of our own format, checked by the host) for Observations LOINC has no code for. */
+  codeMap: z.strictObject({ sourceName: z.string().min(1).max(255), sourceText: z.string().max(1_000_000) }).optional(),
 });
 
 const importPreviewSchema = z.strictObject({
@@ -95,8 +99,10 @@ const importPreviewSchema = z.strictObject({
   counts: z.record(z.string(), z.number().int().nonnegative()),
   /** The first rows as they would be added, in words. */
   firstRows: z.array(z.string()),
-  /** Every row refused, with its line number (null for a whole-file problem) and reason. */
+  /** Every row refused, with its line number (null for a whole-file problem, a bundle entry or a code the import does not know) and reason. */
   rejected: z.array(z.strictObject({ line: z.number().int().positive().nullable(), reason: z.string() })),
+  /** What the import understood, to show beside the preview: the column mapping (guessed or given), the date order, the resources read. */
+  understood: z.array(z.string()).optional(),
 });
 
 const emptyRequest = z.strictObject({});

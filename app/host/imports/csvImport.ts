@@ -17,7 +17,7 @@ import { convertUcum, isUcumCode } from './ucum';
 
 export type CsvKind = 'transfusions' | 'results';
 
-const fieldsByKind: Readonly<Record<CsvKind, readonly string[]>> = {
+export const csvFieldsByKind: Readonly<Record<CsvKind, readonly string[]>> = {
   transfusions: ['date', 'volume', 'haematocrit', 'units', 'product'],
   results: ['date', 'test', 'value', 'unit'],
 };
@@ -113,7 +113,7 @@ export function readCsvImport(text: string, caseFile: Case | null, options: CsvO
   if (!kind) return fail(issue('invalid_file', ['line 1'], `line 1: the headers (${headers.join(', ').slice(0, 200)}) name neither transfusions (date, volume, haematocrit) nor results (date, test, value, unit); give --kind and --map.`));
   const mapping: Record<string, number> = {};
   const understood: string[] = [`kind: ${kind}${options.kind ? '' : ' (guessed from the headers)'}`];
-  for (const field of fieldsByKind[kind]) {
+  for (const field of csvFieldsByKind[kind]) {
     const given = options.mapping?.[field];
     const index = given !== undefined ? headers.indexOf(given) : headers.findIndex((it) => headerWords[field]!.includes(squash(it)));
     if (given !== undefined && index < 0) return fail(issue('invalid_file', ['--map', field], `--map ${field}=${given}: there is no column "${given}" (columns: ${headers.join(', ').slice(0, 200)}).`));

@@ -1,7 +1,9 @@
+import { basename } from 'node:path';
 import { z } from 'zod';
 import { ucumCodeForTypedUnit } from '../../../core/units/unitSpellings';
 import type { Case } from '../../../core/model/caseFile';
 import { fail, issue, ok, type Result } from '../../../core/result';
+import { codingKey, type CodeMap } from './codeMap';
 import { readImportDate } from './importDates';
 import { proposedTransfusion, resultUnitsByKind, toCaseUnit, withoutConversionNoise, type ImportPlan, type ProposedEntry, type Rejected } from './importPlan';
 import { loincCodes, loincSystem, redCellTransfusionSnomed, ucumSystem } from './loincCodes';
@@ -62,10 +64,11 @@ function quantityUnit(value: z.output<typeof quantity>, allowed: readonly string
  *
  * @param json - the parsed bundle
  * @param caseFile - the case it would go into (its units are used), or null
+ * @param codeMap - local codes for Observations LOINC has no code for (codeMap.ts); looked up after the built-in LOINC codes
  * @returns the plan (entries, rejected resources with where and why, unknown codes, the patient's birth date and sex),
  *   or an issue when the input is not a Bundle
  */
-export function readFhirImport(json: unknown, caseFile: Case | null): Result<ImportPlan> {
+export function readFhirImport(json: unknown, caseFile: Case | null, codeMap?: CodeMap): Result<ImportPlan> {
   const bundle = bundleSchema.safeParse(json);
   if (!bundle.success) return fail(issue('invalid_file', ['resourceType'], `The file is not a FHIR Bundle (${firstIssue(bundle.error)}).`));
   const entries: ProposedEntry[] = [];
@@ -103,7 +106,8 @@ export function readFhirImport(json: unknown, caseFile: Case | null): Result<Imp
         const observation = read.data;
         const codings = observation.code.coding ?? [];
         const known = codings.find((it) => it.system === loincSystem && it.code !== undefined && loincCodes[it.code] !== undefined);
-        if (!known) {
+        const mapped = known ? undefined : codings.map((it) => (it.system && it.code ? codeMap?.entries.get(codingKey(it.system, it.code)) : undefined)).find((it) => it !== undefined);
+        if (!known && !mapped) {
           for (const it of codings.length > 0 ? codings : [{ system: '', code: '(no coding)', display: observation.code.text ?? '' }]) {
             unknownCodes.push({ where, code: `${it.system ?? ''}|${it.code ?? ''}`, display: it.display ?? observation.code.text ?? '' });
           }
@@ -114,7 +118,25 @@ export function readFhirImport(json: unknown, caseFile: Case | null): Result<Imp
         const date = dateText ? readImportDate(dateText, undefined) : undefined;
         if (!date?.ok) return reject(date ? `date ${date.reason}` : 'no effective date or issued time');
         if (!observation.valueQuantity) return reject('no valueQuantity');
-        const target = loincCodes[known.code!]!.target;
+        if (mapped) {
+          // A local code (codeMap.ts): the value converted to the map's unit, the map's method, field strength and calibration.
+          const typed = observation.valueQuantity.code ?? observation.valueQuantity.unit ?? '';
+          const unit = quantityUnit(observation.valueQuantity, [mapped.unit]);
+          const converted = unit === undefined ? undefined : convertUcum(observation.valueQuantity.value, unit, mapped.unit, where);
+          if (!converted?.ok) return reject(`${observation.valueQuantity.value} ${typed} cannot be converted to ${mapped.unit}, the unit code map ${codeMap!.name} gives for ${codingKey(mapped.system, mapped.code)}`);
+          entries.push({
+            list: 'results',
+            where,
+            entry: {
+              date: date.date,
+              ...mapped.result,
+              measured: { value: withoutConversionNoise(converted.value), unit: mapped.unit },
+              note: `imported from FHIR ${where.split(' ')[1]} (local code ${codingKey(mapped.system, mapped.code)}, code map ${basename(codeMap!.name)})`,
+            },
+          });
+          return;
+        }
+        const target = loincCodes[known!.code!]!.target;
         if (target.list === 'weights' || target.list === 'heights') {
           const toUnit = target.list === 'weights' ? 'kg' : 'cm';
           const unit = quantityUnit(observation.valueQuantity, [toUnit]);
@@ -132,7 +154,7 @@ export function readFhirImport(json: unknown, caseFile: Case | null): Result<Imp
         entries.push({
           list: 'results',
           where,
-          entry: { date: date.date, kind: target.kind, ...(target.method ? { method: target.method } : {}), measured: stored.value, note: `imported from FHIR ${where.split(' ')[1]} (LOINC ${known.code})` },
+          entry: { date: date.date, kind: target.kind, ...(target.method ? { method: target.method } : {}), measured: stored.value, note: `imported from FHIR ${where.split(' ')[1]} (LOINC ${known!.code})` },
         });
         return;
       }
@@ -168,5 +190,6 @@ export function readFhirImport(json: unknown, caseFile: Case | null): Result<Imp
   });
   const understood = [`FHIR R4 Bundle: ${Object.entries(counts).map(([type, count]) => `${count} ${type}`).join(', ') || 'no resources'}`];
   if (patient) understood.push('Patient: birth date and sex only (names and identifiers are not read)');
+  if (codeMap) understood.push(`local codes: ${codeMap.entries.size} from code map ${codeMap.name}`);
   return ok({ format: 'fhir', understood, entries, rejected, unknownCodes, ...(patient ? { patient } : {}) });
 }

@@ -10,7 +10,8 @@
  * Content Implementation Guide 2026.1.0 (expansion from LOINC 2.82), and in the
  * US Core serum total bilirubin example (LOINC 1975-2, mg/dL).
  * No LOINC code was found for MRI liver iron, liver R2-star or T2-star, or cardiac T2-star:
- * those are not imported from FHIR and are listed as unknown codes.
+ * those are listed as unknown codes, unless a local code map (codeMap.ts) names
+ * the site's codes for them.
  */
 export type LoincTarget =
   | { readonly list: 'results'; readonly kind: string; readonly method?: 'biopsy' }

@@ -61,11 +61,6 @@ describe('host services over a workspace of the demo cases', () => {
     expect(insideFolder('/work/cases', 'th-0417.json')).toEqual({ ok: true, value: '/work/cases/th-0417.json' });
   });
 
-  it('answers in words for a service that has not landed, naming what is missing', async () => {
-    const answer = await createHostDispatch(createHostServices(demoEnvironment()))('importDryRun', { caseId: 'th-0417.json', kind: 'csv-results', sourceName: 'r.csv', sourceText: 'date,test,value,unit' });
-    expect(answer).toEqual({ ok: false, issues: [expect.objectContaining({ code: 'not_available', message: 'Importing records is not available in this version yet.' })] });
-  });
-
   it('saves through the case store: the change reaches the file and its journal, and a stale revision is refused', async () => {
     const environment = demoEnvironment();
     const dispatch = createHostDispatch(createHostServices(environment));

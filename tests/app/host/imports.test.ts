@@ -195,3 +195,57 @@ describe('import command', () => {
     expect(run.out).not.toContain('Chalmers');
   });
 });
+
+describe('import --code-map', () => {
+  // Built on the R4 Observation/example pattern: a local coding (system http://acme.org/devices/clinical-codes)
+  // beside or instead of LOINC; the codes and values are invented (LOINC has no MRI liver iron code, loincCodes.ts).
+  const local = 'http://acme.org/devices/clinical-codes';
+  const mri = (id: string, code: string, value: number, unit: string) => ({
+    resourceType: 'Observation',
+    id,
+    status: 'final',
+    code: { coding: [{ system: local, code }] },
+    effectiveDateTime: '2026-11-24',
+    valueQuantity: { value, unit, system: 'http://unitsofmeasure.org', code: unit },
+  });
+  const map = {
+    format: 'chelation-ledger-code-map',
+    version: 1,
+    codes: [{ system: local, code: 'liver-t2star', result: { kind: 'liver-iron', method: 'mri-t2star', fieldStrengthT: 1.5, calibrationId: 'hernando-1.5t' }, unit: 'ms' }],
+  };
+
+  it('maps a local code to a result kind and unit, and still lists the codes it does not know', async () => {
+    const folder = tempDir();
+    const casePath = join(folder, 'th-0417.json');
+    copyFileSync(demoCase('th-0417'), casePath);
+    const bundlePath = join(folder, 'mri.json');
+    writeFileSync(bundlePath, JSON.stringify(bundle(mri('a', 'liver-t2star', 6.2, 'ms'), mri('b', 'pancreas-r2star', 80, 's-1'))));
+    const mapPath = join(folder, 'codes.json');
+    writeFileSync(mapPath, JSON.stringify(map));
+    const run = await cli('import', bundlePath, '--into', casePath, '--code-map', mapPath, '--dry-run');
+    expect(run.code, run.err).toBe(0);
+    expect(run.out).toContain('Would add: 0 transfusion(s), 1 result(s)');
+    expect(run.out).toContain('2026-11-24 liver-iron 6.2 ms');
+    expect(run.out).toContain(`entry[1] Observation/b: ${local}|pancreas-r2star`);
+    const without = await cli('import', bundlePath, '--into', casePath, '--dry-run');
+    expect(without.out).toContain('Codes not known to the import (not imported): 2');
+  });
+
+  it('refuses a code map that is not valid, naming the file and the field, and imports nothing', async () => {
+    const folder = tempDir();
+    const casePath = join(folder, 'th-0417.json');
+    copyFileSync(demoCase('th-0417'), casePath);
+    const before = readFileSync(casePath, 'utf8');
+    const bundlePath = join(folder, 'mri.json');
+    writeFileSync(bundlePath, JSON.stringify(bundle(mri('a', 'liver-t2star', 6.2, 'ms'))));
+    const mapPath = join(folder, 'codes.json');
+    writeFileSync(mapPath, JSON.stringify({ ...map, codes: [{ ...map.codes[0], result: { kind: 'liver-iron', method: 'mri-t2star' } }] }));
+    const run = await cli('import', bundlePath, '--into', casePath, '--code-map', mapPath);
+    expect(run.code).toBe(1);
+    expect(run.err).toContain(`Code map ${mapPath}, codes[0].result`);
+    const missing = await cli('import', bundlePath, '--into', casePath, '--code-map', join(folder, 'nope.json'));
+    expect(missing.code).toBe(1);
+    expect(missing.err).toContain('nope.json');
+    expect(readFileSync(casePath, 'utf8')).toBe(before);
+  });
+});
