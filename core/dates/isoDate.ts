@@ -1,23 +1,39 @@
 import { UTCDate } from '@date-fns/utc';
-import { addDays, addMonths, endOfMonth, format, startOfMonth } from 'date-fns';
 
 /**
- * Calendar dates as ISO strings 'YYYY-MM-DD'. Arithmetic runs in UTC
- * (date-fns with @date-fns/utc's UTCDate) so a review gives the same months
- * and day counts on every desktop, whatever its time zone.
+ * Calendar dates as ISO strings 'YYYY-MM-DD'. Arithmetic runs on the calendar
+ * itself (year, month and day numbers, and whole UTC days) so a review gives
+ * the same months and day counts on every desktop, whatever its time zone.
+ * The results are those of date-fns over @date-fns/utc's UTCDate (the tests
+ * check them against it); the day and month arithmetic is written out here
+ * because the ledger calls it thousands of times per review, where building
+ * Date objects and formatting them was most of the cost.
  */
 export type IsoDate = string;
 
-const isoPattern = /^(\d{4})-(\d{2})-(\d{2})$/;
+/** The number written by the ASCII digits text[from..to), or -1 if any is not a digit (what /\d/ accepts). */
+function digitsAt(text: string, from: number, to: number): number {
+  let value = 0;
+  for (let index = from; index < to; index += 1) {
+    const digit = text.charCodeAt(index) - 48;
+    if (digit < 0 || digit > 9) return -1;
+    value = value * 10 + digit;
+  }
+  return value;
+}
+
+const hyphen = 45;
 
 /**
  * True for a real calendar date written 'YYYY-MM-DD' (2026-02-30 is false).
  * @example isIsoDate('2024-02-29') === true; isIsoDate('2025-02-29') === false
  */
 export function isIsoDate(text: string): boolean {
-  const match = isoPattern.exec(text);
-  if (!match) return false;
-  const [year, month, day] = [Number(match[1]), Number(match[2]), Number(match[3])];
+  // The shape /^\d{4}-\d{2}-\d{2}$/, read character by character: this runs for every date of every case opened.
+  if (typeof text !== 'string' || text.length !== 10 || text.charCodeAt(4) !== hyphen || text.charCodeAt(7) !== hyphen) return false;
+  const year = digitsAt(text, 0, 4);
+  const month = digitsAt(text, 5, 7);
+  const day = digitsAt(text, 8, 10);
   // Years 0000–0099 stay invalid, as they were when this read them through Date (which maps them to 19xx).
   if (year < 100 || month < 1 || month > 12 || day < 1) return false;
   return day <= daysInMonth(year, month);
@@ -29,16 +45,27 @@ function daysInMonth(year: number, month: number): number {
   return month === 4 || month === 6 || month === 9 || month === 11 ? 30 : 31;
 }
 
-/** A UTC date from 'YYYY-MM-DD'; throws on an invalid date (validate at the edge first). */
-export function toUtcDate(iso: IsoDate): UTCDate {
-  const match = isoPattern.exec(iso);
-  if (!match || !isIsoDate(iso)) throw new Error(`Not an ISO calendar date: ${iso}`);
-  return new UTCDate(Number(match[1]), Number(match[2]) - 1, Number(match[3]));
+/** Year, month (1–12) and day of a valid ISO date; throws on an invalid date (validate at the edge first). */
+function partsOf(iso: IsoDate): readonly [year: number, month: number, day: number] {
+  if (!isIsoDate(iso)) throw new Error(`Not an ISO calendar date: ${iso}`);
+  return [digitsAt(iso, 0, 4), digitsAt(iso, 5, 7), digitsAt(iso, 8, 10)];
 }
 
-/** 'YYYY-MM-DD' of a date, read in UTC. */
+/** 'YYYY-MM-DD' from year, month (1–12) and day, the year padded to four digits (date-fns' 'yyyy'). */
+function isoOf(year: number, month: number, day: number): IsoDate {
+  return `${String(year).padStart(4, '0')}-${month < 10 ? '0' : ''}${month}-${day < 10 ? '0' : ''}${day}`;
+}
+
+/** A UTC date from 'YYYY-MM-DD'; throws on an invalid date (validate at the edge first). */
+export function toUtcDate(iso: IsoDate): UTCDate {
+  const [year, month, day] = partsOf(iso);
+  return new UTCDate(year, month - 1, day);
+}
+
+/** 'YYYY-MM-DD' of a date, read in UTC; throws a RangeError for an invalid Date, as date-fns' format does. */
 export function toIsoDate(date: Date): IsoDate {
-  return format(new UTCDate(date), 'yyyy-MM-dd');
+  if (Number.isNaN(date.getTime())) throw new RangeError('Invalid time value');
+  return isoOf(date.getUTCFullYear(), date.getUTCMonth() + 1, date.getUTCDate());
 }
 
 /** Whole calendar days from `earlierDate` to `laterDate` (negative if reversed). @example daysBetween('2026-01-01','2026-03-01') === 59 */
@@ -51,24 +78,37 @@ export function daysBetween(earlierDate: IsoDate, laterDate: IsoDate): number {
   return epochDayFromIso(laterDate) - epochDayFromIso(earlierDate);
 }
 
+/** A count of days or months as date-fns applies it (Date's setters drop the fraction); NaN is refused. */
+function wholeCount(count: number, date: IsoDate): number {
+  if (Number.isNaN(count)) throw new RangeError(`Cannot add NaN to ${date}`);
+  return Math.trunc(count);
+}
+
 /** @example addDaysIso('2026-02-27', 3) === '2026-03-02' */
 export function addDaysIso(date: IsoDate, count: number): IsoDate {
-  return toIsoDate(addDays(toUtcDate(date), count));
+  partsOf(date);
+  return isoFromEpochDay(epochDayFromIso(date) + wholeCount(count, date));
 }
 
 /** Adds calendar months, clamping to the month's end. @example addMonthsIso('2026-01-31', 1) === '2026-02-28' */
 export function addMonthsIso(date: IsoDate, count: number): IsoDate {
-  return toIsoDate(addMonths(toUtcDate(date), count));
+  const [year, month, day] = partsOf(date);
+  const monthIndex = year * 12 + (month - 1) + wholeCount(count, date);
+  const newYear = Math.floor(monthIndex / 12);
+  const newMonth = monthIndex - newYear * 12 + 1;
+  return isoOf(newYear, newMonth, Math.min(day, daysInMonth(newYear, newMonth)));
 }
 
 /** @example monthStartIso('2026-11-20') === '2026-11-01' */
 export function monthStartIso(date: IsoDate): IsoDate {
-  return toIsoDate(startOfMonth(toUtcDate(date)));
+  const [year, month] = partsOf(date);
+  return isoOf(year, month, 1);
 }
 
 /** @example monthEndIso('2024-02-10') === '2024-02-29' */
 export function monthEndIso(date: IsoDate): IsoDate {
-  return toIsoDate(endOfMonth(toUtcDate(date)));
+  const [year, month] = partsOf(date);
+  return isoOf(year, month, daysInMonth(year, month));
 }
 
 /** 'YYYY-MM' of a date. @example monthKey('2026-11-20') === '2026-11' */
