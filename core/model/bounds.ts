@@ -11,10 +11,19 @@ import type { IssueCode } from '../result';
  *   ferritin above 20 000 µg/L), so it is kept and the user is warned.
  * Every message states the plausible range.
  *
- * The same schema is built at two levels (see {@link CheckLevel}) so that one
+ * The same schema is built at each level (see {@link CheckLevel}) so that one
  * declaration of a field serves both checks and the paths come from zod.
+ *
+ * - 'refuse': the possible range (and whole numbers); its issues are errors;
+ * - 'warn': the plausible range; its issues are warnings;
+ * - 'both': what 'refuse' checks and, for a value that passes, what 'warn'
+ *   checks, its issues marked `warning` in their params. parseCase reads a
+ *   case in this one pass: a warning issue is non-aborting in zod (a
+ *   refinement's issue continues), so the errors of this pass are exactly
+ *   those of the 'refuse' pass and its warnings those of the 'warn' pass, in
+ *   the same order (tests/core/model/onePassParse.test.ts compares them).
  */
-export type CheckLevel = 'refuse' | 'warn';
+export type CheckLevel = 'refuse' | 'warn' | 'both';
 
 export type { Bounds } from '../ranges/bounds';
 import type { Bounds } from '../ranges/bounds';
@@ -22,6 +31,8 @@ import type { Bounds } from '../ranges/bounds';
 /** Issue parameters our checks attach to zod's 'custom' issues; see zodIssues.ts. */
 export interface CustomIssueParams {
   readonly code: IssueCode;
+  /** Set on a plausibility finding raised at the 'both' level: a warning, not a refusal. */
+  readonly warning?: true;
 }
 
 export { displayUnit } from '../units/displayUnit';
@@ -58,6 +69,8 @@ interface BoundsFinding {
   readonly code: IssueCode;
   /** The message after the field's name. */
   readonly message: string;
+  /** A plausibility finding at the 'both' level (at 'warn' every finding is one; at 'refuse' none is). */
+  readonly warning?: true;
 }
 
 /**
@@ -66,17 +79,25 @@ interface BoundsFinding {
  *
  * @param value - a finite number in the unit of `bounds`
  * @param bounds - possible and plausible ranges
- * @param level - 'refuse' checks the possible range and whole numbers; 'warn' the plausible range
+ * @param level - 'refuse' checks the possible range and whole numbers; 'warn' the plausible range; 'both' the
+ *   first and, if the value passes it, the second (that finding marked `warning`)
  * @returns the finding, or undefined when the value passes
  * @example checkBounds(60, unitHaematocritBounds, 'refuse')?.message === '60 is outside 0.40–0.85; enter it as a fraction (0.60).'
  */
 export function checkBounds(value: number, bounds: Bounds, level: CheckLevel): BoundsFinding | undefined {
-  const plausible = plausibleRangeText(bounds);
+  if (level === 'both') {
+    const refused = checkBounds(value, bounds, 'refuse');
+    if (refused) return refused;
+    const screened = checkBounds(value, bounds, 'warn');
+    return screened ? { ...screened, warning: true } : undefined;
+  }
+  // The range text is built only for a value that is reported: most values pass, and this runs for every number of every case opened.
   if (level === 'refuse') {
     if (bounds.integer && !Number.isInteger(value)) {
-      return { code: 'not_an_integer', message: `${value} is not a whole number; expected ${plausible}.` };
+      return { code: 'not_an_integer', message: `${value} is not a whole number; expected ${plausibleRangeText(bounds)}.` };
     }
     if (!isOutsidePossible(value, bounds)) return undefined;
+    const plausible = plausibleRangeText(bounds);
     if (bounds.fraction && value > 1 && value <= 100) {
       return {
         code: 'out_of_range',
@@ -92,7 +113,7 @@ export function checkBounds(value: number, bounds: Bounds, level: CheckLevel): B
   if (value >= min && value <= max) return undefined;
   return {
     code: 'out_of_range',
-    message: `${withUnit(String(value), bounds.unit)} is outside the plausible range ${plausible}; check the value and its unit.`,
+    message: `${withUnit(String(value), bounds.unit)} is outside the plausible range ${plausibleRangeText(bounds)}; check the value and its unit.`,
   };
 }
 
@@ -119,9 +140,28 @@ function boundsMeta(bounds: Bounds) {
   };
 }
 
-function addFinding(ctx: z.RefinementCtx, finding: BoundsFinding | undefined, path: readonly (string | number)[] = []): void {
+/**
+ * Raise a bounds finding as a zod issue at a path below the refinement, a
+ * 'both'-level plausibility finding marked as a warning.
+ *
+ * @param ctx - the refinement's context
+ * @param finding - from {@link checkBounds}; nothing is raised without one
+ * @param path - below the refined value, e.g. ['dose', 'value']
+ */
+export function addFinding(ctx: z.RefinementCtx, finding: BoundsFinding | undefined, path: readonly (string | number)[] = []): void {
   if (!finding) return;
-  ctx.addIssue({ code: 'custom', message: finding.message, path: [...path], params: { code: finding.code } satisfies CustomIssueParams });
+  const params: CustomIssueParams = finding.warning ? { code: finding.code, warning: true } : { code: finding.code };
+  ctx.addIssue({ code: 'custom', message: finding.message, path: [...path], params });
+}
+
+/**
+ * Whether a zod issue is a plausibility warning raised at the 'both' level.
+ *
+ * @param zodIssue - an issue of a 'both'-level parse
+ * @returns true for a warning; false for a refusal
+ */
+export function isWarningIssue(zodIssue: z.core.$ZodIssue): boolean {
+  return zodIssue.code === 'custom' && (zodIssue.params as Partial<CustomIssueParams> | undefined)?.warning === true;
 }
 
 /**
@@ -187,7 +227,7 @@ export function measuredQuantity<const Unit extends string>(boundsByUnit: Readon
     })
     .superRefine((quantity, ctx) => {
       const finding = checkBounds(quantity.value, boundsByUnit[quantity.unit], level);
-      const other = level === 'warn' && finding ? otherUnitThatFits(quantity.value, quantity.unit, boundsByUnit) : undefined;
+      const other = finding && (level === 'warn' || finding.warning) ? otherUnitThatFits(quantity.value, quantity.unit, boundsByUnit) : undefined;
       addFinding(
         ctx,
         finding && other ? { ...finding, message: `${finding.message.replace(/; check the value and its unit\.$/u, '')}; it would be plausible in ${displayUnit(other)} (${plausibleRangeText(boundsByUnit[other])}): check the unit.` } : finding,

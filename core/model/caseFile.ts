@@ -28,7 +28,7 @@ export const thresholdOverridesSchema = refuseReservedKeys('a threshold id').pip
 );
 
 /**
- * Schema of a version 2 case file at one check level ('refuse' or 'warn',
+ * Schema of a version 2 case file at one check level ('refuse', 'warn' or 'both',
  * see bounds.ts). Lists may be omitted and default to empty. This schema is
  * the single source of the format: the types below are derived from it, and
  * version 1 files are read through the migration (migrate.ts).
@@ -67,8 +67,12 @@ export function caseSchemaAt(level: CheckLevel) {
   });
 }
 
-/** The two levels, built once. */
-export const caseSchemas = { refuse: caseSchemaAt('refuse'), warn: caseSchemaAt('warn') } as const;
+/**
+ * The levels parseCase reads with, built once: 'both' (refusals and
+ * warnings in one pass) and 'refuse' (for the parsed value when that pass
+ * found warnings only: zod returns no value with issues).
+ */
+export const caseSchemas = { refuse: caseSchemaAt('refuse'), both: caseSchemaAt('both') } as const;
 
 type DeepReadonly<T> = T extends string | number | boolean | null | undefined
   ? T

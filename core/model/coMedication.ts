@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { checkBounds, measuredQuantity, type CheckLevel, type CustomIssueParams } from './bounds';
+import { addFinding, checkBounds, measuredQuantity, type CheckLevel, type CustomIssueParams } from './bounds';
 import { entryIdSchema, isoDateSchema, noteSchema, requiredTextSchema } from './fields';
 import { ascorbicAcidDoseBounds, coMedicationDoseBounds } from '../ranges/plausibleRanges';
 
@@ -60,7 +60,6 @@ export function coMedicationSchemaAt(level: CheckLevel) {
         });
         return;
       }
-      const finding = checkBounds(value, ascorbicAcidDoseBounds[unit], level);
-      if (finding) ctx.addIssue({ code: 'custom', path: ['dose', 'value'], message: finding.message, params: { code: finding.code } satisfies CustomIssueParams });
+      addFinding(ctx, checkBounds(value, ascorbicAcidDoseBounds[unit], level), ['dose', 'value']);
     });
 }

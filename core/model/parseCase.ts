@@ -1,4 +1,5 @@
-import { fail, ok, type Result } from '../result';
+import { fail, ok, type Issue, type Result } from '../result';
+import { isWarningIssue } from './bounds';
 import { caseSchemas, type Case } from './caseFile';
 import { consistencyIssues } from './consistency';
 import { migrateCase } from './migrate';
@@ -27,16 +28,25 @@ export function parseCase(json: unknown): Result<Case> {
   const migrated = migrateCase(json);
   if (!migrated.ok) return migrated;
 
-  const refused = caseSchemas.refuse.safeParse(migrated.value, { reportInput: true });
-  if (!refused.success) return fail(...issuesFromZod(refused.error.issues, 'error'));
+  // One pass at the 'both' level finds the refusals and the range warnings (bounds.ts says why they are
+  // exactly those of a 'refuse' pass and a 'warn' pass); most cases have neither, and are read once.
+  const checked = caseSchemas.both.safeParse(migrated.value, { reportInput: true });
+  let theCase: Case;
+  let rangeWarnings: Issue[] = [];
+  if (checked.success) {
+    theCase = checked.data;
+  } else {
+    const refusals = checked.error.issues.filter((it) => !isWarningIssue(it));
+    if (refusals.length > 0) return fail(...issuesFromZod(refusals, 'error'));
+    rangeWarnings = issuesFromZod(checked.error.issues, 'warning');
+    // Only warnings: zod gives no value with issues, so the value comes from the refusing level, which passes.
+    const refused = caseSchemas.refuse.safeParse(migrated.value, { reportInput: true });
+    if (!refused.success) return fail(...issuesFromZod(refused.error.issues, 'error'));
+    theCase = refused.data;
+  }
 
-  const theCase: Case = refused.data;
   const crossField = consistencyIssues(theCase);
   const errors = crossField.filter((it) => it.severity === 'error');
   if (errors.length > 0) return fail(...errors);
-
-  // The same structure at the plausibility level: its issues are only range warnings.
-  const screened = caseSchemas.warn.safeParse(migrated.value, { reportInput: true });
-  const rangeWarnings = screened.success ? [] : issuesFromZod(screened.error.issues, 'warning');
   return ok(theCase, [...rangeWarnings, ...crossField.filter((it) => it.severity === 'warning')]);
 }
