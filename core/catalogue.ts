@@ -28,8 +28,27 @@ for (const formula of formulaCatalogue) {
   byId.set(formula.id, formula);
 }
 
+/**
+ * Ids a formula was known by before a rename, still accepted by `calc` so a command line a user
+ * relies on keeps working. Output always names the current id.
+ */
+export const formulaIdAliases: Readonly<Record<string, string>> = {
+  'dfo-therapeutic-index': 'deferoxamine-therapeutic-index',
+};
+
+/**
+ * Input names a formula used before a rename (formula id → former name → current name), still
+ * accepted by `calc` as flags (`--days`), so a command line a user relies on keeps working.
+ */
+export const formulaInputAliases: Readonly<Record<string, Readonly<Record<string, string>>>> = {
+  'net-iron-balance': { days: 'periodDays' },
+  'measured-chelation': { days: 'intervalDays' },
+  'projected-lic': { days: 'daysAhead' },
+};
+
+/** The formula with this id, or with a former id listed in `formulaIdAliases`. */
 export function findFormula(id: string): AnyFormula | undefined {
-  return byId.get(id);
+  return byId.get(id) ?? (Object.hasOwn(formulaIdAliases, id) ? byId.get(formulaIdAliases[id]!) : undefined);
 }
 
 export const formulaIds: readonly string[] = formulaCatalogue.map((it) => it.id);

@@ -1,4 +1,4 @@
-import { formulaCatalogue, findFormula } from '../../core/catalogue';
+import { formulaCatalogue, formulaInputAliases, findFormula } from '../../core/catalogue';
 import { describeFormula, flagForInput, type FormulaDescription } from '../../core/formulas/describe';
 import type { Derivation, Origin } from '../../core/formulas/derivation';
 import { runFormula } from '../../core/formulas/run';
@@ -37,13 +37,18 @@ export function calcCommand(args: ParsedArgs, io: CliIo): number {
     return exitCodes.usage;
   }
   const flagToName = new Map(Object.keys(formula.inputs).map((input) => [flagForInput(input), input]));
+  const formerFlags = new Map(
+    Object.entries(formulaInputAliases[formula.id] ?? {}).map(([former, current]) => [flagForInput(former), current]),
+  );
   const problems: string[] = [];
   for (const flag of args.missingValues) problems.push(`${flag}: a value is missing after the flag.`);
   const raw: Record<string, string> = {};
   for (const [flag, value] of Object.entries(args.options)) {
-    const input = flagToName.get(flag);
+    const input = flagToName.get(flag) ?? formerFlags.get(flag);
     if (input === undefined) {
       problems.push(`${flag}: not an input of ${formula.id}. Its inputs: ${[...flagToName.keys()].join(', ')}.`);
+    } else if (Object.hasOwn(raw, input)) {
+      problems.push(`${flag}: ${flagForInput(input)} is given as well; give it once.`);
     } else {
       raw[input] = value;
     }

@@ -204,8 +204,8 @@ export const deferasiroxFormulation = defineFormula({
   }),
 });
 
-export const dfoTherapeuticIndex = defineFormula({
-  id: 'dfo-therapeutic-index',
+export const deferoxamineTherapeuticIndexFormula = defineFormula({
+  id: 'deferoxamine-therapeutic-index',
   title: 'Deferoxamine therapeutic index',
   expression: 'index = mean daily dose (mg/kg) / serum ferritin (µg/L); mean daily dose = dose per infusion × infusions per week / 7',
   sourceIds: ['porter-1989', 'common-practice'],
@@ -240,5 +240,5 @@ export const chelatorsFormulas: readonly AnyFormula[] = [
   expectedExcretion,
   saltToBase,
   deferasiroxFormulation,
-  dfoTherapeuticIndex,
+  deferoxamineTherapeuticIndexFormula,
 ];

@@ -77,7 +77,7 @@ export function bodyIronOnDate(
     {
       transfusionalNetMg: sinceIron.value.outputs.netMg,
       chelationRemovalMg: chelationSinceMg,
-      days: lastIndex - anchorIndex,
+      periodDays: lastIndex - anchorIndex,
     },
     {
       overrides,
@@ -92,7 +92,7 @@ export function bodyIronOnDate(
           refs: periodsSince.map((it) => it.id),
           assumptions: efficiencyUsesOf(periodsSince, overrides),
         },
-        days: { kind: 'record', description: `days ${addDaysIso(lastLic.date, 1)} to ${asOf}`, refs: [] },
+        periodDays: { kind: 'record', description: `days ${addDaysIso(lastLic.date, 1)} to ${asOf}`, refs: [] },
       },
     },
   );

@@ -38,13 +38,13 @@ export const netIronBalance = defineFormula({
     transfusionalNetMg: { kind: 'number', label: 'net transfusional iron', unit: 'mg', min: -1000000, max: 1000000, meaning: 'iron in transfused red cells minus iron in removed blood' },
     chelationRemovalMg: { kind: 'number', label: 'expected chelation removal', unit: 'mg', min: 0, max: 1000000, meaning: 'sum of the regimens’ expected removal over the period' },
     basalLossMgPerDay: { kind: 'number', label: 'basal loss', unit: 'mg/d', min: 0, max: 3, assumption: 'basal-iron-loss-mg-per-day', meaning: 'basal iron loss per day' },
-    days: { kind: 'number', label: 'period', unit: 'd', min: 0, max: 36600, meaning: 'days in the period' },
+    periodDays: { kind: 'number', label: 'period', unit: 'd', min: 0, max: 36600, meaning: 'days in the period' },
   },
   outputs: {
     netMg: { label: 'net iron balance', unit: 'mg', meaning: 'iron in minus iron out', decimals: 0 },
   },
-  compute: ({ transfusionalNetMg, chelationRemovalMg, basalLossMgPerDay, days }) => ({
-    netMg: netIronBalanceMg(transfusionalNetMg, chelationRemovalMg, basalLossMgPerDay, days),
+  compute: ({ transfusionalNetMg, chelationRemovalMg, basalLossMgPerDay, periodDays }) => ({
+    netMg: netIronBalanceMg(transfusionalNetMg, chelationRemovalMg, basalLossMgPerDay, periodDays),
   }),
 });
 
@@ -82,7 +82,7 @@ export const measuredChelation = defineFormula({
     fromWeightKg: weight('weight at the first LIC'),
     toWeightKg: weight('weight at the second LIC'),
     basalLossMg: { kind: 'number', label: 'basal loss in the interval', unit: 'mg', min: 0, max: 20000, meaning: 'basal iron loss over the interval' },
-    days: { kind: 'number', label: 'interval', unit: 'd', min: 1, max: 7300, meaning: 'days between the two LIC results' },
+    intervalDays: { kind: 'number', label: 'interval', unit: 'd', min: 1, max: 7300, meaning: 'days between the two LIC results' },
     meanWeightKg: weight('mean weight over the interval'),
     expectedMg: { kind: 'number', label: 'expected chelation removal in the interval', unit: 'mg', min: 0, max: 200000, meaning: 'sum of the regimens’ expected removal' },
   },
@@ -102,7 +102,7 @@ export const measuredChelation = defineFormula({
       toWeightKg: inputs.toWeightKg,
       basalLossMg: inputs.basalLossMg,
     });
-    const perKgPerDay = (mg: number) => mg / inputs.meanWeightKg / inputs.days;
+    const perKgPerDay = (mg: number) => mg / inputs.meanWeightKg / inputs.intervalDays;
     return {
       storesChangeMg: balance.storesChangeMg,
       measuredMg: balance.chelationMg,
@@ -129,7 +129,7 @@ export const projectedLicFormula = defineFormula({
     weightKg: weight('weight at the review date'),
     weightGainKgPerYear: { kind: 'number', label: 'weight gain while growing', unit: 'kg/a', min: 0, max: 10, meaning: 'the patient’s own recent trend, bounded; 0 for an adult' },
     growthDays: { kind: 'number', label: 'days the weight gain applies', unit: 'd', min: 0, max: 7000, meaning: 'days until age 18 (0 for an adult)' },
-    days: { kind: 'number', label: 'days ahead', unit: 'd', min: 0, max: 3660, meaning: 'days from the review date' },
+    daysAhead: { kind: 'number', label: 'days ahead', unit: 'd', min: 0, max: 3660, meaning: 'days from the review date' },
     intakeMgPerDay: { kind: 'number', label: 'future intake', unit: 'mg/d', min: -500, max: 500, meaning: 'transfusional iron net of blood removed, per day' },
     removalMgPerDay: { kind: 'number', label: 'chelation removal on the review date', unit: 'mg/d', min: 0, max: 500, meaning: 'expected (or measured) removal of the regimen, per day: the calibration point' },
     basalLossMgPerDay: { kind: 'number', label: 'basal loss', unit: 'mg/d', min: 0, max: 3, assumption: 'basal-iron-loss-mg-per-day', meaning: 'basal iron loss per day' },
@@ -152,7 +152,7 @@ export const projectedLicFormula = defineFormula({
       burdenShare: inputs.burdenShare,
       calibrationExcessMg: calibrationExcessMg(inputs.startBodyIronMg, inputs.weightKg, inputs.floorLicMgPerGDry),
     };
-    const stores = storesAfterDays(model, inputs.days);
+    const stores = storesAfterDays(model, inputs.daysAhead);
     const storesPerLic = angelucciSlopeMgPerKgPerMgPerGDry * inputs.weightKg;
     const rate = (model.burdenShare * model.removalAtStartMgPerDay) / model.calibrationExcessMg;
     const drive = model.netInflowMgPerDay - (1 - model.burdenShare) * model.removalAtStartMgPerDay;

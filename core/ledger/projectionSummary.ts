@@ -125,7 +125,7 @@ export function projectionSummary(
             {
               startBodyIronMg,
               weightKg,
-              days: daysBetween(asOf, point.date),
+              daysAhead: daysBetween(asOf, point.date),
               intakeMgPerDay: Math.max(-500, intakeMgPerDay),
               removalMgPerDay: scenario.removalMgPerDay,
               weightGainKgPerYear: growth.gainKgPerYear,

@@ -47,7 +47,7 @@ export function responseSummaries(context: ReviewContext): Result<ResponseSummar
       fromWeightKg: account.daily.weightKg[fromIndex]!,
       toWeightKg: account.daily.weightKg[toIndex]!,
       basalLossMg: sumDaily(account.daily.basalLossMg, fromIndex + 1, toIndex),
-      days: response.days,
+      intervalDays: response.days,
       meanWeightKg: response.meanWeightKg,
       expectedMg: response.expectedChelationMg,
     }, {

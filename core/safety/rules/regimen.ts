@@ -1,5 +1,5 @@
 import { findChelator } from '../../chelators/catalogue';
-import { dfoTherapeuticIndex } from '../../chelators/formulas';
+import { deferoxamineTherapeuticIndexFormula } from '../../chelators/formulas';
 import { runFormula } from '../../formulas/run';
 import { isAscorbicAcid } from '../../model/coMedication';
 import { coMedicationDoseMg } from '../coMedicationDose';
@@ -142,7 +142,7 @@ export const deferoxamineTherapeuticIndexRule = defineRule({
       .flatMap((regimen): FindingDraft[] => {
         const indexAt = (ferritin: typeof latest) =>
           runFormula(
-            dfoTherapeuticIndex,
+            deferoxamineTherapeuticIndexFormula,
             { dosePerInfusionMgPerKg: regimen.doseMgPerKgPerDay, infusionsPerWeek: regimen.period.daysPerWeek, ferritinUgPerL: ferritin.entry.measured.value },
             {
               origins: {

@@ -100,7 +100,7 @@ describe('explain a finding', () => {
     expect(list.out).toContain('finding:deferoxamine-therapeutic-index');
     const { code, out } = await cli('explain', demo('th-0093'), 'finding:deferoxamine-therapeutic-index');
     expect(code).toBe(0);
-    expect(out).toContain('[dfo-therapeutic-index]');
+    expect(out).toContain('[deferoxamine-therapeutic-index]');
     expect(out).toContain('Porter');
   });
 });

@@ -70,6 +70,30 @@ describe('calc <calculator>', () => {
     expect(parsed.derivation.formulaId).toBe('transfusion-iron');
   });
 
+  it('still accepts a former calculator id, and names the current one (dfo-therapeutic-index → deferoxamine-therapeutic-index)', async () => {
+    // Porter et al. 1989: 40 mg/kg × 5 infusions a week ÷ 7 = 28.6 mg/kg/d; ÷ 1250 µg/L = 0.0229.
+    const flags = ['--dose-per-infusion-mg-per-kg', '40', '--infusions-per-week', '5', '--ferritin-ug-per-l', '1250'];
+    const former = await cli('calc', 'dfo-therapeutic-index', ...flags);
+    const current = await cli('calc', 'deferoxamine-therapeutic-index', ...flags);
+    expect(former.code).toBe(0);
+    expect(former.out).toBe(current.out);
+    expect(former.out.split('\n')[0]).toMatch(/^deferoxamine-therapeutic-index: mean daily dose 28\.6 mg\/kg\/day; therapeutic index 0\.0229/);
+  });
+
+  it('still accepts an input flag from before a rename (--days → --period-days), refusing both together', async () => {
+    // Hunt et al. 2009 basal loss 1 mg/day: 1000 − 200 − 1 × 30 = 770 mg.
+    const flags = ['--transfusional-net-mg', '1000', '--chelation-removal-mg', '200'];
+    const former = await cli('calc', 'net-iron-balance', ...flags, '--days', '30');
+    const current = await cli('calc', 'net-iron-balance', ...flags, '--period-days', '30');
+    expect(former.code).toBe(0);
+    expect(former.out).toBe(current.out);
+    expect(current.out.split('\n')[0]).toBe('net-iron-balance: net iron balance 770 mg');
+    const both = await cli('calc', 'net-iron-balance', ...flags, '--period-days', '30', '--days', '30');
+    expect(both.code).toBe(1);
+    expect(both.out).toBe('');
+    expect(both.err).toContain('--period-days is given as well');
+  });
+
   it('refuses an unknown calculator, an unknown flag and a missing value, printing no number', async () => {
     const unknown = await cli('calc', 'iron-magic');
     expect(unknown.code).toBe(2);

@@ -3,7 +3,7 @@ import {
   bindingCapacity,
   chelatorsFormulas,
   deferasiroxFormulation,
-  dfoTherapeuticIndex,
+  deferoxamineTherapeuticIndexFormula,
   expectedExcretion,
   saltToBase,
 } from '../../../core/chelators';
@@ -22,7 +22,7 @@ describe('chelators calculators through runFormula', () => {
       'expected-excretion',
       'salt-to-base',
       'deferasirox-formulation',
-      'dfo-therapeutic-index',
+      'deferoxamine-therapeutic-index',
     ]);
     for (const formula of chelatorsFormulas) expect(findFormula(formula.id)).toBe(formula);
   });
@@ -125,21 +125,21 @@ describe('chelators calculators through runFormula', () => {
     expect(!result.ok && result.issues[0]?.message).toBe('Deferasirox dose 200 mg/kg/d is outside the plausible range 1–60 mg/kg/d.');
   });
 
-  it('dfo-therapeutic-index: TH-0093 at ferritin 1250 is at or below 0.025; at 1000 µg/L it is above', () => {
+  it('deferoxamine-therapeutic-index: TH-0093 at ferritin 1250 is at or below 0.025; at 1000 µg/L it is above', () => {
     // 40 × 5 / 7 / 1250 = 0.02286 (Porter 1989 limit 0.025); / 1000 = 0.02857.
-    const below = outputsOf(runFormula(dfoTherapeuticIndex, { dosePerInfusionMgPerKg: 40, infusionsPerWeek: 5, ferritinUgPerL: 1250 }));
+    const below = outputsOf(runFormula(deferoxamineTherapeuticIndexFormula, { dosePerInfusionMgPerKg: 40, infusionsPerWeek: 5, ferritinUgPerL: 1250 }));
     expect(below.therapeuticIndex).toBeCloseTo(0.02286, 5);
     expect(below.finding).toMatch(/^at or below 0.025/);
-    const above = outputsOf(runFormula(dfoTherapeuticIndex, { dosePerInfusionMgPerKg: 40, infusionsPerWeek: 5, ferritinUgPerL: 1000 }));
+    const above = outputsOf(runFormula(deferoxamineTherapeuticIndexFormula, { dosePerInfusionMgPerKg: 40, infusionsPerWeek: 5, ferritinUgPerL: 1000 }));
     expect(above.finding).toMatch(/^above 0.025/);
     expect(above.finding).toContain('for review by the prescriber');
   });
 
-  it('dfo-therapeutic-index: refuses a ferritin of 0 and a dose typed per week', () => {
-    const zero = runFormula(dfoTherapeuticIndex, { dosePerInfusionMgPerKg: 40, infusionsPerWeek: 5, ferritinUgPerL: 0 });
+  it('deferoxamine-therapeutic-index: refuses a ferritin of 0 and a dose typed per week', () => {
+    const zero = runFormula(deferoxamineTherapeuticIndexFormula, { dosePerInfusionMgPerKg: 40, infusionsPerWeek: 5, ferritinUgPerL: 0 });
     expect(!zero.ok && zero.issues[0]).toMatchObject({ code: 'out_of_range', path: ['ferritinUgPerL'] });
     expect(!zero.ok && zero.issues[0]?.message).toBe('Serum ferritin 0 ug/L is outside the plausible range 1–30000 ug/L.');
-    const weekly = runFormula(dfoTherapeuticIndex, { dosePerInfusionMgPerKg: 200, infusionsPerWeek: 5, ferritinUgPerL: 1250 });
+    const weekly = runFormula(deferoxamineTherapeuticIndexFormula, { dosePerInfusionMgPerKg: 200, infusionsPerWeek: 5, ferritinUgPerL: 1250 });
     expect(!weekly.ok && weekly.issues[0]).toMatchObject({ code: 'out_of_range', path: ['dosePerInfusionMgPerKg'] });
   });
 

@@ -53,7 +53,7 @@ describe('deferoxamine-therapeutic-index (Porter et al., Br J Haematol 1989;73:4
     const [finding] = ofRule(findingsFor(withFerritin(1000)), 'deferoxamine-therapeutic-index');
     expect(finding!.severity).toBe('information');
     expect(finding!.triggers[0]!.value).toBe((35 * 5) / 7 / 1000);
-    expect(finding!.triggers[0]!.derivation!.formulaId).toBe('dfo-therapeutic-index');
+    expect(finding!.triggers[0]!.derivation!.formulaId).toBe('deferoxamine-therapeutic-index');
   });
 
   it('ferritin 996: 25 / 996 ≈ 0.0251, above 0.025 (review)', () => {
