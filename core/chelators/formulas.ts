@@ -12,7 +12,7 @@ import {
   meanDailyDeferoxamineDoseMgPerKg,
 } from './deferoxamineTherapeuticIndex';
 import { expectedIronExcretionMgPerDay } from './expectedExcretion';
-import { massInForm } from './massInForm';
+import { massInForm } from './saltToBase';
 import { substanceForm, substanceFormIds } from './substanceForms';
 
 /** Metals offered by the binding calculator; each chelator refuses those it is not catalogued for. */

@@ -1,5 +1,5 @@
 export * from './substanceForms';
-export * from './massInForm';
+export * from './saltToBase';
 export * from './catalogue';
 export * from './bindingCapacity';
 export * from './expectedExcretion';

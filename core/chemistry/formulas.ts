@@ -3,7 +3,7 @@ import { findSource } from '../references';
 import { issue, type Issue } from '../result';
 import { defineFormula, type AnyFormula, type Refusal } from '../formulas/types';
 import { kg, mg, mgPerKgPerDay } from '../units/quantity';
-import { capacityComparisonRow, capacityMetalIds } from './capacityComparison';
+import { capacityComparisonRow, capacityMetalIds } from './capacityAndPm';
 import { conditionalConstant } from './conditionalConstant';
 import { logLigandFraction } from './ligandFraction';
 import { constantSetIds, findConstantSet } from './sets';

@@ -25,7 +25,7 @@ export {
   type CapacityComparisonRow,
   type ChelatorDailyDose,
   type CapacityPm,
-} from './capacityComparison';
+} from './capacityAndPm';
 export {
   leadCalciumCompetition,
   plasmaIonizedCalciumUmolPerL,
@@ -33,6 +33,6 @@ export {
   type LeadCalciumCompetition,
   type LeadCalciumState,
   type LeadCalciumOptions,
-} from './calciumCompetition';
+} from './metalCompetition';
 export { speciesName, elementOf } from './speciesName';
 export { chemistryFormulas, describeConstantSet, capacityAndPmFormula } from './formulas';

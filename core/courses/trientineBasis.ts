@@ -1,4 +1,4 @@
-import { massInForm } from '../chelators/massInForm';
+import { massInForm } from '../chelators/saltToBase';
 import { substanceForm, type SubstanceFormId } from '../chelators/substanceForms';
 import { fail, issue, ok, type Issue, type Result } from '../result';
 import type { Milligrams } from '../units/quantity';

@@ -39,9 +39,9 @@ import { licChangeMgPerGDry } from './licChange';
 import { licFromR2Star } from './licFromR2Star';
 import { exactlyOneInput } from './oneOfInputs';
 import { r2StarCalibration, r2StarCalibrationIds } from './r2StarCalibrations';
-import { r2StarPerSFromT2StarMs, t2StarMsFromR2StarPerS } from './relaxation';
+import { r2StarPerSFromT2StarMs, t2StarMsFromR2StarPerS } from './r2StarT2Star';
 import { transfusionIronMg } from './transfusionIron';
-import { transfusionVolumeForHbRiseMl } from './transfusionVolumeForRise';
+import { transfusionVolumeForHbRiseMl } from './transfusionVolume';
 
 /** Shared spec of the published assumption 'iron-per-ml-red-cells'. */
 export const ironPerMlRedCellsInput = {

@@ -97,7 +97,7 @@ describe('chelators calculators through runFormula', () => {
   });
 
   it('salt-to-base: trientine dihydrochloride 300 mg → base and back (EASL 2012 / AASLD 2022 molar masses)', () => {
-    // 300 × 146.24 / 219.15 = 200.19 mg (printed molar masses; tolerance 0.05 mg as in conversions.test.ts).
+    // 300 × 146.24 / 219.15 = 200.19 mg (printed molar masses; tolerance 0.05 mg as in saltToBase.test.ts).
     const there = outputsOf(runFormula(saltToBase, { fromForm: 'trientine-dihydrochloride', toForm: 'trientine-base', massMg: 300 }));
     expect(Math.abs(there.massInTargetFormMg - 200.19)).toBeLessThan(0.05);
     expect(there.fromMolarMassGPerMol).toBeCloseTo(219.15, 2);

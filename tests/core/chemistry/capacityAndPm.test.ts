@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { metalBindingCapacityMgPerG, metalBoundByDoseMg } from '../../../core/chelators/bindingCapacity';
 import { findChelator } from '../../../core/chelators/catalogue';
 import { bindingCapacity } from '../../../core/chelators/formulas';
-import { capacityComparison, capacityComparisonRow, usualDailyDoseOf } from '../../../core/chemistry/capacityComparison';
+import { capacityComparison, capacityComparisonRow, usualDailyDoseOf } from '../../../core/chemistry/capacityAndPm';
 import { capacityAndPmFormula, pmFormula } from '../../../core/chemistry/formulas';
 import { findConstantSet } from '../../../core/chemistry/sets';
 import { formulaIds } from '../../../core/catalogue';

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { leadCalciumCompetition, plasmaIonizedCalciumUmolPerL } from '../../../core/chemistry/calciumCompetition';
-import { capacityComparison, capacityComparisonRow, usualDailyDoseOf } from '../../../core/chemistry/capacityComparison';
+import { leadCalciumCompetition, plasmaIonizedCalciumUmolPerL } from '../../../core/chemistry/metalCompetition';
+import { capacityComparison, capacityComparisonRow, usualDailyDoseOf } from '../../../core/chemistry/capacityAndPm';
 import { conditionalConstant } from '../../../core/chemistry/conditionalConstant';
 import { findConstantSet } from '../../../core/chemistry/sets';
 import { speciate } from '../../../core/chemistry/speciation';
