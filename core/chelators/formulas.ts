@@ -1,6 +1,6 @@
 import { dailyDoseBounds, inputRange, weightBounds } from '../ranges';
+import { doseEntryRefusals, type DoseEntryInputs } from '../formulas/doseEntry';
 import { defineFormula, type AnyFormula } from '../formulas/types';
-import { issue, type Issue } from '../result';
 import { fraction, mg, mgPerKg, mgPerKgPerDay, ugPerL } from '../units/quantity';
 import { metalBindingCapacityMgPerG, metalBoundByDoseMg } from './bindingCapacity';
 import { chelatingFormIds, chelatorIds, findChelator } from './catalogue';
@@ -21,6 +21,16 @@ export const bindingMetalChoices = ['Fe', 'Al', 'Cu', 'Zn', 'Pb', 'Hg'] as const
 // Weight and daily dose take the case model's ranges (core/ranges), so a dose `check` accepts is computed (and the safety rules judge it).
 const weightKgInput = { kind: 'number', label: 'body weight', ...inputRange(weightBounds), meaning: 'body weight used for the mg/kg dose' } as const;
 
+/** One dose of the chelator: in mg, or in mg/kg with the body weight (the refusal in core/formulas/doseEntry.ts). */
+const bindingDoseInputs = {
+  doseMg: { kind: 'number', label: 'dose', unit: 'mg', min: 1, max: 20000, optional: true, meaning: 'one dose of the chelator, mg' },
+  perKg: {
+    name: 'doseMgPerKg',
+    spec: { kind: 'number', label: 'dose per kg', unit: 'mg/kg', min: 0.1, max: 200, optional: true, meaning: 'one dose of the chelator, mg per kg body weight' },
+  },
+  weightKg: { ...weightKgInput, optional: true },
+} as const satisfies DoseEntryInputs;
+
 export const bindingCapacity = defineFormula({
   id: 'binding-capacity',
   title: 'Metal a chelator dose can bind (stoichiometric ceiling)',
@@ -34,9 +44,9 @@ export const bindingCapacity = defineFormula({
   inputs: {
     chelatorForm: { kind: 'choice', label: 'chelator as dosed', choices: chelatingFormIds, meaning: 'the chelator and the form (salt or base) the dose is stated as' },
     metal: { kind: 'choice', label: 'metal', choices: bindingMetalChoices, default: 'Fe', meaning: 'element symbol of the metal bound' },
-    doseMg: { kind: 'number', label: 'dose', unit: 'mg', min: 1, max: 20000, optional: true, meaning: 'one dose of the chelator, mg' },
-    doseMgPerKg: { kind: 'number', label: 'dose per kg', unit: 'mg/kg', min: 0.1, max: 200, optional: true, meaning: 'one dose of the chelator, mg per kg body weight' },
-    weightKg: { ...weightKgInput, optional: true },
+    doseMg: bindingDoseInputs.doseMg,
+    doseMgPerKg: bindingDoseInputs.perKg.spec,
+    weightKg: bindingDoseInputs.weightKg,
   },
   outputs: {
     metalMg: { label: 'metal bound', unit: 'mg', meaning: 'theoretical mass of metal bound by the dose', decimals: 1 },
@@ -44,14 +54,7 @@ export const bindingCapacity = defineFormula({
     doseMg: { label: 'dose', unit: 'mg', meaning: 'dose used, mg (from mg/kg × weight when given that way)', decimals: 0 },
   },
   compute: ({ chelatorForm, metal, doseMg, doseMgPerKg, weightKg }) => {
-    const refused: Issue[] = [];
-    if (doseMg !== undefined && doseMgPerKg !== undefined) {
-      refused.push(issue('inconsistent', ['doseMgPerKg'], `Enter the dose either in mg (${doseMg} mg given) or in mg/kg with the weight, not both.`));
-    } else if (doseMg === undefined && doseMgPerKg === undefined) {
-      refused.push(issue('required', ['doseMg'], 'Dose is required: in mg (1–20000 mg), or in mg/kg (0.1–200 mg/kg) with the body weight.'));
-    } else if (doseMgPerKg !== undefined && weightKg === undefined) {
-      refused.push(issue('required', ['weightKg'], `Body weight is required with a dose of ${doseMgPerKg} mg/kg (1–250 kg).`));
-    }
+    const refused = doseEntryRefusals({ doseMg, perKg: doseMgPerKg, weightKg }, bindingDoseInputs);
     if (refused.length > 0) return { refused };
     const resolvedDoseMg = doseMg ?? doseMgPerKg! * weightKg!;
     const capacity = metalBindingCapacityMgPerG(chelatorForm, metal);

@@ -1,7 +1,9 @@
 import { chelatorIds } from '../chelators/catalogue';
 import { findSource } from '../references';
 import { issue, type Issue } from '../result';
+import { doseEntryRefusals, type DoseEntryInputs } from '../formulas/doseEntry';
 import { defineFormula, type AnyFormula, type Refusal } from '../formulas/types';
+import { dailyDoseBounds, inputRange, weightBounds } from '../ranges';
 import { kg, mg, mgPerKgPerDay } from '../units/quantity';
 import { capacityComparisonRow, capacityMetalIds } from './capacityAndPm';
 import { conditionalConstant } from './conditionalConstant';
@@ -263,6 +265,19 @@ export const metalCompetitionFormula = defineFormula({
   },
 });
 
+/**
+ * The dose on a dosing day: in mg/kg/day with the body weight, or in mg (the refusal in
+ * core/formulas/doseEntry.ts). Weight and daily dose take the case model's ranges (core/ranges).
+ */
+const capacityDoseInputs = {
+  doseMg: { kind: 'number', label: 'dose', unit: 'mg', min: 1, max: 20000, optional: true, meaning: 'dose on a dosing day, mg of the form the product is dosed as' },
+  perKg: {
+    name: 'doseMgPerKgPerDay',
+    spec: { kind: 'number', label: 'dose on a dosing day', ...inputRange(dailyDoseBounds), optional: true, meaning: 'mg/kg of the form the product is dosed as' },
+  },
+  weightKg: { kind: 'number', label: 'body weight', ...inputRange(weightBounds), optional: true, meaning: 'body weight for the mg/kg dose' },
+} as const satisfies DoseEntryInputs;
+
 export const capacityAndPmFormula = defineFormula({
   id: 'capacity-and-pm',
   title: 'Metal a day\'s chelator dose can bind, beside the ligand\'s pM at pH 7.4',
@@ -277,9 +292,9 @@ export const capacityAndPmFormula = defineFormula({
   inputs: {
     chelator: { kind: 'choice', label: 'chelator', choices: chelatorIds, meaning: 'the product as dosed' },
     metal: { kind: 'choice', label: 'metal', choices: capacityMetalIds, default: 'Fe3+', meaning: 'Fe3+, or Al3+ (catalogued for deferoxamine)' },
-    doseMgPerKgPerDay: { kind: 'number', label: 'dose on a dosing day', unit: 'mg/kg/d', min: 0.5, max: 150, optional: true, meaning: 'mg/kg of the form the product is dosed as' },
-    weightKg: { kind: 'number', label: 'body weight', unit: 'kg', min: 1, max: 250, optional: true, meaning: 'body weight for the mg/kg dose' },
-    doseMg: { kind: 'number', label: 'dose', unit: 'mg', min: 1, max: 20000, optional: true, meaning: 'dose on a dosing day, mg of the form the product is dosed as' },
+    doseMgPerKgPerDay: capacityDoseInputs.perKg.spec,
+    weightKg: capacityDoseInputs.weightKg,
+    doseMg: capacityDoseInputs.doseMg,
     constantSet: { ...constantSetInput, optional: true, meaning: "the ligand's constant set (default: its default set)" },
   },
   outputs: {
@@ -291,14 +306,7 @@ export const capacityAndPmFormula = defineFormula({
     constantSet: constantSetOutput,
   },
   compute: (inputs) => {
-    const refused: Issue[] = [];
-    if (inputs.doseMg !== undefined && inputs.doseMgPerKgPerDay !== undefined) {
-      refused.push(issue('inconsistent', ['doseMgPerKgPerDay'], `Enter the dose either in mg (${inputs.doseMg} mg given) or in mg/kg/day with the weight, not both.`));
-    } else if (inputs.doseMg === undefined && inputs.doseMgPerKgPerDay === undefined) {
-      refused.push(issue('required', ['doseMgPerKgPerDay'], 'Dose is required: in mg/kg/day (0.5–150) with the body weight, or in mg (1–20000).'));
-    } else if (inputs.doseMgPerKgPerDay !== undefined && inputs.weightKg === undefined) {
-      refused.push(issue('required', ['weightKg'], `Body weight is required with a dose of ${inputs.doseMgPerKgPerDay} mg/kg/day (1–250 kg).`));
-    }
+    const refused = doseEntryRefusals({ doseMg: inputs.doseMg, perKg: inputs.doseMgPerKgPerDay, weightKg: inputs.weightKg }, capacityDoseInputs);
     if (refused.length > 0) return { refused };
     const set = inputs.constantSet === undefined ? undefined : setOrThrow(inputs.constantSet);
     const row = capacityComparisonRow(

@@ -1,3 +1,4 @@
+import { inputRange, weightBounds } from '../ranges';
 import { defineFormula, type AnyFormula } from '../formulas/types';
 import { kg } from '../units/quantity';
 import { formatAmount } from './formatAmount';
@@ -34,7 +35,7 @@ export const practicalDose = defineFormula({
       max: practicalDoseRanges.mgPerKgPerDay.max,
       meaning: 'intended dose per kg per day of treatment (for deferoxamine: per infusion day)',
     },
-    weightKg: { kind: 'number', label: 'body weight', unit: 'kg', min: practicalDoseRanges.weightKg.min, max: practicalDoseRanges.weightKg.max, meaning: 'body weight the dose refers to' },
+    weightKg: { kind: 'number', label: 'body weight', ...inputRange(weightBounds), meaning: 'body weight the dose refers to' },
     administrationsPerDay: {
       kind: 'number',
       label: 'administrations per day',

@@ -1,4 +1,5 @@
 import { fail, issue, ok, type Issue, type Result } from '../result';
+import { weightBounds } from '../ranges';
 import type { Kilograms, MgPerKgPerDay, Milligrams, Millilitres } from '../units/quantity';
 import { closestCombination, halfMgUnitsFromMg, smallestCoveringCombination, type Piece } from './combinationSearch';
 import { formatAmount } from './formatAmount';
@@ -71,7 +72,7 @@ export interface PracticalDoseProposal {
 
 /** Plausible ranges of the request, inclusive (common practice: wide enough for every chelator and age). */
 export const practicalDoseRanges = {
-  weightKg: { min: 1, max: 200 },
+  weightKg: weightBounds.plausible,
   mgPerKgPerDay: { min: 0.5, max: 200 },
   mgPerKgPerAdministration: { min: 0.5, max: 200 },
   administrationsPerDay: { min: 1, max: 6 },

@@ -50,7 +50,7 @@ describe('dose command', () => {
   it('names the flag, the value and the range of bad input', async () => {
     const bad = await cli(['dose', '--product', 'deferasirox-film-coated', '--target-mg-per-kg-per-day', '28', '--weight-kg', '520']);
     expect(bad.code).toBe(1);
-    expect(bad.err).toBe('--weight-kg: Body weight (kg) 520 is outside the plausible range 1–200.');
+    expect(bad.err).toBe('--weight-kg: Body weight (kg) 520 is outside the plausible range 2–200.');
     const both = await cli(['dose', '--product', 'deferoxamine-vials', '--target-mg-per-kg-per-day', '40', '--target-mg-per-kg-per-administration', '40', '--weight-kg', '23']);
     expect(both.err).toContain('Give exactly one of');
     const unknown = await cli(['dose', '--product', 'deferasirox-chewable', '--target-mg-per-kg-per-day', '28', '--weight-kg', '52']);

@@ -166,7 +166,7 @@ describe('capacity-and-pm calculator', () => {
   it('refuses each inconsistent input on its field', () => {
     const cases: readonly [Record<string, unknown>, string, string][] = [
       [{ chelator: 'deferiprone', doseMg: 1000, doseMgPerKgPerDay: 75, weightKg: 52 }, 'inconsistent', 'doseMgPerKgPerDay'],
-      [{ chelator: 'deferiprone' }, 'required', 'doseMgPerKgPerDay'],
+      [{ chelator: 'deferiprone' }, 'required', 'doseMg'],
       [{ chelator: 'deferiprone', doseMgPerKgPerDay: 75 }, 'required', 'weightKg'],
       [{ chelator: 'deferiprone', doseMg: 1000, metal: 'Al3+' }, 'not_applicable', 'metal'],
       [{ chelator: 'deferiprone', doseMg: 1000, constantSet: 'edta-textbook-25c' }, 'inconsistent', 'constantSet'],

@@ -106,8 +106,8 @@ describe('practical dose against hand arithmetic', () => {
   });
 
   it('gives the lower of two equally close amounts', () => {
-    // 135 mg with 90 mg tablets: 90 and 180 are both 45 away → 90.
-    const proposal = propose({ product: product('deferasirox-film-coated'), target: perDay(135), weightKg: kg(1), administrationsPerDay: 1 });
+    // 67.5 mg/kg/day × 2 kg = 135 mg with 90 mg tablets: 90 and 180 are both 45 away → 90.
+    const proposal = propose({ product: product('deferasirox-film-coated'), target: perDay(67.5), weightKg: kg(2), administrationsPerDay: 1 });
     expect(proposal.proposedMgPerAdministration).toBe(90);
   });
 
@@ -119,7 +119,7 @@ describe('practical dose against hand arithmetic', () => {
       ['out_of_range', 'weightKg'],
       ['not_an_integer', 'administrationsPerDay'],
     ]);
-    expect(result.issues[0]!.message).toBe('Body weight (kg) 520 is outside the plausible range 1–200.');
+    expect(result.issues[0]!.message).toBe('Body weight (kg) 520 is outside the plausible range 2–200.');
   });
 
   it('refuses a deferoxamine dose that needs more vials than allowed, saying how to widen the search', () => {
