@@ -3,7 +3,7 @@ import { formatIssues } from '../../core/result';
 import { readCodeMap, type CodeMap } from '../host/imports/codeMap';
 import type { CsvKind } from '../host/imports/csvImport';
 import type { DateOrder } from '../host/imports/importDates';
-import { commitImport, describeEntry, entriesWord, previewImport } from '../host/imports/importCase';
+import { commitImport, describeEntry, entriesWord, previewImport, previewRowsShown } from '../host/imports/importCase';
 import type { ParsedArgs } from './args';
 import type { StoreIo } from './editCommands';
 import { exitCodes, type CliIo, type TextIo } from './io';
@@ -19,7 +19,6 @@ FHIR R4 Bundle (JSON): Observations by LOINC code, red-cell transfusion Procedur
 LOINC has no code for (MRI liver iron, liver R2* or T2*, cardiac T2*); codes known to neither are listed.`;
 
 const known = ['--into', '--kind', '--map', '--date-order', '--code-map'];
-const shownRows = 5;
 
 /** `--map date=Given on,volume=Vol (mL)` → { date: 'Given on', volume: 'Vol (mL)' }. */
 function parseMapping(text: string | undefined): Record<string, string> | string {
@@ -98,8 +97,8 @@ export async function importCommand(args: ParsedArgs, io: CliIo & StoreIo & Text
   const lines: string[] = [`Import from ${file} into ${into} (${caseFile.patient.label}):`, ...preview.understood.map((it) => `  ${it}`)];
   const { counts } = preview;
   lines.push(`${args.switches.has('--dry-run') ? 'Would add' : 'Adding'}: ${counts.transfusions} transfusion(s), ${counts.results} result(s), ${counts.weights} weight(s), ${counts.heights} height(s).`);
-  for (const entry of entries.slice(0, shownRows)) lines.push(`  ${entry.where}: ${describeEntry(entry)}`);
-  if (entries.length > shownRows) lines.push(`  … and ${entries.length - shownRows} more`);
+  for (const entry of entries.slice(0, previewRowsShown)) lines.push(`  ${entry.where}: ${describeEntry(entry)}`);
+  if (entries.length > previewRowsShown) lines.push(`  … and ${entries.length - previewRowsShown} more`);
   if (rejected.length > 0) {
     lines.push(`Rejected: ${rejected.length} (not imported):`);
     for (const row of rejected) lines.push(`  ${row.where}: ${row.reason}`);

@@ -12,7 +12,6 @@ import { importCommit, importDryRun } from './imports/importCalls';
 import { revisionFromToken, revisionToken } from './revisionToken';
 import { monitoringIcs } from './icalendar';
 import { writeFileAtomic } from './atomicWrite';
-import { sha256OfFile } from './contentHash';
 import { toolVersion } from './toolVersion';
 import type { SettingsStore } from './settingsStore';
 import { insideFolder } from './workspaceFiles';
@@ -65,14 +64,15 @@ async function writeFresh(folder: string, stem: string, extension: string, data:
   return fail(issue('already_exists', ['output'], `The exports folder ${folder} already holds 99 files named ${stem}; nothing was written.`));
 }
 
-/** A case as saved in the workspace, read through the case store (exports are made from the file, not from unsaved edits). */
-async function savedCase(environment: HostEnvironment, caseId: string): Promise<Result<{ readonly folder: string; readonly path: string; readonly caseFile: Case }>> {
-  const folder = environment.workspace.get();
-  if (folder === null) return noWorkspace();
-  const path = insideFolder(folder, caseId);
+/**
+ * A case as saved in the workspace, read through the case store (exports are made from the file, not from
+ * unsaved edits), with the SHA-256 of the bytes that were read (the sheet prints it; no second read of the file).
+ */
+async function savedCase(caseStore: CaseStore, caseId: string): Promise<Result<{ readonly caseFile: Case; readonly sha256: string }>> {
+  const path = insideFolder(caseStore.folder, caseId);
   if (!path.ok) return path;
-  const opened = await openCaseStore(folder, { now: environment.now }).open(caseId);
-  return opened.ok ? ok({ folder, path: path.value, caseFile: opened.value.caseFile }) : opened;
+  const opened = await caseStore.open(caseId);
+  return opened.ok ? ok({ caseFile: opened.value.caseFile, sha256: opened.value.revision.sha256 }) : opened;
 }
 
 /** An export of a case into the workspace's exports folder, named `<case>-<what>.<extension>`. */
@@ -80,8 +80,6 @@ async function writeExport(folder: string, caseId: string, what: string, extensi
   const written = await writeFresh(join(folder, 'exports'), `${caseId.replace(/\.json$/, '')}-${what}`, extension, data);
   return written.ok ? ok({ path: written.value }) : written;
 }
-
-export { revisionFromToken, revisionToken };
 
 const savedValue = (opened: OpenedCase) => ok({ caseId: opened.fileName, revision: revisionToken(opened.revision), warnings: [...opened.warnings] });
 
@@ -168,29 +166,29 @@ export function createHostServices(environment: HostEnvironment): HostHandlers {
       }),
     importDryRun: (request) => store((caseStore) => importDryRun(caseStore, request)),
     importCommit: (request) => store((caseStore) => importCommit(caseStore, request)),
-    exportSheetPdf: async ({ caseId, asOfDate, paper }) => {
-      const saved = await savedCase(environment, caseId);
-      if (!saved.ok) return saved;
-      const { folder, path, caseFile } = saved.value;
-      const computed = computeCase(caseFile, asOfDate);
-      if (!computed.ok) return computed;
-      // The local protocol's thresholds recorded in the case apply to every review of it (as on the command line).
-      const findings = evaluateFindings(caseFile, computed.value, asOfDate, caseFile.thresholdOverrides);
-      if (!findings.ok) return findings;
-      const hash = sha256OfFile(path);
-      if (!hash.ok) return hash;
-      const sheet = buildSheet({ caseFile, results: computed.value, findings: findings.value, caseFileSha256: hash.value, toolVersion, preparedBy: null });
-      // The PDF library loads only when a sheet is written (app/host/sheetPdf.ts owns it).
-      const bytes = await (await import('./sheetPdf')).writeSheetPdf(sheet, { paper });
-      return writeExport(folder, caseId, `sheet-${asOfDate}`, 'pdf', bytes);
-    },
-    exportCalendar: async ({ caseId, asOfDate }) => {
-      const saved = await savedCase(environment, caseId);
-      if (!saved.ok) return saved;
-      const calendar = monitoringCalendar(saved.value.caseFile, asOfDate);
-      if (!calendar.ok) return calendar;
-      return writeExport(saved.value.folder, caseId, `monitoring-${asOfDate}`, 'ics', monitoringIcs(calendar.value, environment.now()));
-    },
+    exportSheetPdf: ({ caseId, asOfDate, paper }) =>
+      store(async (caseStore) => {
+        const saved = await savedCase(caseStore, caseId);
+        if (!saved.ok) return saved;
+        const { caseFile, sha256 } = saved.value;
+        const computed = computeCase(caseFile, asOfDate);
+        if (!computed.ok) return computed;
+        // The local protocol's thresholds recorded in the case apply to every review of it (as on the command line).
+        const findings = evaluateFindings(caseFile, computed.value, asOfDate, caseFile.thresholdOverrides);
+        if (!findings.ok) return findings;
+        const sheet = buildSheet({ caseFile, results: computed.value, findings: findings.value, caseFileSha256: sha256, toolVersion, preparedBy: null });
+        // The PDF library loads only when a sheet is written (app/host/sheetPdf.ts owns it).
+        const bytes = await (await import('./sheetPdf')).writeSheetPdf(sheet, { paper });
+        return writeExport(caseStore.folder, caseId, `sheet-${asOfDate}`, 'pdf', bytes);
+      }),
+    exportCalendar: ({ caseId, asOfDate }) =>
+      store(async (caseStore) => {
+        const saved = await savedCase(caseStore, caseId);
+        if (!saved.ok) return saved;
+        const calendar = monitoringCalendar(saved.value.caseFile, asOfDate);
+        if (!calendar.ok) return calendar;
+        return writeExport(caseStore.folder, caseId, `monitoring-${asOfDate}`, 'ics', monitoringIcs(calendar.value, environment.now()));
+      }),
     readSettings: () => environment.settings.read(),
     writeSettings: (settings) => environment.settings.write(settings),
   };

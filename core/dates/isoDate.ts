@@ -86,8 +86,8 @@ function wholeCount(count: number, date: IsoDate): number {
 
 /** @example addDaysIso('2026-02-27', 3) === '2026-03-02' */
 export function addDaysIso(date: IsoDate, count: number): IsoDate {
-  partsOf(date);
-  return isoFromEpochDay(epochDayFromIso(date) + wholeCount(count, date));
+  const [year, month, day] = partsOf(date);
+  return isoFromEpochDay(Date.UTC(year, month - 1, day) / millisecondsInDay + wholeCount(count, date));
 }
 
 /** Adds calendar months, clamping to the month's end. @example addMonthsIso('2026-01-31', 1) === '2026-02-28' */

@@ -4,7 +4,7 @@ import type { CaseStore, OpenedCase } from '../caseStore';
 import { revisionFromToken, revisionToken } from '../revisionToken';
 import { readCodeMap } from './codeMap';
 import { csvFieldsByKind, type CsvKind } from './csvImport';
-import { commitImport, describeEntry, previewImport, type ImportChoices, type ImportPreview } from './importCase';
+import { commitImport, describeEntry, previewImport, previewRowsShown, type ImportChoices, type ImportPreview } from './importCase';
 import type { Rejected } from './importPlan';
 
 /**
@@ -16,8 +16,6 @@ import type { Rejected } from './importPlan';
 
 type ImportRequest = HostParsedRequest<'importDryRun'>;
 
-/** Rows shown in the preview (the counts cover all); the same number as the command line shows. */
-const shownRows = 5;
 
 /** The request's column mapping (column → field) as the reader takes it (field → column), each field checked. */
 function fieldMapping(request: ImportRequest, csvKind: CsvKind): Result<Record<string, string> | undefined> {
@@ -83,7 +81,7 @@ export async function importDryRun(store: CaseStore, request: ImportRequest): Pr
   return ok(
     {
       counts: { ...previewed.counts },
-      firstRows: previewed.entries.slice(0, shownRows).map((entry) => `${entry.where}: ${describeEntry(entry)}`),
+      firstRows: previewed.entries.slice(0, previewRowsShown).map((entry) => `${entry.where}: ${describeEntry(entry)}`),
       rejected: [
         ...previewed.rejected.map(rejectedRow),
         ...previewed.unknownCodes.map((it) => ({ line: null, reason: `${it.where}: code ${it.code}${it.display ? ` (${it.display})` : ''} is not one the import knows; not imported.` })),

@@ -184,6 +184,9 @@ export function previewImport(source: ImportSource, caseFile: Case, choices: Imp
   });
 }
 
+/** How many proposed entries a preview shows in words (the counts cover all): the command line and the app alike. */
+export const previewRowsShown = 5;
+
 /** One proposed entry in words, for the preview. */
 export function describeEntry(entry: ProposedEntry): string {
   const e = entry.entry as Record<string, unknown> & {
