@@ -1,5 +1,6 @@
 import { inputRange, weightBounds } from '../ranges';
 import { defineFormula, type AnyFormula } from '../formulas/types';
+import { issue } from '../result';
 import { kg } from '../units/quantity';
 import { formatAmount } from './formatAmount';
 import { proposePracticalDose, defaultMeasurableStepMl, practicalDoseRanges } from './practicalDose';
@@ -88,4 +89,32 @@ export const practicalDose = defineFormula({
   },
 });
 
-export const dosingFormulas: readonly AnyFormula[] = [practicalDose];
+/**
+ * The proportion of days covered as a catalogued formula, so that the expected
+ * removal it feeds shows it in its derivation (core/ledger/periodAdherence.ts
+ * counts the covered days from the dispensing records).
+ */
+export const proportionOfDaysCoveredFormula = defineFormula({
+  id: 'proportion-of-days-covered',
+  title: 'Proportion of days covered by dispensings',
+  expression:
+    'PDC = days with the drug on hand ÷ days in the period; the period runs from the first dispensing (or the start of the chelation period, whichever is later) to its end or the review date; a supply dispensed while an earlier one lasts starts the day after it ends',
+  sourceIds: ['nau-pqa-2012-pdc'],
+  notes: [
+    'Days supplied are as recorded at dispensing: drug on hand is not drug taken, so the proportion is an upper estimate of adherence.',
+    'Descriptive only: for review by the prescriber; follow local protocols.',
+  ],
+  inputs: {
+    coveredDays: { kind: 'number', label: 'days covered', unit: 'd', min: 0, max: 36600, integer: true, meaning: 'days in the period with the drug on hand' },
+    periodDays: { kind: 'number', label: 'days in the period', unit: 'd', min: 1, max: 36600, integer: true, meaning: 'days from the first day of the period to the last, both included' },
+  },
+  outputs: {
+    proportion: { label: 'proportion of days covered', unit: '1', meaning: 'share of the days with the drug on hand', decimals: 2 },
+  },
+  compute: ({ coveredDays, periodDays }) =>
+    coveredDays > periodDays
+      ? { refused: [issue('out_of_range', ['coveredDays'], `Days covered (${coveredDays}) cannot exceed the days in the period (${periodDays}).`)] }
+      : { proportion: coveredDays / periodDays },
+});
+
+export const dosingFormulas: readonly AnyFormula[] = [practicalDose, proportionOfDaysCoveredFormula];

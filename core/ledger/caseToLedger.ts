@@ -8,6 +8,7 @@ import { fraction, mg, perSecond, tesla, type UmolPerGDry } from '../units/quant
 import type { Case, ChelationPeriod } from '../model/caseFile';
 import type { ChelationSpan, IronMovement, LedgerInput, LicMeasurement } from './ledgerInput';
 import { choiceWords } from '../words';
+import { periodAdherence, type PeriodAdherence } from './periodAdherence';
 
 /** Something the conversion assumed or left out, said in the trade's words. */
 export interface LedgerNotice {
@@ -21,6 +22,8 @@ export interface NormalisedCase {
   readonly notices: readonly LedgerNotice[];
   /** Every assumption the conversion used, with its value and origin. */
   readonly assumptions: readonly ResolvedAssumption[];
+  /** The adherence each started chelation period's expected removal uses, by period id (periodAdherence.ts). */
+  readonly adherence: ReadonlyMap<string, PeriodAdherence>;
 }
 
 /** The catalogue product for a chelation period as recorded. */
@@ -36,20 +39,23 @@ export function describePeriod(period: ChelationPeriod): string {
 
 /**
  * Expected removal of one chelation period, mg/day averaged over the week, at a weight.
- * A dose entered in mg/kg follows the weight; one entered in mg does not.
+ * A dose entered in mg/kg follows the weight; one entered in mg does not. The
+ * adherence is the one periodAdherence gives (the proportion of days covered
+ * where dispensings exist, else the entered estimate).
  */
 export function periodRemovalMgPerDay(
   period: ChelationPeriod,
   weightKg: number,
   efficiency: number,
   filmCoatedFactor: number,
+  adherence: number,
 ): number {
   const perAdministrationMg = period.dose.unit === 'mg/kg' ? period.dose.value * weightKg : period.dose.value;
   return expectedIronExcretionMgPerDay({
     chelatorId: chelatorIdOf(period),
     doseMgPerDosingDay: mg(perAdministrationMg * period.administrationsPerDay),
     daysPerWeek: period.daysPerWeek,
-    adherence: fraction(period.adherence),
+    adherence: fraction(adherence),
     efficiency: fraction(efficiency),
     efficiencyDoseFactor: fraction(filmCoatedFactor),
   });
@@ -125,19 +131,30 @@ export function caseToLedgerInput(caseFile: Case, asOf: string): NormalisedCase 
     });
   }
 
+  const adherence = new Map<string, PeriodAdherence>();
   const chelation: ChelationSpan[] = caseFile.chelationPeriods
     .filter((period) => period.startDate <= asOf)
     .map((period) => {
       const efficiency = efficiencies[period.drug];
       used.set(efficiency.id, efficiency);
       if (period.drug === 'deferasirox' && period.formulation === 'film-coated-tablet') used.set(filmCoated.id, filmCoated);
+      const periodUse = periodAdherence(caseFile, period, asOf);
+      adherence.set(period.id, periodUse);
+      if (periodUse.covered !== null) {
+        const { covered } = periodUse;
+        notices.push({
+          severity: 'information',
+          ref: period.id,
+          text: `Expected removal of ${period.id} uses the proportion of days covered by ${covered.dispensings} dispensing(s), ${covered.coveredDays} of ${covered.periodDays} days from ${covered.fromDate} to ${covered.toDate} (${covered.proportion.toFixed(2)}), in place of the entered adherence estimate (${period.adherence.toFixed(2)}).`,
+        });
+      }
       return {
         id: period.id,
         label: describePeriod(period),
         drug: period.drug,
         start: period.startDate,
         end: period.endDate,
-        expectedRemovalMgPerDay: (weightKg: number) => periodRemovalMgPerDay(period, weightKg, efficiency.value, filmCoated.value),
+        expectedRemovalMgPerDay: (weightKg: number) => periodRemovalMgPerDay(period, weightKg, efficiency.value, filmCoated.value, periodUse.used),
       };
     });
 
@@ -179,5 +196,6 @@ export function caseToLedgerInput(caseFile: Case, asOf: string): NormalisedCase 
     input: { asOf, movements, chelation, weights, licMeasurements, basalLossMgPerDay: basalLoss.value },
     notices,
     assumptions: [...used.values()],
+    adherence,
   };
 }

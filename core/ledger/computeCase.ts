@@ -98,7 +98,7 @@ export function computeCase(caseFile: Case, asOf: IsoDate, options: ComputeOptio
   const bodyIron = bodyIronOnDate(context, basis, { seed, samples });
   const currentRegimens: RegimenSummary[] = [];
   for (const period of periodsActiveOn(caseFile.chelationPeriods, asOf)) {
-    const regimen = regimenSummary(period, weightKg, context.overrides);
+    const regimen = regimenSummary(period, weightKg, context.overrides, normalised.adherence.get(period.id)!);
     if (!regimen.ok) return regimen;
     currentRegimens.push(regimen.value);
   }

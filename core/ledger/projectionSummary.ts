@@ -62,10 +62,13 @@ export function projectionSummary(
   const scaleOf = (period: ChelationPeriod) => basisScaleOf(basis, period.drug);
   const measuredRatio = basis.ratio;
   const filmCoatedFactor = resolveAssumption('deferasirox-film-coated-factor', overrides).value;
+  // A current period's removal uses the adherence the account used (dispensings where recorded); a proposed regimen's, its entered estimate.
+  const adherenceOf = (period: ChelationPeriod) => (currentPeriods.includes(period) ? context.normalised.adherence.get(period.id)?.used : undefined) ?? period.adherence;
   const removalOf = (periods: readonly ChelationPeriod[]) => (weight: number) =>
     periods.reduce(
       (sum, period) =>
-        sum + periodRemovalMgPerDay(period, weight, resolveAssumption(efficiencyAssumptionOf[period.drug], overrides).value, filmCoatedFactor) * scaleOf(period),
+        sum +
+        periodRemovalMgPerDay(period, weight, resolveAssumption(efficiencyAssumptionOf[period.drug], overrides).value, filmCoatedFactor, adherenceOf(period)) * scaleOf(period),
       0,
     );
   const basisOf = (periods: readonly ChelationPeriod[]) => (periods.some((period) => measuredDrugs.has(period.drug)) ? ('measured' as const) : ('published' as const));

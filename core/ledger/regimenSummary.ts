@@ -4,6 +4,7 @@ import { runInternal } from '../formulas/run';
 import { ok, type Result } from '../result';
 import type { Case, ChelationPeriod } from '../model/caseFile';
 import { chelatorIdOf, describePeriod } from './caseToLedger';
+import { adherenceOrigin, type PeriodAdherence } from './periodAdherence';
 
 export interface RegimenSummary {
   readonly periodId: string;
@@ -12,18 +13,22 @@ export interface RegimenSummary {
   readonly doseMgPerKgPerDay: number;
   readonly expectedRemovalMgPerDay: number;
   readonly expectedRemovalMgPerKgPerDay: number;
+  /** The entered adherence estimate and, where dispensings exist, the proportion of days covered that the expected removal uses. */
+  readonly adherence: PeriodAdherence;
   readonly derivation: Derivation;
 }
 
 /**
  * Expected removal of one chelation period at a weight, at the published
- * efficiency, with its derivation.
+ * efficiency, with its derivation; the adherence input is the proportion of
+ * days covered (a nested derivation) where dispensings exist, else the entered estimate.
  *
  * @param period - a chelation period as recorded
  * @param weightKg - weight, kg (a dose in mg is turned into mg/kg by it)
  * @param overrides - the case's assumption overrides
+ * @param adherence - the period's adherence (periodAdherence.ts)
  */
-export function regimenSummary(period: ChelationPeriod, weightKg: number, overrides: Case['assumptionOverrides']): Result<RegimenSummary> {
+export function regimenSummary(period: ChelationPeriod, weightKg: number, overrides: Case['assumptionOverrides'], adherence: PeriodAdherence): Result<RegimenSummary> {
   const perAdministrationMgPerKg = period.dose.unit === 'mg/kg' ? period.dose.value : period.dose.value / weightKg;
   const doseMgPerKgPerDay = perAdministrationMgPerKg * period.administrationsPerDay;
   const expected = runInternal(
@@ -33,7 +38,7 @@ export function regimenSummary(period: ChelationPeriod, weightKg: number, overri
       doseMgPerKgPerDosingDay: doseMgPerKgPerDay,
       weightKg,
       daysPerWeek: period.daysPerWeek,
-      adherence: period.adherence,
+      adherence: adherence.used,
     },
     {
       overrides,
@@ -41,7 +46,7 @@ export function regimenSummary(period: ChelationPeriod, weightKg: number, overri
         doseMgPerKgPerDosingDay: { kind: 'record', description: `${period.id}: ${describePeriod(period)}`, refs: [period.id] },
         weightKg: { kind: 'record', description: 'latest weight', refs: [] },
         daysPerWeek: { kind: 'record', description: period.id, refs: [period.id] },
-        adherence: { kind: 'record', description: `${period.id}: estimated adherence${period.adherenceNote ? ` (${period.adherenceNote})` : ''}`, refs: [period.id] },
+        adherence: adherenceOrigin(adherence, period),
       },
     },
   );
@@ -54,6 +59,7 @@ export function regimenSummary(period: ChelationPeriod, weightKg: number, overri
     doseMgPerKgPerDay,
     expectedRemovalMgPerDay: run.outputs.excretionMgPerDay,
     expectedRemovalMgPerKgPerDay: run.outputs.excretionMgPerKgPerDay,
+    adherence,
     derivation: run.derivation,
   });
 }

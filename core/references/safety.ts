@@ -140,7 +140,16 @@ export const safetySources = [
     publication: 'Pharmacy Quality Alliance, Springfield VA, 2012 (as cited by pharmacy-practice pages)',
     year: 2012,
     status: 'secondary',
-    note: 'PDC = days in the period with the drug on hand ÷ days in the period; a supply that overlaps an earlier one is shifted forward to start when the earlier one ends, so no day is counted twice (the definition as stated by pharmacy-practice sources; the PQA document itself was not read). 0.80 is the usual threshold of adequate adherence in PQA measures.',
+    note: 'PDC = days in the period with the drug on hand ÷ days in the period; a supply that overlaps an earlier one is shifted forward to start when the earlier one ends, so no day is counted twice; the period starts at the first fill in it (the index date) and ends at the end of the measurement period (the definition as stated by pharmacy-practice sources and the PQA measure examples, whose claims list the shifted first and last dose dates; the 2012 PQA document itself was not read). 0.80 is the usual threshold of adequate adherence in PQA measures.',
+  },
+  {
+    id: 'pdc-feeds-expected-removal-choice',
+    authors: '—',
+    title: 'Where dispensings are recorded, the proportion of days covered takes the place of the entered adherence estimate in a chelation period’s expected removal',
+    publication: 'a modelling choice of this tool',
+    year: null,
+    status: 'common-practice',
+    note: 'The proportion is counted from the first dispensing of the drug on record (or the period’s start) to the period’s end or the review date and is used for the whole period, days before the first dispensing on record included. Drug on hand is not drug taken: the proportion is an upper estimate of adherence, and the entered estimate is shown beside it.',
   },
   {
     id: 'dose-far-above-maximum-choice',

@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import { addDaysIso } from '../../../core/dates';
 import { computeCase } from '../../../core/ledger/computeCase';
 import { derivationsOf } from '../../../core/report/derivationIndex';
 import { findFormula } from '../../../core/catalogue';
@@ -25,11 +26,19 @@ const withOverride = withChange(readDemo('th-0417'), ['assumptionOverrides'], {
   'efficiency-deferasirox': { value: 0.22, reason: 'unit audit 2026', by: 'Pharmacist AB', at: '2026-11-20' },
 });
 
+// Half the days covered by dispensings, so the expected removal's adherence is the proportion of days covered (a nested derivation).
+const withDispensings = withChange(
+  readDemo('th-0417'),
+  ['dispensings'],
+  Array.from({ length: 12 }, (_, index) => ({ id: `disp-${index}`, date: addDaysIso('2025-11-20', index * 30), drug: 'deferasirox', quantity: { value: 15, unit: '{each}' }, daysSupplied: 15 })),
+);
+
 describe('derivations of the headline results', () => {
   for (const [name, json] of [
     ['TH-0417', readDemo('th-0417')],
     ['TH-0093', readDemo('th-0093')],
     ['TH-0417 with overrides', withOverride],
+    ['TH-0417 with dispensings', withDispensings],
   ] as const) {
     it(`${name}: feeding each derivation's inputs back to its named formula reproduces its outputs`, () => {
       // The outside reference here is the formula catalogue itself, run independently of the

@@ -4,7 +4,8 @@ import { proportionOfDaysCovered } from '../../../core/dosing';
 import { monitoringCalendar } from '../../../core/monitoring';
 import { findSource } from '../../../core/references';
 import { labelInteractions } from '../../../core/safety/interactionCatalogue';
-import { readDemo } from '../model/caseFixtures';
+import { computeCase } from '../../../core/ledger/computeCase';
+import { readDemo, withChange } from '../model/caseFixtures';
 import { md1102, th0322 } from './scenarioCases';
 import { expectDescriptive, findingsFor, ofRule, parsed, period, producedTexts, result, reviewDate, smallCase } from './safetyCases';
 
@@ -144,6 +145,19 @@ describe('proportion of days covered (Nau, Pharmacy Quality Alliance 2012: days 
     const [finding] = ofRule(findingsFor(smallCase({ chelationPeriods: [period('deferasirox', 14, { startDaysBefore: 89, adherence: 0.9 })], dispensings })), 'adherence-from-dispensings');
     expect(finding!.text).toContain('3 dispensing(s) cover 60 of 90 days, a proportion of days covered of 0.67');
     expect(finding!.text).toContain('entered adherence estimate of 0.9');
+  });
+
+  it('is set beside the measured response between LIC results: TH-0417 with 15-day supplies every 30 days from 2025-11-20', () => {
+    const dispensings = Array.from({ length: 12 }, (_, index) => ({ id: `disp-${index}`, date: addDaysIso('2025-11-20', index * 30), drug: 'deferasirox', quantity: { value: 15, unit: '{each}' }, daysSupplied: 15 }));
+    const json = withChange(readDemo('th-0417'), ['dispensings'], dispensings);
+    const [finding] = ofRule(findingsFor(json), 'adherence-from-dispensings');
+    // By hand: the LIC results of 2025-11-18 and 2026-11-17; counted from the first dispensing (PQA index date),
+    // 2025-11-20..2026-11-17 is 363 days, of which the 12 supplies of 15 days cover 180.
+    expect(finding!.text).toContain('Between the LIC results of 2025-11-18 and 2026-11-17 the dispensings cover 180 of 363 days (0.5, below the 0.80 usually taken as adequate)');
+    const results = computeCase(parsed(json), reviewDate, { samples: 60 });
+    const ratio = results.ok ? results.value.responses.at(-1)!.measuredToExpectedRatio! : NaN;
+    expect(finding!.triggers.find((it) => it.name === 'measured ÷ expected removal')!.value).toBe(Number(ratio.toFixed(4)));
+    expect(finding!.text).toContain(`the measured removal was ${Math.round(ratio * 100)} % of the expected`);
   });
 });
 
