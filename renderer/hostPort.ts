@@ -33,6 +33,10 @@ export interface WorkspaceHost {
   readUnitSystem(): Promise<'si' | 'conventional'>;
   writeUnitSystem(system: 'si' | 'conventional'): Promise<void>;
   appVersion(): Promise<string>;
+  /** The folder the host reads the cases from, or null (none chosen, or cases kept in the page). */
+  workspaceFolder(): Promise<string | null>;
+  /** The case file the operating system asked the app to open, taken from the host (its folder is now the workspace), or null. */
+  takeOpenRequest(): Promise<Result<{ readonly id: string; readonly folder: string } | null>>;
 }
 
 /** A case file name from a label: 'TH-0417' → 'th-0417.json', then 'th-0417 (2).json' when taken. */
@@ -115,6 +119,15 @@ export function workspaceHostOver(api: HostApi): WorkspaceHost {
     async appVersion() {
       const info = await api.appInfo({});
       return info.ok ? info.value.version : 'unknown';
+    },
+    async workspaceFolder() {
+      const current = await api.currentWorkspace({});
+      return current.ok ? current.value.folder : null;
+    },
+    async takeOpenRequest() {
+      const taken = await api.takeOpenRequest({});
+      if (!taken.ok) return taken;
+      return ok(taken.value === null ? null : { id: taken.value.caseId, folder: taken.value.workspaceFolder });
     },
   };
 }

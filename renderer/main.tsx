@@ -9,7 +9,6 @@ import { workspaceStore } from './state/store';
 import { App } from './views/App';
 import './styles.css';
 
-
 /**
  * Composition: the one place that picks the host. The desktop app's preload
  * or the preview server answers through renderer/host's client; a page
@@ -23,6 +22,11 @@ async function start(): Promise<void> {
     ? [client, 'desktop app or preview server']
     : [createMemoryHost({ 'th-0417.json': demoTh0417, 'th-0093.json': demoTh0093 }, window.localStorage, __APP_VERSION__), 'in-page store (cases stay in this browser)'];
   await workspaceStore.getState().connect(workspaceHostOver(api), kind);
+  if (probe.ok) {
+    client.onMenuCommand((command) => workspaceStore.getState().hostCommand(command));
+    // A case file the app was started to open (a double-click on it, or `preview <case file>`).
+    await workspaceStore.getState().openRequested();
+  }
 }
 
 createRoot(document.getElementById('root')!).render(

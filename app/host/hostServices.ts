@@ -15,6 +15,7 @@ import { writeFileAtomic } from './atomicWrite';
 import { toolVersion } from './toolVersion';
 import type { SettingsStore } from './settingsStore';
 import { insideFolder } from './workspaceFiles';
+import type { OpenRequests } from './openRequests';
 
 /**
  * What the host services need from the process that runs them; each host
@@ -30,6 +31,8 @@ export interface HostEnvironment {
   readonly settings: SettingsStore;
   /** The host's clock, for file-system timestamps in exports only; core never reads it. */
   readonly now: () => Date;
+  /** Case files the operating system or the command line asked to open (app/host/openRequests.ts); absent: none ever are. */
+  readonly openRequests?: OpenRequests;
 }
 
 type Summary = HostValue<'listCases'>[number];
@@ -191,5 +194,12 @@ export function createHostServices(environment: HostEnvironment): HostHandlers {
       }),
     readSettings: () => environment.settings.read(),
     writeSettings: (settings) => environment.settings.write(settings),
+    takeOpenRequest: () => {
+      const request = environment.openRequests?.take() ?? null;
+      if (request === null) return ok(null);
+      // The file's folder becomes the workspace, so every later call (save, export) names the case inside it.
+      environment.workspace.set(request.folder);
+      return ok({ caseId: request.caseId, workspaceFolder: request.folder });
+    },
   };
 }

@@ -7,12 +7,15 @@ import { app, BrowserWindow, dialog, ipcMain, Menu, protocol, session } from 'el
 import { existsSync, readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { menuChannel } from '../../core/contract/callNames';
+import { formatIssues } from '../../core/result';
 import { ensureDemoWorkspace } from '../host/demoWorkspace';
 import { createHostDispatch } from '../host/hostDispatch';
 import { createHostServices } from '../host/hostServices';
+import { createOpenRequests } from '../host/openRequests';
 import { createSettingsStore } from '../host/settingsStore';
 import { appEntryUrl, appScheme, appSchemePrivileges, createAppProtocolHandler } from './appProtocol';
 import { denyAllPermissions, guardContents } from './contentsGuards';
+import { listenForCaseFiles } from './caseFileEvents';
 import { aboutText, applicationMenu } from './menu';
 import { registerHostIpc } from './registerHostIpc';
 import { mainWindowOptions } from './windowOptions';
@@ -25,6 +28,26 @@ app.enableSandbox();
 app.on('web-contents-created', (_event, contents) => guardContents(contents));
 
 if (!app.requestSingleInstanceLock()) app.quit();
+
+// Case files the operating system asks the app to open (file association): kept until the page takes them.
+const openRequests = createOpenRequests();
+let mainWindow: BrowserWindow | null = null;
+const refusals: string[] = [];
+const showRefusal = (text: string) => {
+  if (mainWindow) void dialog.showMessageBox(mainWindow, { type: 'warning', title: 'Case file not opened', message: text });
+  else refusals.push(text);
+};
+listenForCaseFiles(app, openRequests, process.argv, process.cwd(), {
+  requested: (request) => {
+    if (!request.ok) showRefusal(formatIssues(request.issues));
+    else mainWindow?.webContents.send(menuChannel, 'open-requested');
+  },
+  focus: () => {
+    if (!mainWindow) return;
+    if (mainWindow.isMinimized()) mainWindow.restore();
+    mainWindow.focus();
+  },
+});
 
 /** The last workspace folder, kept beside the settings so the app reopens it. */
 function workspaceMemory(file: string) {
@@ -61,6 +84,7 @@ void app.whenReady().then(() => {
   }
 
   const window = new BrowserWindow(mainWindowOptions(join(appFolder, 'dist', 'preload', 'preload.cjs'), app.getName()));
+  mainWindow = window;
   const dispatch = createHostDispatch(
     createHostServices({
       appName: app.getName(),
@@ -72,6 +96,7 @@ void app.whenReady().then(() => {
       },
       settings: createSettingsStore(join(userData, 'settings.json')),
       now: () => new Date(),
+      openRequests,
     }),
   );
   registerHostIpc(ipcMain, dispatch);
@@ -88,7 +113,10 @@ void app.whenReady().then(() => {
       ).map((item) => ({ ...item }) as Electron.MenuItemConstructorOptions),
     ),
   );
-  window.once('ready-to-show', () => window.show());
+  window.once('ready-to-show', () => {
+    window.show();
+    for (const text of refusals.splice(0)) showRefusal(text);
+  });
   void window.loadURL(appEntryUrl);
 });
 

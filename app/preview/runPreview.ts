@@ -4,6 +4,7 @@ import { fail, issue, ok, type Result } from '../../core/result';
 import { ensureDemoWorkspace } from '../host/demoWorkspace';
 import { createHostDispatch } from '../host/hostDispatch';
 import { createHostServices } from '../host/hostServices';
+import { createOpenRequests } from '../host/openRequests';
 import { createSettingsStore } from '../host/settingsStore';
 import { startPreviewServer, type PreviewServer } from './previewServer';
 
@@ -16,6 +17,8 @@ export interface PreviewSetup {
   readonly configFolder: string;
   /** --workspace; absent: the demo workspace in the config folder. */
   readonly workspace?: string;
+  /** A case file to open in the page (`preview <case.json>`); its folder is the workspace. */
+  readonly openFile?: string;
   /** --port; absent or 0: any free port. */
   readonly port?: number;
   /** The built renderer folder; absent: dist/renderer in the app folder (tests build their own copy). */
@@ -30,7 +33,12 @@ export interface PreviewSetup {
  */
 export async function runPreview(setup: PreviewSetup): Promise<Result<PreviewServer>> {
   let workspace: string;
-  if (setup.workspace !== undefined) {
+  const openRequests = createOpenRequests();
+  if (setup.openFile !== undefined) {
+    const request = openRequests.offer(setup.openFile);
+    if (!request.ok) return request;
+    workspace = request.value.folder;
+  } else if (setup.workspace !== undefined) {
     workspace = resolve(setup.workspace);
     let isFolder = false;
     try {
@@ -52,6 +60,7 @@ export async function runPreview(setup: PreviewSetup): Promise<Result<PreviewSer
       workspace: { get: () => current, set: (folder) => (current = folder) },
       settings: createSettingsStore(join(setup.configFolder, 'settings.json')),
       now: () => new Date(),
+      openRequests,
     }),
   );
   try {

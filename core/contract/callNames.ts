@@ -24,12 +24,19 @@ export const hostCallNames = [
   'exportCalendar',
   'readSettings',
   'writeSettings',
+  'takeOpenRequest',
 ] as const;
 
 export type HostCallName = (typeof hostCallNames)[number];
 
-/** Commands the desktop menu sends to the page (File ▸ Open, Save, Export sheet). */
-export const menuCommands = ['open', 'save', 'export-sheet'] as const;
+/**
+ * Commands the main process sends to the page: the desktop menu's File ▸ Open,
+ * Save and Export sheet, and `open-requested` when the operating system asked
+ * the app to open a case file (the page then takes the request through
+ * `takeOpenRequest`, once it has nothing unsaved). A command is a word only;
+ * what it concerns crosses through the contract's validated calls.
+ */
+export const menuCommands = ['open', 'save', 'export-sheet', 'open-requested'] as const;
 export type MenuCommand = (typeof menuCommands)[number];
 
 /**

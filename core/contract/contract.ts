@@ -170,6 +170,11 @@ export const hostContract = {
   ),
   readSettings: call('The user\'s settings (defaults where none are stored).', emptyRequest, settingsSchema),
   writeSettings: call('Replace the user\'s settings; returns them as stored.', settingsSchema, settingsSchema),
+  takeOpenRequest: call(
+    'The case file the operating system (or the command line) asked the app to open, removed from the host; its folder becomes the workspace. Null when none is waiting.',
+    emptyRequest,
+    z.strictObject({ caseId: caseIdSchema, workspaceFolder: z.string().min(1) }).nullable(),
+  ),
 } as const satisfies Record<HostCallName, HostCallSpec>;
 
 export type HostContract = typeof hostContract;

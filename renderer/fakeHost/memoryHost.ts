@@ -134,5 +134,7 @@ export function createMemoryHost(seed: Readonly<Record<string, unknown>>, storag
       persist();
       return ok(state.settings);
     },
+    // A page on its own has no operating system to ask it to open a file.
+    takeOpenRequest: async () => ok(null),
   };
 }

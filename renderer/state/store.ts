@@ -1,5 +1,6 @@
 import { createStore, type StoreApi } from 'zustand/vanilla';
 import { useStore } from 'zustand';
+import type { MenuCommand } from '../../core/contract/callNames';
 import type { Case } from '../../core/model/caseFile';
 import { formatIssues } from '../../core/result';
 import type { StoredCase, WorkspaceHost } from '../hostPort';
@@ -38,6 +39,10 @@ export interface WorkspaceState {
   readonly aboutOpen: boolean;
   /** Long work under way (reading a workspace, writing an export), with how far it got; null when idle. */
   readonly busy: { readonly label: string; readonly done: number; readonly total: number | null } | null;
+  /** A case file the operating system asked to open while this case had unsaved changes: it opens once they are saved or undone. */
+  readonly openWaiting: boolean;
+  /** The workspace folder the host reads, where it has one (null for the in-page store). */
+  readonly workspaceFolder: string | null;
 }
 
 export interface WorkspaceIntents {
@@ -58,6 +63,10 @@ export interface WorkspaceIntents {
   dismissMessage(): void;
   /** Stop the long work under way: reading stops at the next case; an export already sent to the host is no longer waited for. */
   cancelBusy(): void;
+  /** Open the case file the operating system asked for (a double-click on a case file), unless unsaved changes would be lost. */
+  openRequested(): Promise<void>;
+  /** A command from the desktop menu or the main process. */
+  hostCommand(command: MenuCommand): void;
 }
 
 export type Workspace = WorkspaceState & WorkspaceIntents;
@@ -80,6 +89,8 @@ const initial: WorkspaceState = {
   lastExport: null,
   aboutOpen: false,
   busy: null,
+  openWaiting: false,
+  workspaceFolder: null,
 };
 
 /** A new workspace store (one per page; tests make their own). */
@@ -115,6 +126,7 @@ export function createWorkspaceStore(): StoreApi<Workspace> {
       if (get().draft !== draft) return; // a later edit saves itself
       if (saved.ok) {
         set({ saveState: 'saved', cases: get().cases.map((entry) => (entry.id === openId ? { id: openId, json } : entry)) });
+        if (get().openWaiting) void get().openRequested();
       } else {
         set({ saveState: 'failed', message: `Not saved: ${formatIssues(saved.issues)} What you typed is still here.` });
       }
@@ -141,8 +153,8 @@ export function createWorkspaceStore(): StoreApi<Workspace> {
       ...initial,
       async connect(host, hostKind) {
         set({ host, hostKind });
-        const [unitSystem, version] = await Promise.all([host.readUnitSystem(), host.appVersion()]);
-        set({ unitSystem, version });
+        const [unitSystem, version, workspaceFolder] = await Promise.all([host.readUnitSystem(), host.appVersion(), host.workspaceFolder()]);
+        set({ unitSystem, version, workspaceFolder });
         await refresh();
       },
       showScreen(screen) {
@@ -151,6 +163,7 @@ export function createWorkspaceStore(): StoreApi<Workspace> {
       openCase: open,
       closeCase() {
         set({ openId: null, draft: null, check: null, accepted: null, past: [], future: [], screen: 'cases' });
+        if (get().openWaiting) void get().openRequested();
       },
       async createCase(json) {
         const host = get().host;
@@ -210,6 +223,39 @@ export function createWorkspaceStore(): StoreApi<Workspace> {
       },
       cancelBusy() {
         cancelled = true;
+      },
+      async openRequested() {
+        const { host, openId, saveState } = get();
+        if (!host) return;
+        if (openId !== null && saveState !== 'saved') {
+          // The request stays with the host until this case's changes are saved or undone: nothing typed is lost.
+          set({ openWaiting: true, message: `A case file was asked to open; it opens when the changes to ${openId} are saved (or undone, or the case is closed).` });
+          return;
+        }
+        set({ openWaiting: false });
+        const taken = await host.takeOpenRequest();
+        if (!taken.ok) {
+          set({ message: `The case file could not be opened: ${formatIssues(taken.issues)}` });
+          return;
+        }
+        if (taken.value === null) return;
+        const { id, folder } = taken.value;
+        // The host's workspace is now the file's folder: the open case (saved) belonged to the old one.
+        set({ openId: null, draft: null, check: null, accepted: null, past: [], future: [], screen: 'cases', workspaceFolder: folder });
+        await refresh();
+        if (get().cases.some((entry) => entry.id === id)) open(id);
+        else set({ message: `${id} was not found in ${folder}; the cases of that folder are listed.` });
+      },
+      hostCommand(command) {
+        if (command === 'open-requested') void get().openRequested();
+        else if (command === 'open') set({ screen: 'cases' });
+        else if (command === 'export-sheet') set({ screen: get().openId === null ? 'cases' : 'sheet' });
+        else {
+          // Save: every accepted edit is saved as it is made; a save asked for again retries a failed one.
+          const { draft, saveState } = get();
+          if (draft && saveState === 'unsaved-errors') set({ message: 'Not saved: the record has entries to correct, each marked beside its field; what you typed is kept.' });
+          else if (draft && saveState === 'failed') void settle(draft);
+        }
       },
     };
   });

@@ -84,6 +84,7 @@ export function visibleCaseLines(lines: readonly CaseSummaryLine[], search: stri
 }
 
 /** Count line for the list heading: "2 of 3 cases". */
-export function caseCountText(shown: number, total: number): string {
-  return shown === total ? `${formatNumber(total, 0)} case${total === 1 ? '' : 's'}` : `${formatNumber(shown, 0)} of ${formatNumber(total, 0)} cases`;
+export function caseCountText(shown: number, total: number, folder: string | null = null): string {
+  const count = shown === total ? `${formatNumber(total, 0)} case${total === 1 ? '' : 's'}` : `${formatNumber(shown, 0)} of ${formatNumber(total, 0)} cases`;
+  return folder === null ? count : `${count} in ${folder}`;
 }

@@ -9,6 +9,7 @@ import { newCaseJson } from '../viewModels/newCase';
 /** The workspace's cases with a summary line each; search, sort, new, open, import. */
 export function CasesView() {
   const cases = useWorkspace((state) => state.cases);
+  const folder = useWorkspace((state) => state.workspaceFolder);
   const [search, setSearch] = useState('');
   const [sortKey, setSortKey] = useState<CaseSortKey>('label');
   const today = todayIso();
@@ -40,7 +41,7 @@ export function CasesView() {
           />
         </label>
       </div>
-      <p aria-live="polite">{caseCountText(shown.length, lines.length)}</p>
+      <p aria-live="polite">{caseCountText(shown.length, lines.length, folder)}</p>
       <table className="cases">
         <caption className="visually-hidden">Cases in this workspace</caption>
         <thead>

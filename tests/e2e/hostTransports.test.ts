@@ -7,10 +7,11 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { buildDesktop } from '../../app/build/build-desktop.mjs';
 import { createHostDispatch, type HostDispatch } from '../../app/host/hostDispatch';
 import { createHostServices } from '../../app/host/hostServices';
+import { createOpenRequests, type OpenRequests } from '../../app/host/openRequests';
 import { createSettingsStore } from '../../app/host/settingsStore';
 import { registerHostIpc, type InvokeEvent } from '../../app/main/registerHostIpc';
 import { startPreviewServer, type PreviewServer } from '../../app/preview/previewServer';
-import { previewTokenHeader } from '../../core/contract';
+import { menuChannel, previewTokenHeader } from '../../core/contract';
 import { artifactsDir, buildRenderer, repoRoot } from './browser';
 
 // The desktop app's two transports end to end in Debian's Chromium (the closest these machines
@@ -29,7 +30,7 @@ function demoWorkspace(): { folder: string; config: string } {
   return { folder, config: join(folder, '.config') };
 }
 
-function dispatchOver(folder: string, config: string): HostDispatch {
+function dispatchOver(folder: string, config: string, openRequests?: OpenRequests): HostDispatch {
   let workspace: string | null = folder;
   return createHostDispatch(
     createHostServices({
@@ -38,6 +39,7 @@ function dispatchOver(folder: string, config: string): HostDispatch {
       workspace: { get: () => workspace, set: (next) => (workspace = next) },
       settings: createSettingsStore(join(config, 'settings.json')),
       now: () => new Date(Date.UTC(2026, 10, 20, 9, 0, 0)),
+      ...(openRequests ? { openRequests } : {}),
     }),
   );
 }
@@ -87,7 +89,8 @@ async function desktopPage(dispatch: HostDispatch, server: PreviewServer): Promi
       contextBridge: { exposeInMainWorld: (key, api) => Object.defineProperty(window, key, { value: api, enumerable: true }) },
       ipcRenderer: {
         invoke: (channel, payload) => window.__electronIpcInvoke(channel, payload),
-        on: () => undefined,
+        // Listeners kept so a test can send what the main process sends (webContents.send).
+        on: (channel, listener) => void (window.__ipcListeners = [...(window.__ipcListeners || []), [channel, listener]]),
         removeListener: () => undefined,
       },
     };
@@ -210,6 +213,47 @@ describe('the preview transport: the same renderer over HTTP with the token', { 
       expect(errors).toEqual([]);
     } finally {
       await context.close();
+      await server.close();
+    }
+  }, 120_000);
+});
+
+describe('a case file the operating system asks the desktop app to open (file association)', { retry: 2 }, () => {
+  it('opens the file the app was started with, then one asked for while it runs, from another folder', async () => {
+    const { folder, config } = demoWorkspace();
+    const elsewhere = mkdtempSync(join(tmpdir(), 'chelation-ledger-e2e-elsewhere-'));
+    copyFileSync(join(repoRoot, 'assets', 'demo', 'th-0093.json'), join(elsewhere, 'ab-0001.json'));
+    const openRequests = createOpenRequests();
+    // As main.ts does with process.argv at start-up (listenForCaseFiles, tested in Node).
+    expect(openRequests.offer(join(folder, 'th-0417.json')).ok).toBe(true);
+    const dispatch = dispatchOver(folder, config, openRequests);
+    const server = await startPreviewServer({ rendererRoot: rendererFolder, dispatch: async () => ({ ok: false, issues: [] as never }), port: 0 });
+    const { page } = await desktopPage(dispatch, server);
+    const errors: string[] = [];
+    page.on('pageerror', (error) => errors.push(error.message));
+    try {
+      await page.goto(`http://127.0.0.1:${server.port}/`);
+      // No click: the page took the request at start and shows the case's record.
+      await page.locator('.case-label', { hasText: 'TH-0417' }).waitFor();
+      expect(await page.locator('main h1').textContent()).toBe('Record');
+
+      // While it runs: main offers the file (open-file or second-instance) and sends 'open-requested'.
+      expect(openRequests.offer(join(elsewhere, 'ab-0001.json')).ok).toBe(true);
+      await page.evaluate((channel) => {
+        for (const [name, listener] of (window as unknown as { __ipcListeners: [string, (event: unknown, command: string) => void][] }).__ipcListeners) {
+          if (name === channel) listener({}, 'open-requested');
+        }
+      }, menuChannel);
+      await page.locator('.case-label', { hasText: 'TH-0093' }).waitFor();
+      expect(await dispatch('currentWorkspace', {})).toEqual({ ok: true, value: { folder: elsewhere } });
+      await page.click('nav button:has-text("Cases")');
+      // The Cases screen now lists the other folder's one case, and names the folder.
+      expect(await page.locator('button[aria-label^="Open "]').count()).toBe(1);
+      expect(await page.locator('main p[aria-live]').textContent()).toBe(`1 case in ${elsewhere}`);
+      await page.screenshot({ path: join(artifactsDir, 'desktop-open-file-cases.png') });
+      expect(errors).toEqual([]);
+    } finally {
+      await page.context().close();
       await server.close();
     }
   }, 120_000);

@@ -1,4 +1,4 @@
-import { mkdtempSync } from 'node:fs';
+import { copyFileSync, mkdtempSync } from 'node:fs';
 import { request } from 'node:http';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -17,7 +17,7 @@ describe('chelation-ledger preview', () => {
   it('answers --help with its usage and exit 0', async () => {
     const run = await runWith(['preview', '--help']);
     expect(run.code).toBe(0);
-    expect(run.out).toMatch(/^Usage: chelation-ledger preview \[--port N\] \[--workspace DIR\]/);
+    expect(run.out).toMatch(/^Usage: chelation-ledger preview \[<case\.json>\] \[--port N\] \[--workspace DIR\]/);
   });
 
   it('refuses a system port or a non-number with the accepted range, and unknown options', async () => {
@@ -67,5 +67,48 @@ describe('chelation-ledger preview', () => {
     });
     expect(run.code).toBe(1);
     expect(run.err).toBe(`--workspace: ${missing} is not a folder; give the folder that holds the case files.`);
+  });
+
+  it('opens a case file given instead of a workspace: its folder becomes the workspace and the page takes it first', async () => {
+    const folder = tempDir();
+    copyFileSync(join(appFolder, 'assets', 'demo', 'th-0093.json'), join(folder, 'mine.json'));
+    let stop: (() => Promise<void>) | undefined;
+    const run = await runWith(['preview', join(folder, 'mine.json')], {
+      startPreview: async (options) => {
+        const started = await runPreview({ appName: 'chelation-ledger', appVersion: '0.1.0', appFolder, configFolder: tempDir(), ...options });
+        if (started.ok) stop = started.value.close;
+        return started;
+      },
+    });
+    try {
+      expect(run.code, run.err).toBe(0);
+      const url = new URL(/open (\S+)/.exec(run.out)![1]!);
+      const call = (name: string) =>
+        new Promise<unknown>((resolvePromise, reject) => {
+          const sent = request({ host: '127.0.0.1', port: url.port, method: 'POST', path: `/api/${name}`, headers: { 'content-type': 'application/json', [previewTokenHeader]: url.searchParams.get('token')! } }, (response) => {
+            let text = '';
+            response.on('data', (chunk) => (text += chunk));
+            response.on('end', () => resolvePromise(JSON.parse(text)));
+          });
+          sent.on('error', reject);
+          sent.end('{}');
+        });
+      expect(await call('currentWorkspace')).toEqual({ ok: true, value: { folder } });
+      expect(await call('takeOpenRequest')).toEqual({ ok: true, value: { caseId: 'mine.json', workspaceFolder: folder } });
+      expect(await call('takeOpenRequest')).toEqual({ ok: true, value: null });
+    } finally {
+      await stop?.();
+    }
+  });
+
+  it('refuses two case files, a file that is not .json, a file with --workspace, and a missing file, naming each', async () => {
+    const never = { startPreview: () => Promise.reject(new Error('must not start')) };
+    expect((await runWith(['preview', 'a.json', 'b.json'], never)).err).toContain('preview opens one case file; 2 were given (a.json, b.json).');
+    expect((await runWith(['preview', 'cases'], never)).err).toContain('cases: preview opens a case file (.json); give a folder of case files as --workspace cases.');
+    expect((await runWith(['preview', 'a.json', '--workspace', 'cases'], never)).err).toContain('give a case file or --workspace, not both');
+    const missing = join(tempDir(), 'gone.json');
+    const run = await runWith(['preview', missing], { startPreview: (options) => runPreview({ appName: 'chelation-ledger', appVersion: '0.1.0', appFolder, configFolder: tempDir(), ...options }) });
+    expect(run.code).toBe(1);
+    expect(run.err).toBe(`file: ${missing} was asked to open, but there is no such file (moved or deleted?).`);
   });
 });
