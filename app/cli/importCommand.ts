@@ -4,6 +4,7 @@ import { readCodeMap, type CodeMap } from '../host/imports/codeMap';
 import type { CsvKind } from '../host/imports/csvImport';
 import type { DateOrder } from '../host/imports/importDates';
 import { commitImport, describeEntry, entriesWord, previewImport, previewRowsShown } from '../host/imports/importCase';
+import { choiceOf, type ImportChoice } from '../host/imports/importPlan';
 import type { ParsedArgs } from './args';
 import type { StoreIo } from './editCommands';
 import { exitCodes, type CliIo, type TextIo } from './io';
@@ -19,6 +20,18 @@ FHIR R4 Bundle (JSON): Observations by LOINC code, red-cell transfusion Procedur
 LOINC has no code for (MRI liver iron, liver R2* or T2*, cardiac T2*); codes known to neither are listed.`;
 
 const known = ['--into', '--kind', '--map', '--date-order', '--code-map'];
+
+/** The flag that makes each choice of an import (the host's messages name the choice in words, the command line adds its flag). */
+const choiceFlags: Readonly<Record<ImportChoice, string>> = {
+  kind: '--kind transfusions|results',
+  columnMapping: '--map field=Header,...',
+  dateOrder: '--date-order day-first or --date-order month-first',
+};
+
+/** One line per choice asked for: how to make it on the command line. */
+function flagHints(choices: readonly (ImportChoice | undefined)[]): string[] {
+  return [...new Set(choices)].filter((it): it is ImportChoice => it !== undefined).map((it) => `On the command line: ${choiceFlags[it]}.`);
+}
 
 /** `--map date=Given on,volume=Vol (mL)` → { date: 'Given on', volume: 'Vol (mL)' }. */
 function parseMapping(text: string | undefined): Record<string, string> | string {
@@ -89,7 +102,7 @@ export async function importCommand(args: ParsedArgs, io: CliIo & StoreIo & Text
   });
   if (!previewed.ok) {
     if (!previewed.issues[0]?.message.startsWith(file)) io.err(`${file}: nothing was imported.`);
-    io.err(formatIssues(previewed.issues));
+    io.err([formatIssues(previewed.issues), ...flagHints(previewed.issues.map(choiceOf))].join('\n'));
     return exitCodes.invalidInput;
   }
   const preview = previewed.value;
@@ -102,6 +115,7 @@ export async function importCommand(args: ParsedArgs, io: CliIo & StoreIo & Text
   if (rejected.length > 0) {
     lines.push(`Rejected: ${rejected.length} (not imported):`);
     for (const row of rejected) lines.push(`  ${row.where}: ${row.reason}`);
+    lines.push(...flagHints(rejected.map((row) => row.choice)));
   }
   if (preview.unknownCodes.length > 0) {
     lines.push(`Codes not known to the import (not imported): ${preview.unknownCodes.length}`);

@@ -107,16 +107,16 @@ function parseRows(text: string): { rows: Row[]; problems: Rejected[] } {
 export function readCsvImport(text: string, caseFile: Case | null, options: CsvOptions = {}): Result<ImportPlan> {
   const { rows, problems } = parseRows(text.replace(/^\uFEFF/, ''));
   const header = rows[0];
-  if (!header) return fail(issue('invalid_file', ['line 1'], 'line 1: the file is empty; expected a header row.'));
+  if (!header) return fail(issue('invalid_file', ['line 1'], 'The file is empty; expected a header row.'));
   const headers = header.cells.map((cell) => cell.trim());
   const kind = options.kind ?? guessKind(headers);
-  if (!kind) return fail(issue('invalid_file', ['line 1'], `line 1: the headers (${headers.join(', ').slice(0, 200)}) name neither transfusions (date, volume, haematocrit) nor results (date, test, value, unit); give --kind and --map.`));
+  if (!kind) return fail(issue('invalid_file', ['kind'], `The header row (line 1: ${headers.join(', ').slice(0, 200)}) names neither transfusions (date, volume, haematocrit) nor results (date, test, value, unit); choose the kind of records and the column that holds each field.`));
   const mapping: Record<string, number> = {};
   const understood: string[] = [`kind: ${kind}${options.kind ? '' : ' (guessed from the headers)'}`];
   for (const field of csvFieldsByKind[kind]) {
     const given = options.mapping?.[field];
     const index = given !== undefined ? headers.indexOf(given) : headers.findIndex((it) => headerWords[field]!.includes(squash(it)));
-    if (given !== undefined && index < 0) return fail(issue('invalid_file', ['--map', field], `--map ${field}=${given}: there is no column "${given}" (columns: ${headers.join(', ').slice(0, 200)}).`));
+    if (given !== undefined && index < 0) return fail(issue('invalid_file', ['columnMapping', field], `The column "${given.slice(0, 60)}" chosen for ${field} is not in the header row (line 1: ${headers.join(', ').slice(0, 200)}).`));
     if (index >= 0) {
       mapping[field] = index;
       understood.push(`${field} ← column "${headers[index]}"${given !== undefined ? '' : ' (guessed)'}`);
@@ -124,14 +124,14 @@ export function readCsvImport(text: string, caseFile: Case | null, options: CsvO
   }
   const required = kind === 'transfusions' ? ['date', 'volume'] : ['date', 'test', 'value', 'unit'];
   const missing = required.filter((field) => mapping[field] === undefined);
-  if (missing.length > 0) return fail(issue('invalid_file', ['line 1'], `line 1: no column for ${missing.join(', ')}; name it with --map ${missing[0]}=<header>.`));
+  if (missing.length > 0) return fail(issue('invalid_file', ['columnMapping', missing[0]!], `The header row (line 1) has no column for ${missing.join(', ')}; choose the column that holds ${missing.length === 1 ? 'it' : 'each'}.`));
 
   const cell = (row: Row, field: string) => (mapping[field] === undefined ? '' : (row.cells[mapping[field]!] ?? '').trim());
   const body = rows.slice(1);
   const implied = impliedDateOrder(body.map((row) => cell(row, 'date')));
   let dateOrder = options.dateOrder;
   if (!dateOrder && implied === 'conflict') {
-    return fail(issue('invalid_file', ['date'], 'The dates mix day-first (e.g. 25/03) and month-first (e.g. 03/25) forms; nothing was read. Give --date-order or correct the file.'));
+    return fail(issue('invalid_file', ['dateOrder'], 'The dates mix day-first (e.g. 25/03) and month-first (e.g. 03/25) forms; nothing was read. Choose the date order (day first or month first), or correct the file.'));
   }
   if (!dateOrder && implied !== undefined && implied !== 'conflict') {
     dateOrder = implied;
@@ -153,7 +153,7 @@ export function readCsvImport(text: string, caseFile: Case | null, options: CsvO
     }
     const date = readImportDate(cell(row, 'date'), dateOrder);
     if (!date.ok) {
-      reject(`date ${date.reason}`);
+      rejected.push({ where, reason: `date ${date.reason}`, ...(date.ambiguous ? { choice: 'dateOrder' as const } : {}) });
       continue;
     }
     if (kind === 'transfusions') {
@@ -182,7 +182,7 @@ export function readCsvImport(text: string, caseFile: Case | null, options: CsvO
         }
         const fraction = convertUcum(hct, haematocritUnit, '1', where);
         if (!fraction.ok) {
-          reject(fraction.issues[0]!.message);
+          reject(`haematocrit ${hct} ${haematocritUnit} cannot be converted to a fraction (UCUM)`);
           continue;
         }
         unitHaematocrit = withoutConversionNoise(fraction.value);

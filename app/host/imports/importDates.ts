@@ -34,7 +34,7 @@ export function readImportDate(text: string, order: DateOrder | undefined): Read
   const year = parts[3]!;
   const resolved: DateOrder | undefined = order ?? (first > 12 && second <= 12 ? 'day-first' : second > 12 && first <= 12 ? 'month-first' : undefined);
   if (resolved === undefined) {
-    return { ok: false, ambiguous: true, reason: `"${trimmed}" could be day-first or month-first; give --date-order day-first or month-first` };
+    return { ok: false, ambiguous: true, reason: `"${trimmed}" could be day-first or month-first; choose the date order (day first or month first)` };
   }
   const [day, month] = resolved === 'day-first' ? [first, second] : [second, first];
   const date = `${year}-${String(month).padStart(2, '0')}-${String(day).padStart(2, '0')}`;

@@ -24,10 +24,25 @@ export interface ProposedEntry {
   readonly entry: Readonly<Record<string, unknown>>;
 }
 
+/**
+ * A choice an import takes (named as the host contract's request names it):
+ * a message that needs one names it in words; `choiceOf` lets the command line
+ * add its flag and a screen point at its control.
+ */
+export type ImportChoice = 'kind' | 'columnMapping' | 'dateOrder';
+
+/** The choice an issue of an import asks for, from its path ('dateOrder', ['columnMapping', 'date']), if any. */
+export function choiceOf(found: { readonly path: readonly (string | number)[] }): ImportChoice | undefined {
+  const first = found.path[0];
+  return first === 'kind' || first === 'columnMapping' || first === 'dateOrder' ? first : undefined;
+}
+
 /** A row or resource not imported, with where and why. */
 export interface Rejected {
   readonly where: string;
   readonly reason: string;
+  /** The choice that would let the row be read (an ambiguous date: the date order). */
+  readonly choice?: ImportChoice;
 }
 
 export interface ImportPlan {

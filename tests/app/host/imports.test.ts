@@ -4,6 +4,7 @@ import { describe, expect, it } from 'vitest';
 import { readCsvImport } from '../../../app/host/imports/csvImport';
 import { readFhirImport } from '../../../app/host/imports/fhirImport';
 import { readImportDate } from '../../../app/host/imports/importDates';
+import { formatIssues } from '../../../core/result';
 import { cli, demoCase, tempDir } from '../cli/harness';
 
 // Outside references:
@@ -156,6 +157,26 @@ describe('CSV import', () => {
     expect(plan.ok && plan.value.rejected[0]!.reason).toContain('looks like a percentage');
   });
 
+  it('names where a file-wide problem is once, and names the choice in words, never a command-line flag', () => {
+    const noKind = readCsvImport('when,what\n2026-01-01,x\n', null);
+    const noColumn = readCsvImport('date,test,value\n2026-01-01,ferritin,1200\n', null);
+    const conflict = readCsvImport('date,test,value,unit\n25/03/2026,ferritin,1,ug/L\n03/25/2026,ferritin,1,ug/L\n', null);
+    const empty = readCsvImport('', null);
+    for (const [read, path] of [[noKind, ['kind']], [noColumn, ['columnMapping', 'unit']], [conflict, ['dateOrder']], [empty, ['line 1']]] as const) {
+      if (read.ok) throw new Error('expected a refusal');
+      const found = read.issues[0]!;
+      expect(found.path).toEqual(path);
+      // formatIssues prefixes the path: the message must not repeat it ("line 1: line 1: …").
+      expect(formatIssues(read.issues)).not.toMatch(/^(line \d+): \1/);
+      expect(found.message).not.toMatch(/--[a-z]/);
+    }
+    expect(!conflict.ok && conflict.issues[0]!.message).toContain('Choose the date order (day first or month first)');
+    const ambiguous = readCsvImport('date,test,value,unit\n03/04/2026,ferritin,1500,ug/L\n', null);
+    expect(ambiguous.ok && ambiguous.value.rejected[0]).toMatchObject({ where: 'line 2', choice: 'dateOrder' });
+    expect(ambiguous.ok && ambiguous.value.rejected[0]!.reason).toContain('choose the date order (day first or month first)');
+    expect(ambiguous.ok && ambiguous.value.rejected[0]!.reason).not.toContain('--');
+  });
+
   it('reads ISO, day-first and month-first dates (calendar checked)', () => {
     expect(readImportDate('2026-02-30', undefined).ok).toBe(false);
     expect(readImportDate('29/02/2024', undefined)).toEqual({ ok: true, date: '2024-02-29' });
@@ -180,6 +201,24 @@ describe('import command', () => {
     expect(real.code).toBe(0);
     const saved = JSON.parse(readFileSync(casePath, 'utf8'));
     expect(saved.transfusions.at(-1)).toMatchObject({ id: 'imp-2026-11-25', date: '2026-11-25', volume: { value: 560, unit: 'mL' } });
+  });
+
+  it('adds the flag that makes a choice the host names in words, and prints each place once', async () => {
+    const folder = tempDir();
+    const casePath = join(folder, 'th-0417.json');
+    copyFileSync(demoCase('th-0417'), casePath);
+    const ambiguousPath = join(folder, 'lab.csv');
+    writeFileSync(ambiguousPath, 'date,test,value,unit\n03/04/2026,ferritin,1500,ug/L\n');
+    const ambiguous = await cli('import', ambiguousPath, '--into', casePath, '--dry-run');
+    expect(ambiguous.out).toContain('line 2: date "03/04/2026" could be day-first or month-first; choose the date order (day first or month first)');
+    expect(ambiguous.out).toContain('On the command line: --date-order day-first or --date-order month-first.');
+    const missingPath = join(folder, 'short.csv');
+    writeFileSync(missingPath, 'date,test,value\n2026-01-01,ferritin,1200\n');
+    const missing = await cli('import', missingPath, '--into', casePath, '--dry-run');
+    expect(missing.code).toBe(1);
+    expect(missing.err).toContain('columnMapping.unit: The header row (line 1) has no column for unit; choose the column that holds it.');
+    expect(missing.err).toContain('On the command line: --map field=Header,...');
+    expect(missing.err).not.toMatch(/line 1: line 1/);
   });
 
   it('imports a FHIR bundle and warns on a birth date that differs from the case', async () => {
