@@ -1,7 +1,7 @@
 import { basename, dirname } from 'node:path';
 import { formatIssues } from '../../core/result';
 import { readCodeMap, type CodeMap } from '../host/imports/codeMap';
-import type { CsvKind } from '../host/imports/csvImport';
+import { csvKinds, type CsvKind } from '../host/imports/csvImport';
 import type { DateOrder } from '../host/imports/importDates';
 import { commitImport, describeEntry, entriesWord, previewImport, previewRowsShown } from '../host/imports/importCase';
 import { choiceOf, type ImportChoice } from '../host/imports/importPlan';
@@ -11,10 +11,16 @@ import { exitCodes, type CliIo, type TextIo } from './io';
 
 export const importUsage = `Usage:
   chelation-ledger import <file.csv|bundle.json> --into <case.json> [--dry-run]
-      [--kind transfusions|results] [--map field=Header,...] [--date-order day-first|month-first] [--code-map codes.json]
-Shows what would be added (counts, the first rows, every rejected row with its line and reason);
+      [--kind transfusions|exchanges|venesections|results] [--map field=Header,...] [--date-order day-first|month-first] [--code-map codes.json]
+Shows what would be added (counts, the first rows, every rejected row with its line, column and reason);
 adds it only without --dry-run, through the case store (atomic save, one journal line).
-CSV: transfusions (date, volume, haematocrit or product, units) or results (date, test, value, unit).
+CSV, one kind of record per file; the kind and the column of each field are guessed from the headers and shown:
+  transfusions  date, volume, haematocrit (units'), units, product
+  exchanges     date, method (manual|automated), volumeIn, haematocrit (units'), units, volumeRemoved, patientHaematocrit, product
+  venesections  date, volumeRemoved, patientHaematocrit
+  results       date, test, value, unit
+  A unit in a header is converted through UCUM: "Volume (L)" to mL, "Hct (%)" to a fraction.
+  --map names a column for a field where the guess is wrong: --map volumeIn="Vol in",patientHaematocrit=PreHct
 FHIR R4 Bundle (JSON): Observations by LOINC code, red-cell transfusion Procedures, Patient birth date and sex.
 --code-map: a JSON file of local codes (system, code → result kind and unit) for Observations
 LOINC has no code for (MRI liver iron, liver R2* or T2*, cardiac T2*); codes known to neither are listed.`;
@@ -23,7 +29,7 @@ const known = ['--into', '--kind', '--map', '--date-order', '--code-map'];
 
 /** The flag that makes each choice of an import (the host's messages name the choice in words, the command line adds its flag). */
 const choiceFlags: Readonly<Record<ImportChoice, string>> = {
-  kind: '--kind transfusions|results',
+  kind: `--kind ${csvKinds.join('|')}`,
   columnMapping: '--map field=Header,...',
   dateOrder: '--date-order day-first or --date-order month-first',
 };
@@ -59,7 +65,7 @@ export async function importCommand(args: ParsedArgs, io: CliIo & StoreIo & Text
     .map((flag) => `${flag}: not an option of import (${[...known, '--dry-run'].join(', ')}).`);
   for (const flag of args.missingValues) problems.push(`${flag}: a value is missing after the flag.`);
   const kind = args.options['--kind'];
-  if (kind !== undefined && kind !== 'transfusions' && kind !== 'results') problems.push(`--kind: "${kind}" is not one of: transfusions, results.`);
+  if (kind !== undefined && !(csvKinds as readonly string[]).includes(kind)) problems.push(`--kind: "${kind}" is not one of: ${csvKinds.join(', ')}.`);
   const dateOrder = args.options['--date-order'];
   if (dateOrder !== undefined && dateOrder !== 'day-first' && dateOrder !== 'month-first') problems.push(`--date-order: "${dateOrder}" is not one of: day-first, month-first.`);
   const mapping = parseMapping(args.options['--map']);

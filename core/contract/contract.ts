@@ -76,8 +76,8 @@ const savedCaseSchema = z.strictObject({ caseId: caseIdSchema, revision: revisio
 
 const journalEntrySchema = z.strictObject({ at: z.string(), description: z.string() });
 
-/** Kinds of import the host reads (CSV of transfusions or of results, an HL7 FHIR R4 Bundle). */
-export const importKinds = ['csv-transfusions', 'csv-results', 'fhir-bundle'] as const;
+/** Kinds of import the host reads (CSV of simple transfusions, of red-cell exchanges, of venesections or of results; an HL7 FHIR R4 Bundle). */
+export const importKinds = ['csv-transfusions', 'csv-exchanges', 'csv-venesections', 'csv-results', 'fhir-bundle'] as const;
 
 const importRequestSchema = z.strictObject({
   caseId: caseIdSchema,

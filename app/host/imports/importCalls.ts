@@ -16,6 +16,14 @@ import type { Rejected } from './importPlan';
 
 type ImportRequest = HostParsedRequest<'importDryRun'>;
 
+/** The contract's CSV import kinds, as the CSV reader names them. */
+const csvKindOf: Readonly<Record<Exclude<ImportRequest['kind'], 'fhir-bundle'>, CsvKind>> = {
+  'csv-transfusions': 'transfusions',
+  'csv-exchanges': 'exchanges',
+  'csv-venesections': 'venesections',
+  'csv-results': 'results',
+};
+
 
 /** The request's column mapping (column → field) as the reader takes it (field → column), each field checked. */
 function fieldMapping(request: ImportRequest, csvKind: CsvKind): Result<Record<string, string> | undefined> {
@@ -43,7 +51,7 @@ function rejectedRow(row: Rejected): { line: number | null; reason: string } {
 async function preview(store: CaseStore, request: ImportRequest): Promise<Result<{ readonly opened: OpenedCase; readonly preview: ImportPreview }>> {
   const opened = await store.open(request.caseId);
   if (!opened.ok) return fail(issue('invalid_file', ['caseId'], `${request.caseId}: the case cannot be opened; nothing was imported.`), ...opened.issues);
-  const csvKind: CsvKind = request.kind === 'csv-transfusions' ? 'transfusions' : 'results';
+  const csvKind: CsvKind = csvKindOf[request.kind === 'fhir-bundle' ? 'csv-results' : request.kind];
   const mapping = request.kind === 'fhir-bundle' ? ok(undefined) : fieldMapping(request, csvKind);
   if (!mapping.ok) return mapping;
   let codeMap: ImportChoices['codeMap'];

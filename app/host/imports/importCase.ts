@@ -117,7 +117,8 @@ function screen(caseFile: Case, plan: ImportPlan): { entries: ProposedEntry[]; r
     for (const problem of parsed.issues) {
       const entry = entryOfIssue(caseFile, entries, problem);
       if (entry) {
-        if (!refused.has(entry)) rejected.push({ where: entry.where, reason: problem.message });
+        const column = typeof problem.path[2] === 'string' ? entry.columns?.[problem.path[2]] : undefined;
+        if (!refused.has(entry)) rejected.push({ where: entry.where, reason: column === undefined ? problem.message : `column "${column.slice(0, 60)}": ${problem.message}` });
         refused.add(entry);
       } else other.push(problem);
     }

@@ -22,6 +22,8 @@ export interface ProposedEntry {
   /** "line 4" of a CSV file, or "Observation/f001" in a bundle. */
   readonly where: string;
   readonly entry: Readonly<Record<string, unknown>>;
+  /** For a CSV row: the column each of the entry's keys came from, so a refusal by the case model names the column. */
+  readonly columns?: Readonly<Record<string, string>>;
 }
 
 /**

@@ -85,6 +85,29 @@ describe('importDryRun through the host contract', () => {
     expect(!wrong.ok && wrong.issues[0]!.message).toContain('date, test, value, unit');
   });
 
+  it('reads red-cell exchanges and venesections (csv-exchanges, csv-venesections), with the column mapping checked against their fields', async () => {
+    const { dispatch, disk } = setUp();
+    const before = disk();
+    // Invented rows; 2.1 L is 2100 mL (UCUM: l = dm3) and 27 % is 0.27 (UCUM: % = 10^-2).
+    const exchanges = await dispatch('importDryRun', {
+      caseId,
+      kind: 'csv-exchanges',
+      sourceName: 'rcx.csv',
+      sourceText: 'When,Method,Vol in (L),Units,Vol removed (L),Patient Hct (%)\n2026-11-20,automated,2.1,8,2.3,27\n2026-11-21,automated,2.1,8,2.3,27\n',
+      columnMapping: { When: 'date', 'Vol in (L)': 'volumeIn' },
+    });
+    expect(exchanges.ok, JSON.stringify(exchanges)).toBe(true);
+    if (!exchanges.ok) return;
+    const exchangePreview = exchanges.value as { counts: Record<string, number>; firstRows: string[] };
+    expect(exchangePreview.firstRows[0]).toBe('line 2: 2026-11-20 automated exchange 2100 mL in (unit haematocrit not given (product default)), 2300 mL out, patient haematocrit 0.27');
+    expect(exchangePreview.counts['transfusions']).toBe(2);
+    const venesections = await dispatch('importDryRun', { caseId, kind: 'csv-venesections', sourceName: 'v.csv', sourceText: 'date,volume removed,hct\n2026-11-20,450,0.41\n' });
+    expect(venesections.ok && (venesections.value as { firstRows: string[] }).firstRows).toEqual(['line 2: 2026-11-20 venesection 450 mL, patient haematocrit 0.41']);
+    const wrongField = await dispatch('importDryRun', { caseId, kind: 'csv-venesections', sourceName: 'v.csv', sourceText: 'a,b\n', columnMapping: { a: 'volumeIn' } });
+    expect(!wrongField.ok && wrongField.issues[0]!.message).toContain('date, volumeRemoved, patientHaematocrit');
+    expect(disk()).toEqual(before);
+  });
+
   it('refuses a file it cannot read with a message naming the file', async () => {
     const { dispatch, disk } = setUp();
     const before = disk();

@@ -149,7 +149,7 @@ describe('CSV import', () => {
     const csv = 'date,volume,haematocrit,units,product\n2026-01-05,560,0.6,2,"red cells, washed\nirradiated"\n2026-01-06,abc,0.6,2,x\n';
     const plan = readCsvImport(csv, null);
     expect(plan.ok && plan.value.entries[0]!.entry['note']).toBe('product: red cells, washed\nirradiated');
-    expect(plan.ok && plan.value.rejected).toEqual([{ where: 'line 4', reason: 'volume "abc" is not a number' }]);
+    expect(plan.ok && plan.value.rejected).toEqual([{ where: 'line 4', reason: 'column "volume": volume "abc" is not a number' }]);
   });
 
   it('refuses a haematocrit that looks like a percentage without a % header', () => {
@@ -195,7 +195,7 @@ describe('import command', () => {
     const dry = await cli('import', csvPath, '--into', casePath, '--dry-run');
     expect(dry.code).toBe(0);
     expect(dry.out).toContain('Would add: 1 transfusion(s)');
-    expect(dry.out).toMatch(/line 3: transfusions\[\d+\]\.volume\.value -5 mL is not possible/);
+    expect(dry.out).toMatch(/line 3: column "volume": transfusions\[\d+\]\.volume\.value -5 mL is not possible/);
     expect(readFileSync(casePath, 'utf8')).toBe(before);
     const real = await cli('import', csvPath, '--into', casePath);
     expect(real.code).toBe(0);
@@ -210,7 +210,7 @@ describe('import command', () => {
     const ambiguousPath = join(folder, 'lab.csv');
     writeFileSync(ambiguousPath, 'date,test,value,unit\n03/04/2026,ferritin,1500,ug/L\n');
     const ambiguous = await cli('import', ambiguousPath, '--into', casePath, '--dry-run');
-    expect(ambiguous.out).toContain('line 2: date "03/04/2026" could be day-first or month-first; choose the date order (day first or month first)');
+    expect(ambiguous.out).toContain('line 2: column "date": date "03/04/2026" could be day-first or month-first; choose the date order (day first or month first)');
     expect(ambiguous.out).toContain('On the command line: --date-order day-first or --date-order month-first.');
     const missingPath = join(folder, 'short.csv');
     writeFileSync(missingPath, 'date,test,value\n2026-01-01,ferritin,1200\n');
