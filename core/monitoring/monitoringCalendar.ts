@@ -20,6 +20,24 @@ export interface MonitoringOptions {
   readonly ancIntervalDays?: number;
   /** 'weekly-throughout' (the older texts) as a named local protocol: the same as ancIntervalDays 7. */
   readonly ancSchedule?: 'label-2025' | 'weekly-throughout';
+  /**
+   * The local-protocol thresholds the review runs with (core/thresholds ids); default the case's own
+   * (`thresholdOverrides`). Their 'deferiprone-anc-interval' sets the fixed ANC interval when
+   * ancIntervalDays and ancSchedule are not given, so findings, calendar, sheet and panel share one rule.
+   */
+  readonly thresholdOverrides?: Readonly<Record<string, { readonly value: number } | undefined>>;
+}
+
+/** Threshold id of a local protocol's fixed ANC interval (core/thresholds/catalogue.ts). */
+export const ancIntervalThresholdId = 'deferiprone-anc-interval';
+
+/**
+ * The fixed ANC interval a set of local-protocol thresholds asks for, in whole days within the
+ * calendar's 1–90 (the threshold accepts up to 92, three months: kept to 90 here), or undefined.
+ */
+export function ancIntervalFromOverrides(overrides: Readonly<Record<string, { readonly value: number } | undefined>>): number | undefined {
+  const override = overrides[ancIntervalThresholdId];
+  return override === undefined ? undefined : Math.min(ancIntervalRange.max, Math.max(ancIntervalRange.min, Math.round(override.value)));
 }
 
 export type MonitoringStatus = 'overdue' | 'due-now' | 'upcoming';
@@ -177,7 +195,8 @@ function ruleInterval(rule: MonitoringRule, theCase: Case, asOf: IsoDate, active
  *
  * @param theCase - a parsed case (core/model); not changed
  * @param asOf - the review date 'YYYY-MM-DD' (1900–2100); results after it are ignored
- * @param options - a local protocol's fixed ANC interval, ancIntervalDays 1–90, or ancSchedule 'weekly-throughout' (default: the 2025 US label's schedule)
+ * @param options - a local protocol's fixed ANC interval, ancIntervalDays 1–90, or ancSchedule 'weekly-throughout'; without
+ *   either, the 'deferiprone-anc-interval' threshold of `thresholdOverrides` (default the case's own), else the 2025 US label's schedule
  * @returns the calendar, or an issue naming the field, the value and the range
  * @example monitoringCalendar(TH-0417, '2026-11-20') → creatinine: last 2026-09-29, due 2026-10-29, overdue by 22 days;
  *   hearing: none on record, due 2026-11-20 (due now)
@@ -186,7 +205,13 @@ export function monitoringCalendar(theCase: Case, asOf: IsoDate, options: Monito
   // The same review window as the iron review (core/model/reviewWindow.ts).
   const window = checkReviewDate(theCase, asOf);
   if (!window.ok) return window;
-  const ancIntervalDays = options.ancIntervalDays ?? (options.ancSchedule === 'weekly-throughout' ? weeklyThroughoutAncIntervalDays : undefined);
+  const ancIntervalDays =
+    options.ancIntervalDays ??
+    (options.ancSchedule === 'weekly-throughout'
+      ? weeklyThroughoutAncIntervalDays
+      : options.ancSchedule === 'label-2025'
+        ? undefined
+        : ancIntervalFromOverrides(options.thresholdOverrides ?? theCase.thresholdOverrides));
   if (ancIntervalDays !== undefined && (!Number.isInteger(ancIntervalDays) || ancIntervalDays < ancIntervalRange.min || ancIntervalDays > ancIntervalRange.max)) {
     return fail(
       issue('out_of_range', ['ancIntervalDays'], `ANC interval ${ancIntervalDays} days is outside the plausible range ${ancIntervalRange.min}–${ancIntervalRange.max} whole days.`),

@@ -99,8 +99,8 @@ export function safetyContext(caseFile: Case, results: CaseResults, asOf: IsoDat
   const indexed = caseFile.results.map((entry, index) => ({ entry, ref: `results[${index}] ${entry.date}`, date: entry.date }));
   const sorted = sortedByDate(indexed).filter((it) => it.date <= asOf);
   const ageOn = (date: IsoDate): number | null => ageOnDate(caseFile.patient.age, date);
-  const ancOverride = overrides['deferiprone-anc-interval'];
-  const calendar = monitoringCalendar(caseFile, asOf, ancOverride ? { ancIntervalDays: Math.min(90, Math.max(1, Math.round(ancOverride.value))) } : {});
+  // The review's thresholds, not only the case's: the calendar's ANC interval follows the same override as the findings.
+  const calendar = monitoringCalendar(caseFile, asOf, { thresholdOverrides: overrides });
   // The review date and a checked override are valid inputs of the calendar: a failure here is a bug.
   if (!calendar.ok) throw new Error(`Monitoring calendar refused a checked review: ${calendar.issues.map((it) => it.message).join(' ')}`);
   const childPugh = latestOnOrBefore(caseFile.clinicalState.hepaticImpairment, asOf);

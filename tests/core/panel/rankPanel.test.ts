@@ -3,7 +3,9 @@ import { parseCase } from '../../../core/model/parseCase';
 import { panelTiers, rankPanel, type PanelEntry } from '../../../core/panel';
 import { fail, issue } from '../../../core/result';
 import { deepFreeze, readDemo } from '../model/caseFixtures';
-import { period, result, reviewDate, smallCase } from '../safety/safetyCases';
+import { addDaysIso } from '../../../core/dates';
+import { monitoringCalendar } from '../../../core/monitoring';
+import { findingsFor, ofRule, parsed, period, result, reviewDate, smallCase } from '../safety/safetyCases';
 
 // The tiers follow the order the issue sets (urgent findings, overdue
 // monitoring, positive projected balance); the findings and due dates behind
@@ -81,5 +83,42 @@ describe('rankPanel', () => {
     const demos = rankPanel([entry('th-0417.json', readDemo('th-0417')), entry('th-0093.json', readDemo('th-0093')), ...entries], { today: '2030-01-01' });
     const tierIndexes = demos.rows.map((row) => panelTiers.indexOf(row.tier));
     expect(tierIndexes).toEqual([...tierIndexes].sort((a, b) => a - b));
+  });
+});
+
+describe('rankPanel: next monitoring follows the case’s local-protocol ANC interval, as findings and calendar do', () => {
+  // Deferiprone for 400 days with the last ANC 10 days before the review: after a year without an interruption the
+  // 2025 US deferiprone label (§2.1, §5.1) asks for counts every 2 to 4 weeks, so nothing is overdue; a local
+  // protocol of weekly counts (threshold deferiprone-anc-interval, 7 days) makes the count due 3 days before the review.
+  const results = [
+    result('liver-iron', 200, 5, 'mg/g{dry}', { method: 'biopsy' }),
+    result('cardiac-t2star', 200, 30, 'ms', { fieldStrengthT: 1.5 }),
+    result('ferritin', 60, 1500, 'ug/L'),
+    result('ferritin', 10, 1500, 'ug/L'),
+    result('alt', 10, 25, 'U/L'),
+    result('zinc', 10, 14, 'umol/L'),
+    result('neutrophils', 10, 3.2, '10*9/L'),
+  ];
+  const onDeferiprone = withLabel(smallCase({ results, chelationPeriods: [period('deferiprone', 25, { startDaysBefore: 400 })] }), 'PN-DFP');
+  const weekly = { ...onDeferiprone, thresholdOverrides: { 'deferiprone-anc-interval': { value: 7, reason: 'weekly counts throughout, local haematology protocol', by: 'Pharmacist AB', at: reviewDate } } };
+
+  it('with the override the ANC is overdue by 3 days in the panel, the calendar and the findings alike', () => {
+    const [row] = rankPanel([entry('dfp.json', weekly)], { today: '2030-01-01' }).rows;
+    expect(row!.nextMonitoring).toMatchObject({ dueDate: addDaysIso(reviewDate, -3), daysOverdue: 3, status: 'overdue' });
+    expect(row!.nextMonitoring!.what.toLowerCase()).toContain('neutrophil');
+    expect(row!.tier).toBe('overdue-monitoring');
+    const calendar = monitoringCalendar(parsed(weekly), reviewDate);
+    expect(calendar.ok && calendar.value.items.find((it) => it.id === 'neutrophils')).toMatchObject({ dueDate: addDaysIso(reviewDate, -3), interval: { days: 7 } });
+    const [finding] = ofRule(findingsFor(weekly, reviewDate, parsed(weekly).thresholdOverrides), 'deferiprone-anc-monitoring');
+    expect(finding!.text).toContain('by the local protocol');
+    expect(finding!.text).toContain('3 days overdue');
+  });
+
+  it('without it the label’s schedule applies: the ANC is not overdue', () => {
+    const [row] = rankPanel([entry('dfp.json', onDeferiprone)], { today: '2030-01-01' }).rows;
+    const calendar = monitoringCalendar(parsed(onDeferiprone), reviewDate);
+    const anc = calendar.ok ? calendar.value.items.find((it) => it.id === 'neutrophils')! : null;
+    expect(anc!.overdue).toBe(false);
+    expect(row!.overdueMonitoringCount).toBe(0);
   });
 });
