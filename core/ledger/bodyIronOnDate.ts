@@ -7,9 +7,10 @@ import type { LedgerNotice } from './caseToLedger';
 import { bodyIronCarriedForward, netIronBalance } from './formulas';
 import { resolveAssumption } from '../assumptions';
 import { angelucciSlopeMgPerKgPerMgPerGDry } from '../iron/bodyIron';
+import { removalByWeight } from './ironAccount';
 import { basisScaleOf, type EfficiencyBasis } from './efficiencyBasis';
 import { projectionSpread } from './projection';
-import { quantileOfSorted } from './quantile';
+import { quantilesOfUnsorted } from './quantile';
 import { createRandom } from './random';
 import { dayIndexOf, efficiencyUsesOf, periodsBetween, transfusionalIronBetween, type ReviewContext } from './reviewContext';
 
@@ -70,7 +71,8 @@ export function bodyIronOnDate(
     const scale = basisScaleOf(basis, span.drug);
     const from = Math.max(anchorIndex + 1, dayIndexOf(context, span.start));
     const to = Math.min(lastIndex, span.end === null ? lastIndex : dayIndexOf(context, span.end));
-    for (let index = from; index <= to; index += 1) chelationSinceMg += span.expectedRemovalMgPerDay(account.daily.weightKg[index]!) * scale;
+    const removalAt = removalByWeight(span);
+    for (let index = from; index <= to; index += 1) chelationSinceMg += removalAt(account.daily.weightKg[index]!) * scale;
   }
   const netSince = runInternal(
     netIronBalance,
@@ -121,13 +123,13 @@ export function bodyIronOnDate(
   const sigma = basis.basis === 'measured' ? projectionSpread.removalSigmaMeasured : projectionSpread.removalSigmaPublished;
   const restMg = carried.outputs.bodyIronMg - anchorStoresMg + chelationSinceMg;
   const random = createRandom(band.seed * 7919 + 17);
-  const sampled: number[] = [];
+  const sampled = new Float64Array(band.samples);
   for (let sample = 0; sample < band.samples; sample += 1) {
     const adherence = projectionSpread.adherenceLow + (projectionSpread.adherenceHigh - projectionSpread.adherenceLow) * random.uniform();
     const stores = anchorStoresMg * Math.exp(anchorRelativeSd * random.normal()) + restMg - chelationSinceMg * Math.exp(sigma * random.normal()) * adherence;
-    sampled.push(stores / (angelucciSlopeMgPerKgPerMgPerGDry * weightKg));
+    sampled[sample] = stores / (angelucciSlopeMgPerKgPerMgPerGDry * weightKg);
   }
-  sampled.sort((a, b) => a - b);
+  const [p10, p90] = quantilesOfUnsorted(sampled, [0.1, 0.9]);
   const central = carried.outputs.licMgPerGDry;
   return {
     bodyIron: {
@@ -138,7 +140,7 @@ export function bodyIronOnDate(
       efficiencyBasis: basis.basis,
       anchorStoresMg,
       anchorRelativeSd,
-      band: { licP10: Math.min(central, quantileOfSorted(sampled, 0.1)), licP90: Math.max(central, quantileOfSorted(sampled, 0.9)) },
+      band: { licP10: Math.min(central, p10!), licP90: Math.max(central, p90!) },
     },
     notices,
   };

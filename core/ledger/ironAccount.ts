@@ -1,6 +1,6 @@
 import { addMonthsIso, daysBetween, epochDayFromIso, isoFromEpochDay, monthKey, monthStartIso, type IsoDate } from '../dates/isoDate';
 import { angelucciSlopeMgPerKgPerMgPerGDry } from '../iron/bodyIron';
-import type { LedgerInput } from './ledgerInput';
+import type { ChelationSpan, LedgerInput } from './ledgerInput';
 import { weightKgAt } from './weightAt';
 
 /** One calendar month of the iron account. The last month ends at the review date. */
@@ -108,8 +108,9 @@ export function computeIronAccount(input: LedgerInput): IronAccount {
   for (const span of input.chelation) {
     const from = Math.max(0, daysBetween(firstDay, span.start));
     const to = Math.min(dayCount - 1, span.end === null ? dayCount - 1 : daysBetween(firstDay, span.end));
+    const removalAt = removalByWeight(span);
     for (let index = from; index <= to; index += 1) {
-      daily.chelationOutMg[index]! += span.expectedRemovalMgPerDay(daily.weightKg[index]!);
+      daily.chelationOutMg[index]! += removalAt(daily.weightKg[index]!);
     }
   }
 
@@ -176,6 +177,23 @@ export function computeIronAccount(input: LedgerInput): IronAccount {
     bodyIronAtAsOfMg: bodyIronMg,
     licAtAsOfMgPerGDry: bodyIronMg === null ? null : bodyIronMg / (angelucciSlopeMgPerKgPerMgPerGDry * weightAtAsOf),
     daily,
+  };
+}
+
+/**
+ * A span's expected removal at a weight, worked out again only when the weight changes:
+ * the weight changes a few times in a record of thousands of days, and the removal goes
+ * through the chelator catalogue each time it is worked out.
+ */
+export function removalByWeight(span: Pick<ChelationSpan, 'expectedRemovalMgPerDay'>): (weightKg: number) => number {
+  let lastWeightKg = Number.NaN;
+  let lastRemovalMgPerDay = 0;
+  return (weightKg) => {
+    if (weightKg !== lastWeightKg) {
+      lastRemovalMgPerDay = span.expectedRemovalMgPerDay(weightKg);
+      lastWeightKg = weightKg;
+    }
+    return lastRemovalMgPerDay;
   };
 }
 

@@ -73,14 +73,14 @@ export function storesAfterDays(model: StoresModel, days: number): { readonly st
   const constantPart = (1 - model.burdenShare) * model.removalAtStartMgPerDay;
   let excess = model.startStoresMg - floorPerKg * model.startWeightKg;
   let weightKg = model.startWeightKg;
-  const segments: [number, number][] = [];
+  // Two segments at most: growing (the floor rises with the weight), then grown. Called for every
+  // sample and month of a projection band, so it builds nothing but its result.
   const growingDays = Math.min(days, Math.max(0, model.growthDays));
-  if (growingDays > 0) segments.push([growingDays, model.weightGainKgPerDay]);
-  if (days > growingDays) segments.push([days - growingDays, 0]);
-  for (const [segmentDays, gainPerDay] of segments) {
-    excess = excessAfter(excess, segmentDays, model.netInflowMgPerDay, floorPerKg * gainPerDay, constantPart, rateConstant);
-    weightKg += gainPerDay * segmentDays;
+  if (growingDays > 0) {
+    excess = excessAfter(excess, growingDays, model.netInflowMgPerDay, floorPerKg * model.weightGainKgPerDay, constantPart, rateConstant);
+    weightKg += model.weightGainKgPerDay * growingDays;
   }
+  if (days > growingDays) excess = excessAfter(excess, days - growingDays, model.netInflowMgPerDay, 0, constantPart, rateConstant);
   return { storesMg: excess + floorPerKg * weightKg, weightKg };
 }
 
