@@ -19,10 +19,10 @@ export const practicalDose = defineFormula({
   title: 'Practical dose from the available strengths',
   expression:
     'intended (mg per administration) = target (mg/kg/day) × weight (kg) ÷ administrations per day; closest combination of strengths (tablets, halves where allowed), measurable volume (solution) or vials opened (deferoxamine); proposed mg/kg/day = proposed mg × administrations ÷ weight; difference = proposed − intended (mg and %)',
-  sourceIds: ['dosing-deferasirox-strengths-memory', 'dosing-deferiprone-strengths-memory', 'dosing-deferoxamine-vials-memory', 'dosing-measurable-volume'],
+  sourceIds: ['dosing-deferasirox-strengths-memory', 'dosing-deferiprone-strengths-memory', 'deferiprone-label', 'deferiprone-smpc-eu-2023', 'dosing-deferoxamine-vials-memory', 'dosing-measurable-volume'],
   notes: [
     'Product strengths are from memory of the labels: check them against the local formulary (the dose command takes an edited catalogue with --catalogue).',
-    'On a tie the lower amount is shown; then the fewest tablets. Halves only for tablets marked breakable (deferiprone 1000 mg, from memory of the label).',
+    'On a tie the lower amount is shown; then the fewest tablets. Halves only for tablets marked breakable (the EU deferiprone film-coated tablets, 500 and 1000 mg: SmPC §3; §4.2 calculates the dose to the nearest half tablet).',
     'For deferoxamine, the target is the dose of one infusion day and the dose drawn is the intended dose; the vials shown are those with the least left over.',
     'Descriptive only: for review by the prescriber; follow local protocols.',
   ],

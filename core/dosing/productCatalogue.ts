@@ -112,13 +112,15 @@ export const defaultProductCatalogue: ProductCatalogue = [
     kind: 'tablets',
     name: 'deferiprone film-coated tablets',
     strengths: [
-      // 500 mg: EU 2004 text (deferiprone-label, confirmed); scoring not recalled, so whole only.
-      { strengthMg: 500, halvable: false },
-      // 1000 mg scored, may be broken in halves: US label, from memory (flagged).
-      { strengthMg: 1000, halvable: true, note: 'Scored and breakable into halves per the US label: from memory, check the local product.' },
+      // 500 mg: EU SmPC (2004 annex I) §3 "The tablets are scored and breakable in half"; §4.2 "Dosage per
+      // kilogram body weight should be calculated to the nearest half tablet" (deferiprone-label, confirmed).
+      { strengthMg: 500, halvable: true, note: 'Scored and breakable in half (EU SmPC §3); doses to the nearest half tablet (§4.2).' },
+      // 1000 mg: EU SmPC (2023 annex I, French text) §3 "Le comprimé peut être divisé en deux demi doses égales"
+      // (deferiprone-smpc-eu-2023, confirmed), as for the 500 mg tablet.
+      { strengthMg: 1000, halvable: true, note: 'Scored; may be divided into two equal halves (EU SmPC 2023 §3).' },
     ],
-    sourceIds: ['deferiprone-label', 'dosing-deferiprone-strengths-memory'],
-    note: '1000 mg tablet halves allowed from memory of the label (scored tablet): check the local product.',
+    sourceIds: ['deferiprone-label', 'deferiprone-smpc-eu-2023'],
+    note: 'EU film-coated tablets: both strengths scored and breakable into equal halves (SmPC §3); the dose is calculated to the nearest half tablet (SmPC §4.2). Check the local product.',
   },
   {
     id: 'deferiprone-tablets-1000-twice-daily',

@@ -25,7 +25,7 @@ export const dosingSources = [
     year: null,
     locator: 'dosage forms and strengths',
     status: 'memory',
-    note: 'From memory: 500 mg and 1000 mg film-coated tablets, the 1000 mg tablet scored so that it can be broken into halves (US label); oral solution 100 mg/mL. The 500 mg strength is also in the 2004 EU text (deferiprone-label, confirmed); whether it is scored is not recalled, so the catalogue treats it as whole only.',
+    note: 'From memory: 500 mg and 1000 mg film-coated tablets; oral solution 100 mg/mL. That both EU film-coated tablets are scored and breakable into equal halves was read in the EU texts (deferiprone-label §3 for 500 mg, 2004; deferiprone-smpc-eu-2023 §3 for both), which the catalogue follows.',
   },
   {
     id: 'dosing-deferoxamine-vials-memory',

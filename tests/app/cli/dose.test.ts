@@ -43,7 +43,7 @@ describe('dose command', () => {
   it('lists the products with their strengths', async () => {
     const { code, out } = await cli(['dose', '--list']);
     expect(code).toBe(0);
-    expect(out).toContain('deferiprone-tablets — deferiprone film-coated tablets: 500 mg, 1000 mg (halves allowed)');
+    expect(out).toContain('deferiprone-tablets — deferiprone film-coated tablets: 500 mg (halves allowed), 1000 mg (halves allowed)');
     expect(out).toContain('deferoxamine-vials — deferoxamine mesylate powder for injection, single-use vials: 500 mg, 2000 mg');
   });
 

@@ -74,6 +74,35 @@ describe('practical dose against hand arithmetic', () => {
     expect(proposal.proposedMgPerKgPerDay).toBeCloseTo(4500 / 61, 9);
   });
 
+  describe('EU deferiprone film-coated tablets: scored and breakable in half (SmPC §3), the dose to the nearest half tablet (§4.2)', () => {
+    // 25 mg/kg three times a day (SmPC §4.2); with 500 mg halves the amounts step by 250 mg. Worked by hand.
+    const perAdministration = (weightKg: number) => propose({ product: product('deferiprone-tablets'), target: perDay(75), weightKg: kg(weightKg), administrationsPerDay: 3 });
+
+    it('30 kg: 750 mg is 1½ tablets of 500 mg, exactly', () => {
+      const proposal = perAdministration(30);
+      expect(proposal.proposedMgPerAdministration).toBe(750);
+      expect(proposal.combinationText).toBe('1.5 × 500 mg');
+      expect(proposal.differencePercent).toBeCloseTo(0, 9);
+    });
+
+    it('47 kg: 1,175 mg rounds to 1,250 (2½ tablets, 75 above) rather than 1,000 (175 below); 41 kg: 1,025 mg to 1,000', () => {
+      expect(perAdministration(47).proposedMgPerAdministration).toBe(1250);
+      expect(perAdministration(41).proposedMgPerAdministration).toBe(1000);
+    });
+
+    it('55 kg: 1,375 mg lies halfway between 1,250 and 1,500; the lower is shown', () => {
+      expect(perAdministration(55).proposedMgPerAdministration).toBe(1250);
+    });
+
+    it('halves only for the deferiprone tablets the labels describe as scored; deferasirox and the twice-daily tablet stay whole', () => {
+      const halvable = defaultProductCatalogue.filter((item) => item.kind === 'tablets' && item.strengths.some((it) => it.halvable)).map((item) => item.id);
+      expect(halvable).toEqual(['deferiprone-tablets', 'deferiprone-tablets-1000-three-times-daily']);
+      // 25 mg/kg × 30 kg = 750 mg with the twice-daily 1,000 mg tablet, whole only: 1,000 (250 above) over nothing smaller.
+      const twiceDaily = propose({ product: product('deferiprone-tablets-1000-twice-daily'), target: perDay(50), weightKg: kg(30), administrationsPerDay: 2 });
+      expect(twiceDaily.combinationText).toBe('1 × 1,000 mg');
+    });
+  });
+
   it('offers half tablets only where the catalogue marks them breakable', () => {
     const only1000 = (halvable: boolean): TabletProduct => ({
       id: 'local-deferiprone',

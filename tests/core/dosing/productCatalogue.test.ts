@@ -5,16 +5,19 @@ import { defaultProductCatalogue, findProduct, parseProductCatalogue } from '../
 import { findSource } from '../../../core/references';
 
 describe('product catalogue', () => {
-  it('ships a catalogue that its own schema accepts, citing known sources marked as memory', () => {
-    // The shipped strengths are recalled, not read (core/references/dosing.ts): each product
-    // must cite at least one source whose status says so, so no screen can present them as checked.
+  it('ships a catalogue that its own schema accepts, citing known sources marked as memory unless every one was read', () => {
+    // Most shipped strengths are recalled, not read (core/references/dosing.ts): such a product
+    // cites a source whose status says so, so no screen can present them as checked. A product whose
+    // strengths and halves were read in the label text (the EU deferiprone film-coated tablets, SmPC §3)
+    // cites only confirmed sources.
     const parsed = parseProductCatalogue(JSON.parse(JSON.stringify(defaultProductCatalogue)));
     expect(parsed.ok).toBe(true);
     for (const product of defaultProductCatalogue) {
       const statuses = product.sourceIds.map((id) => findSource(id)?.status);
       expect(statuses, product.id).not.toContain(undefined);
-      expect(statuses, product.id).toContain('memory');
+      if (!statuses.every((it) => it === 'confirmed')) expect(statuses, product.id).toContain('memory');
     }
+    expect(defaultProductCatalogue.filter((product) => product.sourceIds.every((id) => findSource(id)?.status === 'confirmed')).map((it) => it.id)).toEqual(['deferiprone-tablets']);
   });
 
   it('holds the strengths the brief lists (deferasirox 90/180/360 and 125/250/500; deferiprone 500/1000 and 100 mg/mL; deferoxamine 500 mg and 2 g)', () => {
@@ -35,7 +38,8 @@ describe('product catalogue', () => {
       'deferoxamine-vials': [500, 2000],
     });
     const halvable = defaultProductCatalogue.flatMap((it) => (it.kind === 'tablets' ? it.strengths.filter((s) => s.halvable).map((s) => `${it.id} ${s.strengthMg}`) : []));
-    expect(halvable).toEqual(['deferiprone-tablets 1000', 'deferiprone-tablets-1000-three-times-daily 1000']);
+    // EU deferiprone film-coated tablets, both strengths (SmPC §3); the US three-times-a-day 1,000 mg tablet (US label §2.1).
+    expect(halvable).toEqual(['deferiprone-tablets 500', 'deferiprone-tablets 1000', 'deferiprone-tablets-1000-three-times-daily 1000']);
     expect(defaultProductCatalogue.filter((it) => it.administrationsPerDay !== undefined).map((it) => [it.id, it.administrationsPerDay])).toEqual([
       ['deferiprone-tablets-1000-twice-daily', 2],
       ['deferiprone-tablets-1000-three-times-daily', 3],
