@@ -57,7 +57,7 @@ export const assumptionCatalogue = [
     unit: '1',
     // 0.7: deferasirox labels (film-coated 14 mg/kg/day ≈ dispersible 20 mg/kg/day); secondary.
     value: 0.7,
-    sourceIds: ['deferasirox-label'],
+    sourceIds: ['deferasirox-label-us'],
     alternatives: [],
     min: 0.6,
     max: 0.8,

@@ -178,7 +178,7 @@ export const chelatorCatalogue = [
       daysPerWeekMax: 7,
       administrationsPerDay: 1,
       schedule: 'by mouth once a day, dispersed in liquid',
-      sourceIds: ['deferasirox-label'],
+      sourceIds: ['deferasirox-label-us'],
       status: 'secondary',
     },
     efficiencyAssumptionId: 'efficiency-deferasirox',
@@ -199,7 +199,7 @@ export const chelatorCatalogue = [
       daysPerWeekMax: 7,
       administrationsPerDay: 1,
       schedule: 'by mouth once a day',
-      sourceIds: ['deferasirox-label'],
+      sourceIds: ['deferasirox-label-us'],
       status: 'secondary',
     },
     // The efficiency was measured with the dispersible tablet: apply it to film-coated dose ÷ 0.7.

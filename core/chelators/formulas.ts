@@ -92,7 +92,7 @@ export const expectedExcretion = defineFormula({
   title: 'Expected iron excretion from a chelation regimen',
   expression:
     'excretion (mg/day) = dose (mg per dosing day) × days per week / 7 × adherence × efficiency × Fe capacity (mg Fe per mg chelator); deferasirox film-coated: dose ÷ 0.7 before the efficiency',
-  sourceIds: ['poggiali-2012', 'ciaaw-2021', 'porter-efficiency-memory', 'deferasirox-label', 'nisbet-brown-2003', 'porter-balance-goal-2005'],
+  sourceIds: ['poggiali-2012', 'ciaaw-2021', 'porter-efficiency-memory', 'deferasirox-label-us', 'nisbet-brown-2003', 'porter-balance-goal-2005'],
   notes: [
     'The efficiencies are from memory and vary with iron burden and dose: an uncertain assumption, not a fact about a patient. Compare with the excretion measured from two liver iron results.',
     'The deferasirox efficiency belongs to the dispersible tablet; a film-coated dose is divided by the film-coated factor (0.7) first.',
@@ -190,7 +190,7 @@ export const deferasiroxFormulation = defineFormula({
   id: 'deferasirox-formulation',
   title: 'Deferasirox dose in the other tablet formulation',
   expression: 'film-coated (mg/kg/day) = dispersible (mg/kg/day) × 0.7; dispersible = film-coated ÷ 0.7',
-  sourceIds: ['deferasirox-label'],
+  sourceIds: ['deferasirox-label-us'],
   notes: ['Label ranges: dispersible 10–40 mg/kg/day (usual 20), film-coated 7–28 mg/kg/day (usual 14).'],
   inputs: {
     fromFormulation: { kind: 'choice', label: 'formulation of the dose', choices: deferasiroxFormulations, meaning: 'tablet formulation the dose is stated for' },

@@ -95,7 +95,7 @@ export function monitoringRules(): readonly MonitoringRule[] {
       interval: { months: 1 },
       dynamic: 'deferasirox-creatinine',
       why: 'On deferasirox: serum creatinine at least monthly; weekly in the first month when there is renal risk, and more often while it rises (US label boxed warning and §2.1).',
-      sourceIds: ['monitoring-deferasirox-label', 'deferasirox-label-renal'],
+      sourceIds: ['deferasirox-label-us'],
     },
     liverTest('alt', 'ALT (liver transaminases)'),
     liverTest('ast', 'AST'),
@@ -149,10 +149,10 @@ export function monitoringRules(): readonly MonitoringRule[] {
       condition: { kind: 'on-drug', drugs: ['deferoxamine', 'deferasirox'] },
       interval: { months: 12 },
       why: 'On deferoxamine: hearing yearly (label; confirmed). On deferasirox: auditory testing yearly (label; secondary, from memory).',
-      sourceIds: ['deferoxamine-label', 'monitoring-deferasirox-label'],
+      sourceIds: ['deferoxamine-label', 'deferasirox-label-us'],
       byDrug: {
         deferoxamine: { why: 'On deferoxamine: hearing yearly (label; confirmed).', sourceIds: ['deferoxamine-label'] },
-        deferasirox: { why: 'On deferasirox: auditory testing yearly (label; secondary, from memory).', sourceIds: ['monitoring-deferasirox-label'] },
+        deferasirox: { why: 'On deferasirox: auditory testing yearly (label; secondary, from memory).', sourceIds: ['deferasirox-label-us'] },
       },
     },
     {
@@ -163,10 +163,10 @@ export function monitoringRules(): readonly MonitoringRule[] {
       condition: { kind: 'on-drug', drugs: ['deferoxamine', 'deferasirox'] },
       interval: { months: 12 },
       why: 'On deferoxamine: eye examination yearly (label; confirmed). On deferasirox: ophthalmic testing yearly (label; secondary, from memory).',
-      sourceIds: ['deferoxamine-label', 'monitoring-deferasirox-label'],
+      sourceIds: ['deferoxamine-label', 'deferasirox-label-us'],
       byDrug: {
         deferoxamine: { why: 'On deferoxamine: eye examination yearly (label; confirmed).', sourceIds: ['deferoxamine-label'] },
-        deferasirox: { why: 'On deferasirox: ophthalmic testing yearly (label; secondary, from memory).', sourceIds: ['monitoring-deferasirox-label'] },
+        deferasirox: { why: 'On deferasirox: ophthalmic testing yearly (label; secondary, from memory).', sourceIds: ['deferasirox-label-us'] },
       },
     },
   ];

@@ -12,15 +12,6 @@ export const chelatorsSources = [
     note: 'Deferoxamine about 13 %, deferiprone about 7 %, deferasirox about 27 % (dispersible-tablet dose). Varies with iron burden and dose: an uncertain assumption, not a fact about a patient.',
   },
   {
-    id: 'deferasirox-label',
-    authors: 'Marketing authorisation holder',
-    title: 'Deferasirox prescribing information (dispersible and film-coated tablets)',
-    publication: 'product labels (US and EU)',
-    year: null,
-    status: 'secondary',
-    note: 'Film-coated tablet dose = 0.7 × dispersible-tablet dose (14 vs 20 mg/kg/day); ranges 10–40 (dispersible) and 7–28 (film-coated) mg/kg/day.',
-  },
-  {
     id: 'poggiali-2012',
     authors: 'Poggiali E, Cassinerio E, Zanaboni L, Cappellini MD',
     title: 'An update on iron chelation therapy',

@@ -46,16 +46,6 @@ export const dosingSources = [
     status: 'common-practice',
     note: 'A volume is rounded to a step an oral syringe can measure; 0.1 mL is the default step (a 1–5 mL syringe graduated in 0.1 mL). The local step may differ (0.2 or 0.5 mL on larger syringes): it is an input.',
   },
-  {
-    id: 'monitoring-deferasirox-label',
-    authors: 'Marketing authorisation holder',
-    title: 'Deferasirox prescribing information: renal and hepatic monitoring; auditory and ophthalmic testing',
-    publication: 'product labels, US and EU',
-    year: null,
-    locator: 'warnings and precautions',
-    status: 'secondary',
-    note: 'Liver tests (AST, ALT, bilirubin) every 2 weeks during the first month, then at least monthly (US label §5.2, confirmed on re-reading); serum creatinine at least monthly, weekly in the first month when there is renal risk (US label boxed warning and §2.1, confirmed). Auditory and ophthalmic testing before starting and yearly (from memory).',
-  },
 
 
   {

@@ -7,24 +7,6 @@ import type { Source } from './source';
  */
 export const safetySources = [
   {
-    id: 'deferasirox-label-renal',
-    authors: 'Marketing authorisation holder',
-    title: 'Deferasirox prescribing information (US): renal function, dose modification and monitoring',
-    publication: 'US product label (as summarised secondarily; not checked against the current text)',
-    year: null,
-    status: 'secondary',
-    note: 'Contraindicated at eGFR < 40 mL/min/1.73 m²; the starting dose is reduced by half at eGFR 40–60 mL/min/1.73 m²; a rise in serum creatinine of more than 33 % above the pre-treatment average on two consecutive measurements leads to a dose reduction; serum creatinine and transaminases monthly (more often in the first month).',
-  },
-  {
-    id: 'deferasirox-eu-crcl-memory',
-    authors: 'Marketing authorisation holder',
-    title: 'Deferasirox summary of product characteristics (EU): creatinine clearance threshold',
-    publication: 'EU product information (not checked)',
-    year: null,
-    status: 'memory',
-    note: 'From memory: contraindicated at an estimated creatinine clearance below 60 mL/min. Verify against the current EU text before relying on it.',
-  },
-  {
     id: 'deferasirox-creatinine-baseline',
     authors: '—',
     title: 'Creatinine baseline for the 33 % rise: the latest creatinine on or before the first day of the current deferasirox period; when there is none, the mean of the first two creatinines on the drug',
@@ -57,9 +39,9 @@ export const safetySources = [
     title: 'Deferiprone prescribing information (US), revision of March 2025',
     publication: 'US product label; recent major change "Warnings and Precautions, Agranulocytosis and Neutropenia (5.1) 3/2025" (openFDA label record)',
     year: 2025,
-    locator: 'boxed warning; §2.1 dosage and monitoring; §5.1 agranulocytosis and neutropenia',
+    locator: 'boxed warning; §2.1 dosage and monitoring; §5.1 agranulocytosis and neutropenia; §7 drug interactions',
     status: 'confirmed',
-    note: 'ANC before starting; weekly during the first 6 months, every 2 weeks during the next 6 months, then every 2 to 4 weeks (or at the transfusion interval) after a year without an interruption for low ANC; daily during neutropenia until recovery. Bands: neutropenia ANC 0.5 to < 1.5 × 10⁹/L, severe neutropenia 0.2 to < 0.5, agranulocytosis < 0.2 (older and EU texts: agranulocytosis < 0.5); interrupt at ANC < 1.5 or with an infection. Two different 1,000 mg tablets, one for twice-a-day and one for three-times-a-day dosing, not interchangeable: the tablet must match the regimen (§2.1). ALT monthly; zinc before and regularly.',
+    note: 'ANC before starting; weekly during the first 6 months, every 2 weeks during the next 6 months, then every 2 to 4 weeks (or at the transfusion interval) after a year without an interruption for low ANC; daily during neutropenia until recovery. Bands: neutropenia ANC 0.5 to < 1.5 × 10⁹/L, severe neutropenia 0.2 to < 0.5, agranulocytosis < 0.2 (older and EU texts: agranulocytosis < 0.5); interrupt at ANC < 1.5 or with an infection. Two different 1,000 mg tablets, one for twice-a-day and one for three-times-a-day dosing, not interchangeable: the tablet must match the regimen (§2.1). ALT monthly; zinc before and regularly. §7 interactions, as summarised by drug-information pages (the interactions entry that cited this label together with the EU text is merged here): avoid other drugs associated with neutropenia or agranulocytosis; deferiprone is conjugated by UGT1A6, so UGT1A6 inhibitors may raise its exposure; polyvalent cations (aluminium-based antacids, zinc, iron and other mineral supplements) bind it, and the label asks for an interval between them (at least 4 hours: from memory).',
   },
 
 
@@ -97,32 +79,22 @@ export const safetySources = [
     title: 'Deferasirox prescribing information (US): tablets, tablets for oral suspension and oral granules',
     publication: 'US product label (revision date not recorded when it was read again in 2026)',
     year: null,
-    locator: 'boxed warning; §2.1 starting dose; §2 hepatic impairment; §5.2 hepatic toxicity',
+    locator: 'boxed warning; §2 dosage and administration (starting dose, renal and hepatic impairment); §5 warnings and precautions (§5.2 hepatic toxicity)',
     status: 'confirmed',
-    note: 'Start when there is evidence of chronic transfusional iron overload: at least 100 mL/kg of packed red blood cells (about 20 units for 40 kg) and a serum ferritin consistently above 1,000 µg/L; doses of the tablets for oral suspension to the nearest whole tablet (§2.1). Transaminases (AST, ALT) and bilirubin before starting, every 2 weeks during the first month, then at least monthly; dose modification or interruption to be considered for severe or persistent elevations; the label gives no multiple of the upper limit of normal (a 5 × ULN cut-off is a study protocol’s). Avoid in severe (Child-Pugh C) hepatic impairment; reduce the starting dose in moderate (Child-Pugh B) impairment (by 50 % per drug references, secondary). Serum creatinine weekly in the first month with renal risk. EU (UK SmPC 2023 §4.1): start at about 7 mL/kg/month of packed red cells.',
+    note: 'One record for the US label (the renal, monitoring and dose entries that cited it separately are merged here). Read again in 2026 (confirmed): start when there is evidence of chronic transfusional iron overload, at least 100 mL/kg of packed red blood cells (about 20 units for 40 kg) and a serum ferritin consistently above 1,000 µg/L; doses of the tablets for oral suspension to the nearest whole tablet (§2.1); contraindicated at eGFR < 40 mL/min/1.73 m² (boxed warning); serum creatinine in duplicate before starting, at least monthly, weekly in the first month with renal risk (boxed warning, §2.1); transaminases (AST, ALT) and bilirubin before starting, every 2 weeks during the first month, then at least monthly (§5.2); dose modification or interruption to be considered for severe or persistent elevations, the label giving no multiple of the upper limit of normal (a 5 × ULN cut-off is a study protocol’s); avoid in severe (Child-Pugh C) hepatic impairment, reduce the starting dose in moderate (Child-Pugh B). As summarised secondarily, not checked against the current text: the starting dose reduced by half at eGFR 40–60 mL/min/1.73 m² and in Child-Pugh B; a rise in serum creatinine of more than 33 % above the pre-treatment average on two consecutive measurements leading to a dose reduction; tablets (film-coated) dosed at 0.7 × the dose of the tablets for oral suspension (14 vs 20 mg/kg/day), ranges 7–28 and 10–40 mg/kg/day. From memory: auditory and ophthalmic testing before starting and yearly.',
+  },
+  {
+    id: 'deferasirox-smpc-eu',
+    authors: 'Marketing authorisation holder',
+    title: 'Deferasirox summary of product characteristics (EU and UK)',
+    publication: 'EU SmPC as reproduced by drug-information pages, and the UK SmPC (2023) (revision dates of the EU text not shown there)',
+    year: null,
+    locator: '§4.1 indications; §4.3 contraindications; §4.5 interaction with other medicinal products',
+    status: 'secondary',
+    note: 'One record for the EU text (the creatinine-clearance and interaction entries that cited it separately are merged here). §4.1 (UK SmPC 2023, read): start at about 7 mL/kg/month of packed red cells. §4.3 from memory: contraindicated at an estimated creatinine clearance below 60 mL/min (verify against the current EU text before relying on it). §4.5, read in reproductions: potent UGT inducers (rifampicin, phenytoin, phenobarbital, ritonavir, carbamazepine) decrease deferasirox exposure (ferritin to be followed); cholestyramine (a bile-acid sequestrant) reduces it; substances metabolised by CYP3A4 (ciclosporin, simvastatin, hormonal contraceptives, bepridil, ergotamine) may lose effect; repaglinide (CYP2C8) exposure rises about 2.3-fold, the combination is to be avoided, other CYP2C8 substrates such as paclitaxel are not excluded; theophylline and narrow-range CYP1A2 substrates (clozapine, tizanidine) rise; aluminium-containing antacids are not to be taken with it; NSAIDs, corticosteroids, oral bisphosphonates and anticoagulants raise the risk of gastrointestinal ulceration or bleeding. Busulfan (raised exposure) is from memory of the US label §7.',
   },
 
 
-  {
-    id: 'deferasirox-smpc-interactions',
-    authors: 'Marketing authorisation holder',
-    title: 'Deferasirox summary of product characteristics (EU): interactions',
-    publication: 'EU SmPC, as reproduced by drug-information pages (revision date not shown there)',
-    year: null,
-    locator: '§4.5 interaction with other medicinal products',
-    status: 'secondary',
-    note: 'Read in reproductions of §4.5: potent UGT inducers (rifampicin, phenytoin, phenobarbital, ritonavir, carbamazepine) decrease deferasirox exposure (ferritin to be followed); cholestyramine (a bile-acid sequestrant) reduces it; substances metabolised by CYP3A4 (ciclosporin, simvastatin, hormonal contraceptives, bepridil, ergotamine) may lose effect; repaglinide (CYP2C8) exposure rises about 2.3-fold, the combination is to be avoided, other CYP2C8 substrates such as paclitaxel are not excluded; theophylline and narrow-range CYP1A2 substrates (clozapine, tizanidine) rise; aluminium-containing antacids are not to be taken with it; NSAIDs, corticosteroids, oral bisphosphonates and anticoagulants raise the risk of gastrointestinal ulceration or bleeding. Busulfan (raised exposure) is from memory of the US label §7.',
-  },
-  {
-    id: 'deferiprone-label-interactions',
-    authors: 'Marketing authorisation holder',
-    title: 'Deferiprone prescribing information: interactions',
-    publication: 'US label (2025) §7 and EU SmPC §4.5, as summarised by drug-information pages (revision dates not shown there)',
-    year: null,
-    locator: 'US §7; EU §4.5',
-    status: 'secondary',
-    note: 'Avoid other drugs associated with neutropenia or agranulocytosis; deferiprone is conjugated by UGT1A6, so UGT1A6 inhibitors may raise its exposure; polyvalent cations (aluminium-based antacids, zinc, iron and other mineral supplements) bind it, and the label asks for an interval between them (at least 4 hours in the US label: from memory).',
-  },
   {
     id: 'deferoxamine-label-interactions',
     authors: 'Marketing authorisation holder',

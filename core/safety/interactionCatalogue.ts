@@ -23,7 +23,7 @@ export interface LabelInteraction {
   readonly section: string;
 }
 
-// Deferasirox: EU SmPC §4.5 as reproduced (deferasirox-smpc-interactions, secondary); busulfan from memory of the US label §7.
+// Deferasirox: EU SmPC §4.5 as reproduced (deferasirox-smpc-eu, secondary); busulfan from memory of the US label §7.
 const deferasirox: readonly LabelInteraction[] = [
   {
     id: 'deferasirox-gi-bleeding',
@@ -36,7 +36,7 @@ const deferasirox: readonly LabelInteraction[] = [
       'warfarin', 'acenocoumarol', 'phenprocoumon', 'apixaban', 'rivaroxaban', 'edoxaban', 'dabigatran', 'heparin', 'enoxaparin', 'dalteparin', 'tinzaparin',
     ],
     effect: 'the label describes a raised risk of gastrointestinal ulceration or bleeding when deferasirox is taken with these, and asks for caution',
-    sourceIds: ['deferasirox-smpc-interactions'],
+    sourceIds: ['deferasirox-smpc-eu'],
     section: 'EU SmPC §4.5',
   },
   {
@@ -45,7 +45,7 @@ const deferasirox: readonly LabelInteraction[] = [
     labelled: 'substances metabolised by CYP3A4, notably those with a narrow therapeutic range',
     members: ['ciclosporin', 'cyclosporine', 'simvastatin', 'ethinylestradiol', 'levonorgestrel', 'norethisterone', 'desogestrel', 'bepridil', 'ergotamine', 'midazolam', 'tacrolimus', 'sirolimus'],
     effect: 'deferasirox lowers the exposure to CYP3A4 substrates (midazolam exposure fell in a study), so their effect may be reduced; the label asks for caution',
-    sourceIds: ['deferasirox-smpc-interactions'],
+    sourceIds: ['deferasirox-smpc-eu'],
     section: 'EU SmPC §4.5',
   },
   {
@@ -54,7 +54,7 @@ const deferasirox: readonly LabelInteraction[] = [
     labelled: 'CYP2C8 substrates (repaglinide; paclitaxel not excluded)',
     members: ['repaglinide', 'paclitaxel'],
     effect: 'deferasirox raised repaglinide exposure about 2.3-fold; the label advises avoiding the combination, or close blood glucose monitoring if it is needed, and does not exclude other CYP2C8 substrates',
-    sourceIds: ['deferasirox-smpc-interactions'],
+    sourceIds: ['deferasirox-smpc-eu'],
     section: 'EU SmPC §4.5',
   },
   {
@@ -63,7 +63,7 @@ const deferasirox: readonly LabelInteraction[] = [
     labelled: 'CYP1A2 substrates with a narrow therapeutic range (theophylline, clozapine, tizanidine)',
     members: ['theophylline', 'aminophylline', 'clozapine', 'tizanidine'],
     effect: 'deferasirox raised theophylline exposure by 84 %; the label does not recommend the combination and names the same concern for other narrow-range CYP1A2 substrates',
-    sourceIds: ['deferasirox-smpc-interactions'],
+    sourceIds: ['deferasirox-smpc-eu'],
     section: 'EU SmPC §4.5',
   },
   {
@@ -72,7 +72,7 @@ const deferasirox: readonly LabelInteraction[] = [
     labelled: 'strong UGT inducers',
     members: ['rifampicin', 'rifampin', 'phenytoin', 'phenobarbital', 'ritonavir', 'carbamazepine'],
     effect: 'strong UGT inducers lower deferasirox exposure (rifampicin by 44 %), so its effect may be reduced; the label asks for ferritin to be followed during and after the combination',
-    sourceIds: ['deferasirox-smpc-interactions'],
+    sourceIds: ['deferasirox-smpc-eu'],
     section: 'EU SmPC §4.5',
   },
   {
@@ -81,7 +81,7 @@ const deferasirox: readonly LabelInteraction[] = [
     labelled: 'bile-acid sequestrants',
     members: ['colestyramine', 'cholestyramine', 'colesevelam', 'colestipol'],
     effect: 'cholestyramine lowered deferasirox exposure by about 45 %, so its effect may be reduced',
-    sourceIds: ['deferasirox-smpc-interactions'],
+    sourceIds: ['deferasirox-smpc-eu'],
     section: 'EU SmPC §4.5',
   },
   {
@@ -90,7 +90,7 @@ const deferasirox: readonly LabelInteraction[] = [
     labelled: 'aluminium-containing antacids',
     members: ['aluminium hydroxide', 'aluminum hydroxide', 'algeldrate', 'magaldrate', 'sucralfate'],
     effect: 'the label advises against taking deferasirox with aluminium-containing antacids, as it also binds aluminium',
-    sourceIds: ['deferasirox-smpc-interactions'],
+    sourceIds: ['deferasirox-smpc-eu'],
     section: 'EU SmPC §4.5',
   },
   {
@@ -99,12 +99,12 @@ const deferasirox: readonly LabelInteraction[] = [
     labelled: 'busulfan',
     members: ['busulfan'],
     effect: 'busulfan exposure may rise with deferasirox (from memory of the US label); busulfan levels are followed where it is used',
-    sourceIds: ['deferasirox-smpc-interactions'],
+    sourceIds: ['deferasirox-smpc-eu'],
     section: 'US label §7 (from memory)',
   },
 ];
 
-// Deferiprone: US label (2025) §7 and EU SmPC §4.5, as summarised (deferiprone-label-interactions, secondary).
+// Deferiprone: US label (2025) §7 and EU SmPC §4.5, as summarised (deferiprone-label-us-2025 §7, as summarised: secondary).
 const deferiprone: readonly LabelInteraction[] = [
   {
     id: 'deferiprone-neutropenia-drugs',
@@ -114,7 +114,7 @@ const deferiprone: readonly LabelInteraction[] = [
     // agranulocytosis (our choice, from memory of drug references); a drug missing here is not cleared.
     members: ['clozapine', 'carbamazepine', 'metamizole', 'dipyrone', 'methimazole', 'thiamazole', 'carbimazole', 'propylthiouracil', 'sulfasalazine', 'azathioprine', 'mercaptopurine', 'methotrexate', 'hydroxycarbamide', 'hydroxyurea', 'valganciclovir', 'ganciclovir', 'co-trimoxazole', 'dapsone'],
     effect: 'the label advises avoiding other drugs associated with neutropenia or agranulocytosis, or monitoring the neutrophil count more closely when one is needed',
-    sourceIds: ['deferiprone-label-interactions'],
+    sourceIds: ['deferiprone-label-us-2025'],
     section: 'US §7; EU §4.5',
   },
   {
@@ -124,7 +124,7 @@ const deferiprone: readonly LabelInteraction[] = [
     // The US label's examples, from memory: diclofenac, probenecid, silymarin (milk thistle).
     members: ['diclofenac', 'probenecid', 'silymarin'],
     effect: 'deferiprone is cleared by UGT1A6 conjugation; the label advises avoiding UGT1A6 inhibitors, which may raise its exposure',
-    sourceIds: ['deferiprone-label-interactions'],
+    sourceIds: ['deferiprone-label-us-2025'],
     section: 'US §7',
   },
   {
@@ -133,7 +133,7 @@ const deferiprone: readonly LabelInteraction[] = [
     labelled: 'polyvalent cations (aluminium-containing antacids, zinc, iron and other mineral supplements)',
     members: ['aluminium hydroxide', 'aluminum hydroxide', 'algeldrate', 'magaldrate', 'sucralfate', 'zinc', 'zinc sulfate', 'zinc acetate', 'zinc gluconate', 'ferrous sulfate', 'ferrous fumarate', 'ferrous gluconate', 'calcium carbonate', 'magnesium hydroxide'],
     effect: 'deferiprone binds polyvalent cations; the label asks for an interval between them (at least 4 hours in the US label, from memory)',
-    sourceIds: ['deferiprone-label-interactions'],
+    sourceIds: ['deferiprone-label-us-2025'],
     section: 'US §7; EU §4.5',
   },
 ];

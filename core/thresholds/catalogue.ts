@@ -44,13 +44,13 @@ export interface AppliedThreshold {
 // Fixed thresholds, each beside its source (references.md §2–§4).
 const fixedThresholds = [
   // US deferasirox label: contraindicated below eGFR 40 mL/min/1.73 m² (references.md §4, secondary).
-  { id: 'deferasirox-egfr-lower', label: 'deferasirox eGFR threshold (US label)', value: 40, unit: 'mL/min/{1.73_m2}', sourceIds: ['deferasirox-label-renal'], overrideMin: 10, overrideMax: 90 },
+  { id: 'deferasirox-egfr-lower', label: 'deferasirox eGFR threshold (US label)', value: 40, unit: 'mL/min/{1.73_m2}', sourceIds: ['deferasirox-label-us'], overrideMin: 10, overrideMax: 90 },
   // US deferasirox label: starting dose halved at eGFR 40–60 (references.md §4, secondary).
-  { id: 'deferasirox-egfr-reduced-band-upper', label: 'upper end of the deferasirox reduced-start eGFR band (US label)', value: 60, unit: 'mL/min/{1.73_m2}', sourceIds: ['deferasirox-label-renal'], overrideMin: 20, overrideMax: 120 },
+  { id: 'deferasirox-egfr-reduced-band-upper', label: 'upper end of the deferasirox reduced-start eGFR band (US label)', value: 60, unit: 'mL/min/{1.73_m2}', sourceIds: ['deferasirox-label-us'], overrideMin: 20, overrideMax: 120 },
   // EU deferasirox text: CrCl < 60 mL/min (references.md §4, from memory).
-  { id: 'deferasirox-crcl-lower', label: 'deferasirox creatinine clearance threshold (EU, from memory)', value: 60, unit: 'mL/min', sourceIds: ['deferasirox-eu-crcl-memory'], overrideMin: 10, overrideMax: 120 },
+  { id: 'deferasirox-crcl-lower', label: 'deferasirox creatinine clearance threshold (EU, from memory)', value: 60, unit: 'mL/min', sourceIds: ['deferasirox-smpc-eu'], overrideMin: 10, overrideMax: 120 },
   // US deferasirox label: creatinine more than 33 % above baseline on two consecutive results (references.md §4, secondary).
-  { id: 'deferasirox-creatinine-rise', label: 'creatinine rise over baseline on deferasirox', value: 33, unit: '%', sourceIds: ['deferasirox-label-renal', 'deferasirox-creatinine-baseline'], overrideMin: 5, overrideMax: 200 },
+  { id: 'deferasirox-creatinine-rise', label: 'creatinine rise over baseline on deferasirox', value: 33, unit: '%', sourceIds: ['deferasirox-label-us', 'deferasirox-creatinine-baseline'], overrideMin: 5, overrideMax: 200 },
   // Transaminase upper limit of normal when the result carries no laboratory range: an assumption (laboratories differ), from memory.
   { id: 'alt-upper-limit-of-normal', label: 'transaminase upper limit of normal when the laboratory gives none (assumed)', value: 40, unit: 'U/L', sourceIds: ['alt-uln-memory'], overrideMin: 10, overrideMax: 100 },
   // 5 × ULN is a study protocol's cut-off, not a label value (references.md §9): a local-protocol option only.
@@ -67,7 +67,7 @@ const fixedThresholds = [
   // overridden: by default the 2025 US label's schedule by time on the drug applies (core/monitoring, references.md §9).
   { id: 'deferiprone-anc-interval', label: 'local-protocol fixed interval of ANC checks on deferiprone (weekly throughout in the older texts)', value: 7, unit: 'd', sourceIds: ['deferiprone-label-us-2025'], overrideMin: 1, overrideMax: 92 },
   // Deferasirox: creatinine (and ALT) monthly (references.md §4); a calendar month is at most 31 days.
-  { id: 'deferasirox-monthly-test-interval', label: 'days since the last creatinine or ALT on deferasirox', value: 31, unit: 'd', sourceIds: ['deferasirox-label-renal'], overrideMin: 7, overrideMax: 184 },
+  { id: 'deferasirox-monthly-test-interval', label: 'days since the last creatinine or ALT on deferasirox', value: 31, unit: 'd', sourceIds: ['deferasirox-label-us'], overrideMin: 7, overrideMax: 184 },
   // Liver iron about yearly on chelation (from memory).
   { id: 'lic-interval', label: 'months since the last liver iron result', value: 12, unit: 'mo', sourceIds: ['mri-monitoring-interval-memory'], overrideMin: 3, overrideMax: 60 },
   // Cardiac T2* every 12–24 months in thalassaemia major (from memory).

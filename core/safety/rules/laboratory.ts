@@ -177,7 +177,7 @@ export const deferasiroxMonthlyTestsRule = defineRule({
   title: 'Deferasirox: creatinine and liver tests due (monthly; more often in the first month and with renal risk)',
   severity: 'review',
   drugs: ['deferasirox'],
-  sourceIds: ['deferasirox-label-renal', 'deferasirox-label-us'],
+  sourceIds: ['deferasirox-label-us'],
   uncertain: false,
   evaluate: (context) => {
     if (!context.activeDrugs.has('deferasirox')) return [];

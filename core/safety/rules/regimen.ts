@@ -31,7 +31,7 @@ export const doseRangeRule = defineRule({
   title: 'Dose per kg per day outside the published range for the drug and formulation; far above the labelled maximum urgent',
   severity: 'urgent',
   drugs: ['deferoxamine', 'deferiprone', 'deferasirox'],
-  sourceIds: ['deferoxamine-label', 'deferiprone-label', 'deferasirox-label'],
+  sourceIds: ['deferoxamine-label', 'deferiprone-label', 'deferasirox-label-us'],
   uncertain: false,
   evaluate: (context) =>
     context.active.flatMap((regimen): FindingDraft[] => {

@@ -73,7 +73,7 @@ export const deferasiroxEgfrRule = defineRule({
   title: 'Deferasirox and kidney function (eGFR)',
   severity: 'urgent',
   drugs: ['deferasirox'],
-  sourceIds: ['deferasirox-label-renal', 'inker-2021', 'schwartz-2009'],
+  sourceIds: ['deferasirox-label-us', 'inker-2021', 'schwartz-2009'],
   uncertain: false,
   evaluate: (context) => {
     if (!context.activeDrugs.has('deferasirox')) return [];
@@ -131,7 +131,7 @@ export const deferasiroxCrclRule = defineRule({
   title: 'Deferasirox and creatinine clearance (Cockcroft–Gault; EU threshold from memory)',
   severity: 'review',
   drugs: ['deferasirox'],
-  sourceIds: ['deferasirox-eu-crcl-memory', 'cockcroft-gault-1976'],
+  sourceIds: ['deferasirox-smpc-eu', 'cockcroft-gault-1976'],
   uncertain: true,
   evaluate: (context) => {
     if (!context.activeDrugs.has('deferasirox')) return [];
@@ -178,7 +178,7 @@ export const deferasiroxCreatinineRiseRule = defineRule({
   title: 'Deferasirox and a creatinine rise over baseline',
   severity: 'review',
   drugs: ['deferasirox'],
-  sourceIds: ['deferasirox-label-renal', 'deferasirox-creatinine-baseline'],
+  sourceIds: ['deferasirox-label-us', 'deferasirox-creatinine-baseline'],
   uncertain: false,
   evaluate: (context) => {
     const runStart = continuousRunStart(context.caseFile.chelationPeriods, 'deferasirox', context.asOf);

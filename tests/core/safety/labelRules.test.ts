@@ -104,7 +104,7 @@ describe('label-listed-interaction (deferasirox EU SmPC §4.5; deferiprone US §
     expect(found.map((it) => it.triggers[0]!.value)).toEqual(['ibuprofen', 'repaglinide', 'Rifampicin', 'Cholestyramine']);
     expect(found.every((it) => it.severity === 'review' && it.text.includes('matching is by name and may miss a drug'))).toBe(true);
     expect(found[1]!.text).toContain('about 2.3-fold');
-    expect(found[0]!.sourceIds).toEqual(expect.arrayContaining(['interaction-matching-by-name', 'deferasirox-smpc-interactions']));
+    expect(found[0]!.sourceIds).toEqual(expect.arrayContaining(['interaction-matching-by-name', 'deferasirox-smpc-eu']));
   });
 
   it('deferiprone: clozapine (neutropenia) and zinc sulfate (polyvalent cation, spacing); deferoxamine: prochlorperazine and gallium-67', () => {

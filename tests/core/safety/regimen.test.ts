@@ -11,7 +11,7 @@ describe('dose-outside-published-range (chelator catalogue: labels; references.m
     expect(ofRule(findingsFor(withPeriods([period('deferasirox', 28)])), 'dose-outside-published-range')).toHaveLength(0);
     const [finding] = ofRule(findingsFor(withPeriods([period('deferasirox', 29)])), 'dose-outside-published-range');
     expect(finding!.text).toContain('above the published range 7–28 mg/kg/day');
-    expect(finding!.sourceIds).toContain('deferasirox-label');
+    expect(finding!.sourceIds).toContain('deferasirox-label-us');
   });
 
   it('deferasirox dispersible 9 mg/kg/day is below 10–40; deferiprone 101 mg/kg/day is above "up to 100"', () => {

@@ -33,7 +33,7 @@ describe('deferasirox-egfr (US deferasirox label: eGFR < 40 contraindicated, 40â
     const [finding] = ofRule(findingsFor(childWithCreatinine(41.3 / 39.9)), 'deferasirox-egfr');
     expect(finding!.severity).toBe('urgent');
     expect(finding!.text).toMatch(/^Deferasirox with eGFR 39\.9 mL\/min\/1\.73 mÂ² \(bedside Schwartz, \d{4}-\d{2}-\d{2}\): below the labelled threshold of 40; for prescriber review\.$/);
-    expect(finding!.sourceIds).toEqual(expect.arrayContaining(['deferasirox-label-renal', 'schwartz-2009']));
+    expect(finding!.sourceIds).toEqual(expect.arrayContaining(['deferasirox-label-us', 'schwartz-2009']));
   });
 
   it('eGFR 60 is outside the band (no finding); 59.9 is inside it', () => {
