@@ -99,6 +99,47 @@ export function isTemporaryFileName(name: string): boolean {
   return /^\..+\.[0-9a-f]{12}\.tmp$/.test(name);
 }
 
+/**
+ * How old a temporary file of ours must be before a sweep removes it: a save
+ * holds its temporary file for milliseconds (seconds on a slow network share),
+ * so one older than ten minutes was left by a save that was cut off (a crash, a
+ * power cut). A modelling choice of ours, with a wide margin.
+ */
+export const temporaryFileMaxAgeMs = 10 * 60 * 1000;
+
+/**
+ * Remove the temporary files this module left in a folder (by its naming
+ * pattern only, see isTemporaryFileName) that are older than
+ * temporaryFileMaxAgeMs. Anything else is never touched; a file that cannot be
+ * removed (a read-only share) is left, silently, for a later sweep.
+ *
+ * @param folder - the folder to sweep (not its subfolders)
+ * @param nowMs - the host's clock, milliseconds since the epoch
+ * @param fs - the file system (tests inject faults)
+ * @returns the names removed
+ */
+export async function sweepTemporaryFiles(folder: string, nowMs: number, fs: AtomicWriteFs = nodeAtomicWriteFs): Promise<readonly string[]> {
+  let names: string[];
+  try {
+    names = await nodeFs.readdir(folder);
+  } catch {
+    return [];
+  }
+  const removed: string[] = [];
+  for (const name of names.filter(isTemporaryFileName)) {
+    const path = join(folder, name);
+    try {
+      const stat = await fs.stat(path);
+      if (nowMs - stat.mtimeMs <= temporaryFileMaxAgeMs) continue;
+      await fs.unlink(path);
+      removed.push(name);
+    } catch {
+      // Gone already (another window swept it) or not removable here: left as it is.
+    }
+  }
+  return removed;
+}
+
 async function exists(fs: AtomicWriteFs, path: string): Promise<boolean> {
   try {
     await fs.stat(path);

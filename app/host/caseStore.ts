@@ -3,7 +3,7 @@ import { join } from 'node:path';
 import { caseFileFormat, currentCaseFileVersion, type Case } from '../../core/model/caseFile';
 import { parseCase } from '../../core/model/parseCase';
 import { fail, issue, ok, type Issue, type Result } from '../../core/result';
-import { describeFsError, isTemporaryFileName, nodeAtomicWriteFs, syncFolder, writeFileAtomic, type AtomicWriteFs } from './atomicWrite';
+import { describeFsError, isTemporaryFileName, nodeAtomicWriteFs, sweepTemporaryFiles, syncFolder, writeFileAtomic, type AtomicWriteFs } from './atomicWrite';
 import { caseJsonFromText } from './caseFiles';
 import { decodeTextBytes } from './textFiles';
 import { appendJournal, contentHash, journalEntries, journalNameFor, readJournal, type JournalEntry, type JournalLine } from './caseJournal';
@@ -95,8 +95,14 @@ export interface CaseHistory {
 export interface CaseStore {
   /** The workspace folder. */
   readonly folder: string;
-  /** One summary per `.json` file in the folder (not `archive/`), sorted by file name. */
+  /**
+   * One summary per `.json` file in the folder (not `archive/`), sorted by file
+   * name. Listing (like openAll) first sweeps the store's own temporary files
+   * older than ten minutes, left by a save that was cut off (atomicWrite.ts).
+   */
   list(): Promise<Result<readonly CaseSummary[]>>;
+  /** The cases moved to `archive/`, opened as openAll opens them (file names are those inside `archive/`); none when there is no archive. */
+  openArchived(): Promise<Result<readonly { readonly fileName: string; readonly opened: Result<OpenedCase> }[]>>;
   /** Read, migrate in memory and validate one case. */
   open(fileName: string): Promise<Result<OpenedCase>>;
   /** Every case of the folder opened once (the files list() summarises, in the same order), for a review of the whole workspace. */
@@ -346,6 +352,7 @@ export function openCaseStore(folder: string, options: CaseStoreOptions = {}): C
   async function openAll(): Promise<Result<readonly { readonly fileName: string; readonly opened: Result<OpenedCase> }[]>> {
     let names: string[];
     try {
+      await sweepTemporaryFiles(folder, now().getTime(), fs);
       names = await nodeFs.readdir(folder);
     } catch (error) {
       return fail(issue('invalid_file', [], `Cannot list the workspace folder ${folder}: ${describeFsError(error)}.`));
@@ -385,6 +392,12 @@ export function openCaseStore(folder: string, options: CaseStoreOptions = {}): C
     },
 
     openAll,
+
+    async openArchived() {
+      const archiveFolder = join(folder, 'archive');
+      if (!(await exists(archiveFolder))) return ok([]);
+      return openCaseStore(archiveFolder, options).openAll();
+    },
 
     open,
 

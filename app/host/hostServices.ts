@@ -116,7 +116,13 @@ export function createHostServices(environment: HostEnvironment): HostHandlers {
         const every = await caseStore.openAll();
         if (!every.ok) return every;
         const names = every.value.filter(({ fileName }) => insideFolder(caseStore.folder, fileName).ok);
-        return ok(names.map(({ fileName, opened }) => summaryOf(fileName, opened)));
+        // Archived cases follow, marked archived (the Cases screen keeps them apart); their caseId is the name inside archive/.
+        const archived = await caseStore.openArchived();
+        if (!archived.ok) return archived;
+        return ok([
+          ...names.map(({ fileName, opened }) => summaryOf(fileName, opened)),
+          ...archived.value.filter(({ fileName }) => insideFolder(join(caseStore.folder, 'archive'), fileName).ok).map(({ fileName, opened }) => ({ ...summaryOf(fileName, opened), archived: true })),
+        ]);
       }),
     openCase: ({ caseId }) =>
       store(async (caseStore) => {

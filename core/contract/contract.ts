@@ -128,7 +128,11 @@ export const hostContract = {
     emptyRequest,
     workspaceSchema,
   ),
-  listCases: call('A summary line per case in the workspace, archived ones included.', emptyRequest, z.array(caseSummarySchema)),
+  listCases: call(
+    'A summary line per case in the workspace, then one per case in its archive folder, marked archived (its caseId is its name there).',
+    emptyRequest,
+    z.array(caseSummarySchema),
+  ),
   openCase: call('Read one case with its warnings.', z.strictObject({ caseId: caseIdSchema }), openedCaseSchema),
   createCase: call(
     'Create a new case file from a document (refused if the name is taken).',

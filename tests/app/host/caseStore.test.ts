@@ -2,6 +2,7 @@ import { appendFileSync, existsSync, mkdtempSync, readdirSync, readFileSync, rmS
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
+import { nodeAtomicWriteFs } from '../../../app/host/atomicWrite';
 import { contentHash } from '../../../app/host/caseJournal';
 import { openCaseStore, serializeCase, type CaseStore, type OpenedCase } from '../../../app/host/caseStore';
 import { currentCaseFileVersion, type Case } from '../../../core/model/caseFile';
@@ -282,5 +283,50 @@ describe('case store: list, rename, archive', () => {
     expect(readdirSync(folder)).toEqual(['archive']);
     const archived: Case = JSON.parse(readFileSync(join(folder, 'archive', 'a.json'), 'utf8'));
     expect(archived.patient.label).toBe('TH-0417');
+    // The archive is listed apart (openArchived), never among the workspace's cases.
+    expect(value(await store.list()).map((it) => it.fileName)).toEqual([]);
+    expect(value(await store.openArchived()).map((it) => [it.fileName, it.opened.ok])).toEqual([['a-2.json', true], ['a.json', true]]);
+  });
+
+  it('a workspace without an archive has no archived cases', async () => {
+    expect(value(await store.openArchived())).toEqual([]);
+  });
+});
+
+describe('case store: temporary files left by an interrupted save', () => {
+  // A kill during a save leaves `.<name>.<12 hex>.tmp` (atomicWrite.ts; the kill test counts them).
+  // Listing sweeps those older than ten minutes, by the clock the store is given, and nothing else.
+  const tenMinutesMs = 10 * 60 * 1000;
+  const at = (ms: number) => new Date(clock().getTime() - ms);
+  it('removes only its own temporary files older than ten minutes, when the workspace is listed', async () => {
+    value(await store.create('a.json', demo(), 'created'));
+    const files = {
+      old: '.a.json.0123456789ab.tmp',
+      recent: '.a.json.ba9876543210.tmp',
+      notOurs: '.a.json.tmp',
+      notOursEither: 'a.json.0123456789ab.tmp',
+      upperHex: '.a.json.0123456789AB.tmp',
+    };
+    for (const name of Object.values(files)) writeFileSync(join(folder, name), '{"partial":');
+    const ages: Record<keyof typeof files, number> = { old: tenMinutesMs + 1000, recent: tenMinutesMs - 1000, notOurs: 3 * tenMinutesMs, notOursEither: 3 * tenMinutesMs, upperHex: 3 * tenMinutesMs };
+    for (const [key, name] of Object.entries(files)) utimesSync(join(folder, name), at(ages[key as keyof typeof files]), at(ages[key as keyof typeof files]));
+    const listed = value(await store.list());
+    expect(listed.map((it) => it.fileName)).toEqual(['a.json']);
+    const left = readdirSync(folder).sort();
+    expect(left).not.toContain(files.old);
+    expect(left).toEqual([files.notOurs, files.recent, files.upperHex, 'a.journal.jsonl', 'a.json', files.notOursEither].sort());
+    // The case itself is untouched.
+    expect(value(await store.open('a.json')).caseFile.patient.label).toBe('TH-0417');
+  });
+
+  it('leaves a temporary file it cannot remove (a read-only share) and still lists the cases', async () => {
+    value(await store.create('a.json', demo(), 'created'));
+    const name = '.a.json.0123456789ab.tmp';
+    writeFileSync(join(folder, name), '');
+    utimesSync(join(folder, name), at(3 * tenMinutesMs), at(3 * tenMinutesMs));
+    const refusingUnlink = { ...nodeAtomicWriteFs, unlink: async () => Promise.reject(Object.assign(new Error('simulated EROFS'), { code: 'EROFS' })) };
+    const readOnly = openCaseStore(folder, { now: clock, fs: refusingUnlink });
+    expect(value(await readOnly.list()).map((it) => it.fileName)).toEqual(['a.json']);
+    expect(readdirSync(folder)).toContain(name);
   });
 });

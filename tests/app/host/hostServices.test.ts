@@ -106,6 +106,21 @@ describe('host services over a workspace of the demo cases', () => {
     expect(existsSync(join(environment.folder, 'archive', 'renamed.json'))).toBe(true);
   });
 
+  it('lists archived cases after the others, marked archived, as the contract says (the Cases screen keeps them apart)', async () => {
+    const environment = demoEnvironment();
+    const dispatch = createHostDispatch(createHostServices(environment));
+    const before = await dispatch('listCases', {});
+    if (!before.ok) throw new Error('list failed');
+    const names = (before.value as { caseId: string }[]).map((it) => it.caseId);
+    expect((await dispatch('archiveCase', { caseId: names[0]! })).ok).toBe(true);
+    const after = await dispatch('listCases', {});
+    if (!after.ok) throw new Error('list failed');
+    const listed = after.value as { caseId: string; archived: boolean; patientLabel: string | null }[];
+    // The same cases, none lost: the archived one last, marked, with its label read from archive/.
+    expect(listed.map((it) => [it.caseId, it.archived])).toEqual([...names.slice(1).map((it) => [it, false]), [names[0], true]]);
+    expect(listed.at(-1)!.patientLabel).toBe((before.value as { patientLabel: string | null }[])[0]!.patientLabel);
+  });
+
   it('exports the review sheet as a PDF that poppler reads, with the caution on every page, never over an earlier one', async () => {
     const environment = demoEnvironment();
     const dispatch = createHostDispatch(createHostServices(environment));
