@@ -1,6 +1,7 @@
 import { bindingUsage } from './bindingCommand';
 import { calcUsage } from './calcCommand';
 import { calendarUsage } from './calendarCommand';
+import { archiveUsage, recoverUsage, renameUsage } from './caseFileCommands';
 import { doseUsage } from './doseCommand';
 import { explainUsage } from './explainCommand';
 import { decisionSupportCaution } from './format';
@@ -14,6 +15,9 @@ const detailedUsages: Readonly<Record<string, string>> = {
   dose: doseUsage,
   explain: explainUsage,
   preview: previewUsage,
+  rename: renameUsage,
+  archive: archiveUsage,
+  recover: recoverUsage,
 };
 
 /**

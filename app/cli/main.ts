@@ -9,6 +9,7 @@ import type { CaseIo } from './caseReview';
 import { explainCommand } from './explainCommand';
 import { doseCommand } from './doseCommand';
 import { addCommand, newCommand, type StoreIo } from './editCommands';
+import { archiveCommand, recoverCommand, renameCommand } from './caseFileCommands';
 import { panelCommand } from './panelCommand';
 import { importCommand } from './importCommand';
 import { findingsCommand } from './findingsCommand';
@@ -51,6 +52,10 @@ Commands:
                                             transfusions and results from CSV or a FHIR R4 Bundle (import --help)
   panel <folder> [--as-of YYYY-MM-DD] [--json]
                                             every case in a folder reviewed and ranked by urgency
+  rename <case.json> <new-name.json>        rename a case file with its journal (never over another file)
+  archive <case.json>                       move a case and its journal to archive/ (nothing is deleted)
+  recover <case.json> [--dry-run] [--as <new-name.json>]
+                                            bring back the journal's latest state after a save was cut off
 
 ${calcUsage}
 
@@ -77,6 +82,9 @@ const commands: Readonly<Record<string, Command>> = {
   add: addCommand,
   panel: panelCommand,
   import: importCommand,
+  rename: renameCommand,
+  archive: archiveCommand,
+  recover: recoverCommand,
 };
 
 /**
