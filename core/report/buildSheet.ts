@@ -2,6 +2,7 @@ import type { IsoDate } from '../dates/isoDate';
 import { addMonthsIso, monthKey } from '../dates/isoDate';
 import { defaultProductCatalogue, proposePracticalDose, type ProductCatalogue } from '../dosing';
 import type { Derivation } from '../formulas/derivation';
+import { doseGridProfile } from '../iron/doseGrid';
 import { licBand } from '../iron/licBand';
 import type { CaseResults } from '../ledger/computeCase';
 import type { Case, ChelationPeriod } from '../model/caseFile';
@@ -168,6 +169,11 @@ function summarySection(input: SheetInput): SheetSection {
   } else {
     facts.push({ label: 'Body iron and LIC', value: 'no liver iron result on record: no estimate and no projection' });
   }
+  const lastT2Star = caseFile.results.filter((it) => it.kind === 'cardiac-t2star' && it.date <= results.asOf).sort((a, b) => a.date.localeCompare(b.date)).at(-1);
+  facts.push({
+    label: 'Published usual-dose grid (Brittenham 2011, Table 2), as information',
+    value: doseGridProfile(intake.mgPerKgPerDay, body.lastMeasured?.licMgPerGDry ?? null, lastT2Star && 'measured' in lastT2Star ? lastT2Star.measured.value : null).statement,
+  });
   if (results.ferritin.latest) {
     const trend = results.ferritin.trend;
     facts.push({
