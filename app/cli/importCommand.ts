@@ -1,5 +1,5 @@
 import { basename, dirname } from 'node:path';
-import { formatIssues } from '../../core/result';
+import { formatIssues, type Issue } from '../../core/result';
 import { readCodeMap, type CodeMap } from '../host/imports/codeMap';
 import { csvKinds, type CsvKind } from '../host/imports/csvImport';
 import type { DateOrder } from '../host/imports/importDates';
@@ -28,15 +28,28 @@ LOINC has no code for (MRI liver iron, liver R2* or T2*, cardiac T2*); codes kno
 const known = ['--into', '--kind', '--map', '--date-order', '--code-map'];
 
 /** The flag that makes each choice of an import (the host's messages name the choice in words, the command line adds its flag). */
-const choiceFlags: Readonly<Record<ImportChoice, string>> = {
-  kind: `--kind ${csvKinds.join('|')}`,
-  columnMapping: '--map field=Header,...',
-  dateOrder: '--date-order day-first or --date-order month-first',
+const choiceFlags: Readonly<Record<ImportChoice, (field: string | undefined) => string>> = {
+  kind: () => `--kind ${csvKinds.join('|')}`,
+  columnMapping: (field) => `--map ${field ?? 'field'}=<header>`,
+  dateOrder: () => '--date-order day-first or --date-order month-first',
 };
 
 /** One line per choice asked for: how to make it on the command line. */
-function flagHints(choices: readonly (ImportChoice | undefined)[]): string[] {
-  return [...new Set(choices)].filter((it): it is ImportChoice => it !== undefined).map((it) => `On the command line: ${choiceFlags[it]}.`);
+function flagHints(asked: readonly { readonly choice: ImportChoice | undefined; readonly field?: string | undefined }[]): string[] {
+  const hints = asked.filter((it) => it.choice !== undefined).map((it) => `On the command line: ${choiceFlags[it.choice!](it.field)}.`);
+  return [...new Set(hints)];
+}
+
+/** An import's refusal: an issue that asks for a choice is shown with the flag that makes it instead of the choice's name in the host's terms. */
+function importIssues(issues: readonly Issue[]): string {
+  return issues
+    .map((found) => {
+      const choice = choiceOf(found);
+      if (choice === undefined) return formatIssues([found]);
+      const field = typeof found.path[1] === 'string' ? found.path[1] : undefined;
+      return [found.message, ...flagHints([{ choice, field }])].join('\n');
+    })
+    .join('\n');
 }
 
 /** `--map date=Given on,volume=Vol (mL)` → { date: 'Given on', volume: 'Vol (mL)' }. */
@@ -108,7 +121,7 @@ export async function importCommand(args: ParsedArgs, io: CliIo & StoreIo & Text
   });
   if (!previewed.ok) {
     if (!previewed.issues[0]?.message.startsWith(file)) io.err(`${file}: nothing was imported.`);
-    io.err([formatIssues(previewed.issues), ...flagHints(previewed.issues.map(choiceOf))].join('\n'));
+    io.err(importIssues(previewed.issues));
     return exitCodes.invalidInput;
   }
   const preview = previewed.value;
@@ -121,7 +134,7 @@ export async function importCommand(args: ParsedArgs, io: CliIo & StoreIo & Text
   if (rejected.length > 0) {
     lines.push(`Rejected: ${rejected.length} (not imported):`);
     for (const row of rejected) lines.push(`  ${row.where}: ${row.reason}`);
-    lines.push(...flagHints(rejected.map((row) => row.choice)));
+    lines.push(...flagHints(rejected.map((row) => ({ choice: row.choice }))));
   }
   if (preview.unknownCodes.length > 0) {
     lines.push(`Codes not known to the import (not imported): ${preview.unknownCodes.length}`);

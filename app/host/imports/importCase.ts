@@ -199,7 +199,7 @@ export function describeEntry(entry: ProposedEntry): string {
     height?: { value: number };
   };
   if (entry.list === 'transfusions') {
-    const hct = e['unitHaematocrit'] === null ? 'not given (product default)' : String(e['unitHaematocrit']);
+    const hct = e['unitHaematocrit'] === null ? 'not given, the product default applies' : String(e['unitHaematocrit']);
     if (e['kind'] === 'exchange') {
       return `${String(e['date'])} ${String(e['method'])} exchange ${e.volumeIn?.value} mL in (unit haematocrit ${hct}), ${e.volumeRemoved?.value} mL out, patient haematocrit ${String(e['patientHaematocrit'])}`;
     }

@@ -134,7 +134,7 @@ describe('import command with exchanges and venesections', () => {
     const wrongKind = await cli('import', plainPath, '--into', casePath, '--kind', 'exchanges', '--dry-run');
     expect(wrongKind.code).toBe(1);
     expect(wrongKind.err).toContain('has no column for method, volume in, units, patient haematocrit');
-    expect(wrongKind.err).toContain('On the command line: --map field=Header,...');
+    expect(wrongKind.err).toContain('On the command line: --map method=<header>.');
     const unknownKind = await cli('import', plainPath, '--into', casePath, '--kind', 'phlebotomy');
     expect(unknownKind.code).toBe(2);
     expect(unknownKind.err).toContain('--kind: "phlebotomy" is not one of: transfusions, exchanges, venesections, results.');

@@ -99,7 +99,7 @@ describe('importDryRun through the host contract', () => {
     expect(exchanges.ok, JSON.stringify(exchanges)).toBe(true);
     if (!exchanges.ok) return;
     const exchangePreview = exchanges.value as { counts: Record<string, number>; firstRows: string[] };
-    expect(exchangePreview.firstRows[0]).toBe('line 2: 2026-11-20 automated exchange 2100 mL in (unit haematocrit not given (product default)), 2300 mL out, patient haematocrit 0.27');
+    expect(exchangePreview.firstRows[0]).toBe('line 2: 2026-11-20 automated exchange 2100 mL in (unit haematocrit not given, the product default applies), 2300 mL out, patient haematocrit 0.27');
     expect(exchangePreview.counts['transfusions']).toBe(2);
     const venesections = await dispatch('importDryRun', { caseId, kind: 'csv-venesections', sourceName: 'v.csv', sourceText: 'date,volume removed,hct\n2026-11-20,450,0.41\n' });
     expect(venesections.ok && (venesections.value as { firstRows: string[] }).firstRows).toEqual(['line 2: 2026-11-20 venesection 450 mL, patient haematocrit 0.41']);
