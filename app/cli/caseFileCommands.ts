@@ -96,7 +96,7 @@ const historyShown = 5;
 
 /** What the file holds now, against the journal's latest state, in words. */
 function fileState(opened: Awaited<ReturnType<CaseStore['open']>>): { readonly words: string; readonly changedOutside: boolean; readonly current: boolean } {
-  if (!opened.ok) return { words: `the file does not open (${opened.issues.find((it) => it.severity === 'error')?.message ?? 'unreadable'})`, changedOutside: false, current: false };
+  if (!opened.ok) return { words: `the file does not open (${opened.issues.find((it) => it.severity === 'error')?.message.replace(/\.$/, '') ?? 'unreadable'})`, changedOutside: false, current: false };
   const recoverable: OpenedCase['recoverable'] = opened.value.recoverable;
   if (recoverable === null) return { words: 'the file holds that state already', changedOutside: false, current: true };
   if (recoverable.reason === 'interrupted-save') return { words: 'the file holds an earlier state: the save after it was cut off', changedOutside: false, current: false };
