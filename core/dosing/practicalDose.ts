@@ -138,14 +138,15 @@ function proposeTablets(product: TabletProduct, intendedMg: number, maxPieces: n
   }
   const tablets = [...tabletsByStrength.entries()].sort(([first], [second]) => second - first).map(([strengthMg, count]) => ({ strengthMg, tablets: count }));
   const halvable = product.strengths.filter((it) => it.halvable).map((it) => `${formatAmount(it.strengthMg)} mg`);
+  const pieces = product.unit === 'sachet' ? 'sachets' : 'tablets';
   return {
     proposedMg: found.totalHalfMgUnits / 2,
     form: { kind: 'tablets', tablets, pieceCount: found.pieceCount },
     combinationText: tabletsText(tablets),
     assumptions: [
       `Strengths available: ${product.strengths.map((it) => `${formatAmount(it.strengthMg)} mg`).join(', ')} (${product.name}).`,
-      halvable.length > 0 ? `Halves counted only for the tablets the catalogue marks as breakable: ${halvable.join(', ')}.` : 'Whole tablets only: no strength is marked as breakable.',
-      `The closest amount with at most ${maxPieces} tablets (a half counts as one) per administration; on a tie the lower amount, then the fewest tablets.`,
+      halvable.length > 0 ? `Halves counted only for the tablets the catalogue marks as breakable: ${halvable.join(', ')}.` : `Whole ${pieces} only: no strength is marked as breakable.`,
+      `The closest amount with at most ${maxPieces} ${pieces}${halvable.length > 0 ? ' (a half counts as one)' : ''} per administration; on a tie the lower amount, then the fewest ${pieces}.`,
     ],
   };
 }

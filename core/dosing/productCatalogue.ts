@@ -43,7 +43,13 @@ const shared = {
 };
 
 export const productSchema = z.discriminatedUnion('kind', [
-  z.strictObject({ ...shared, kind: z.literal('tablets'), strengths: z.array(tabletStrengthSchema).min(1).max(8) }),
+  z.strictObject({
+    ...shared,
+    kind: z.literal('tablets'),
+    /** What one piece is called: a tablet (default) or a single-dose sachet of oral granules, which is never divided. */
+    unit: z.enum(['tablet', 'sachet']).optional(),
+    strengths: z.array(tabletStrengthSchema).min(1).max(8),
+  }),
   z.strictObject({ ...shared, kind: z.literal('oral-solution'), concentrationMgPerMl: z.number().min(1).max(1000) }),
   z.strictObject({ ...shared, kind: z.literal('vials'), vialStrengthsMg: z.array(strengthMgSchema).min(1).max(8) }),
 ]);
@@ -105,6 +111,23 @@ export const defaultProductCatalogue: ProductCatalogue = [
     ],
     sourceIds: ['dosing-deferasirox-strengths-memory'],
     note: 'Strengths from memory of the labels; dispersed whole, so whole tablets only.',
+  },
+  {
+    id: 'deferasirox-granules',
+    drug: 'deferasirox',
+    kind: 'tablets',
+    unit: 'sachet',
+    name: 'deferasirox oral granules, single-dose sachets',
+    // 90, 180 and 360 mg sachets: references.md §9 (national drug code records, confirmed; 180 and 360 mg granule
+    // packets seen again in openFDA's NDC directory). The label's §3 and its revision date were not seen, so the
+    // strengths rest on the NDC records, not on the label text. A sachet is taken whole: no halves.
+    strengths: [
+      { strengthMg: 90, halvable: false },
+      { strengthMg: 180, halvable: false },
+      { strengthMg: 360, halvable: false },
+    ],
+    sourceIds: ['dosing-deferasirox-granules-ndc'],
+    note: 'Strengths from the US national drug code records (the label’s §3 and revision date not seen); whole sachets only.',
   },
   {
     id: 'deferiprone-tablets',

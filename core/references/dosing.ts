@@ -18,6 +18,15 @@ export const dosingSources = [
     note: 'From memory: film-coated tablets 90, 180 and 360 mg; dispersible tablets (tablets for oral suspension) 125, 250 and 500 mg. Neither label is recalled as describing tablet halves, so the catalogue treats both as whole tablets only.',
   },
   {
+    id: 'dosing-deferasirox-granules-ndc',
+    authors: 'US Food and Drug Administration',
+    title: 'National Drug Code directory: deferasirox oral granules (packets of 90, 180 and 360 mg)',
+    publication: 'NDC directory records as served by openFDA (record update 2026); the prescribing information itself (§3 dosage forms and strengths, revision date) was not seen',
+    year: 2026,
+    status: 'secondary',
+    note: 'Deferasirox oral granules in single-dose packets, 30 packets a carton; 180 mg and 360 mg packets seen in the records in 2026, 90 mg from the national drug code records read in an earlier pass. The label’s own section 3 text and its revision date were not seen.',
+  },
+  {
     id: 'dosing-deferiprone-strengths-memory',
     authors: 'Marketing authorisation holder',
     title: 'Deferiprone prescribing information: presentations (tablets and oral solution)',

@@ -103,6 +103,14 @@ describe('practical dose against hand arithmetic', () => {
     });
   });
 
+  it('deferasirox oral granules: whole sachets of 90, 180 and 360 mg (US national drug code records), 14 mg/kg/day at 33 kg', () => {
+    // 14 × 33 = 462 mg; sums of 90/180/360 mg sachets step by 90: 450 (12 below) beats 540 (78 above); fewest sachets: 360 + 90.
+    const proposal = propose({ product: product('deferasirox-granules'), target: perDay(14), weightKg: kg(33), administrationsPerDay: 1 });
+    expect(proposal.proposedMgPerAdministration).toBe(450);
+    expect(proposal.combinationText).toBe('1 × 360 mg + 1 × 90 mg');
+    expect(proposal.description).not.toMatch(/tablet/);
+  });
+
   it('offers half tablets only where the catalogue marks them breakable', () => {
     const only1000 = (halvable: boolean): TabletProduct => ({
       id: 'local-deferiprone',

@@ -8,16 +8,18 @@ describe('product catalogue', () => {
   it('ships a catalogue that its own schema accepts, citing known sources marked as memory unless every one was read', () => {
     // Most shipped strengths are recalled, not read (core/references/dosing.ts): such a product
     // cites a source whose status says so, so no screen can present them as checked. A product whose
-    // strengths and halves were read in the label text (the EU deferiprone film-coated tablets, SmPC §3)
-    // cites only confirmed sources.
+    // strengths were read (the EU deferiprone film-coated tablets in the SmPC §3, confirmed; the deferasirox
+    // oral granules in the US national drug code records, secondary) cites only sources that were read.
     const parsed = parseProductCatalogue(JSON.parse(JSON.stringify(defaultProductCatalogue)));
     expect(parsed.ok).toBe(true);
     for (const product of defaultProductCatalogue) {
       const statuses = product.sourceIds.map((id) => findSource(id)?.status);
       expect(statuses, product.id).not.toContain(undefined);
-      if (!statuses.every((it) => it === 'confirmed')) expect(statuses, product.id).toContain('memory');
+      const read = statuses.every((it) => it === 'confirmed' || it === 'secondary');
+      if (!read) expect(statuses, product.id).toContain('memory');
     }
-    expect(defaultProductCatalogue.filter((product) => product.sourceIds.every((id) => findSource(id)?.status === 'confirmed')).map((it) => it.id)).toEqual(['deferiprone-tablets']);
+    const readProducts = defaultProductCatalogue.filter((product) => product.sourceIds.every((id) => ['confirmed', 'secondary'].includes(findSource(id)?.status ?? ''))).map((it) => it.id);
+    expect(readProducts).toEqual(['deferasirox-granules', 'deferiprone-tablets']);
   });
 
   it('holds the strengths the brief lists (deferasirox 90/180/360 and 125/250/500; deferiprone 500/1000 and 100 mg/mL; deferoxamine 500 mg and 2 g)', () => {
@@ -30,6 +32,8 @@ describe('product catalogue', () => {
     expect(strengths).toEqual({
       'deferasirox-film-coated': [90, 180, 360],
       'deferasirox-dispersible': [125, 250, 500],
+      // Oral granules, single-dose sachets (US national drug code records; references.md §9).
+      'deferasirox-granules': [90, 180, 360],
       'deferiprone-tablets': [500, 1000],
       // The two US 1,000 mg tablets, one for twice- and one for three-times-a-day dosing (US label March 2025 §2.1).
       'deferiprone-tablets-1000-twice-daily': [1000],
