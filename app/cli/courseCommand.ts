@@ -15,6 +15,7 @@ import {
 } from '../../core/courses';
 import { citeShort, findSource } from '../../core/references';
 import { formatIssues, type Result } from '../../core/result';
+import { ageYearsBounds, heightBounds, weightBounds, type Bounds } from '../../core/ranges';
 import { bloodLead, checkLabValue, serumCreatinine, urinaryCopper, type UrinaryCopperUnit } from '../../core/units/formulas';
 import { createHash } from 'node:crypto';
 import { buildCourseSheet } from '../../core/report/courseSheet';
@@ -56,10 +57,16 @@ export interface CourseHostIo {
 }
 
 const switches = ['--json', '--list', '--force', '--encephalopathy', '--help'] as const;
-const numberOptions: Readonly<Record<string, { key: string; min: number; max: number; label: string }>> = {
-  '--weight-kg': { key: 'weightKg', min: 2, max: 250, label: 'weight, kg' },
-  '--height-cm': { key: 'heightCm', min: 40, max: 250, label: 'height, cm' },
-  '--age-years': { key: 'ageYears', min: 0, max: 120, label: 'age, years' },
+/**
+ * The patient's numbers take their ranges from core/ranges: the flag is refused outside the possible
+ * range, and planCourse warns outside the plausible one (`shown`), as a case file does.
+ */
+const patientOption = (key: string, bounds: Bounds, label: string) =>
+  ({ key, min: bounds.possible.min, max: bounds.possible.max, label, shown: `${bounds.plausible.min}–${bounds.plausible.max}` }) as const;
+const numberOptions: Readonly<Record<string, { key: string; min: number; max: number; label: string; shown?: string }>> = {
+  '--weight-kg': patientOption('weightKg', weightBounds, 'weight, kg'),
+  '--height-cm': patientOption('heightCm', heightBounds, 'height, cm'),
+  '--age-years': patientOption('ageYears', ageYearsBounds, 'age, years'),
   '--mg-per-kg': { key: 'mgPerKg', min: 0.1, max: 100, label: 'dose, mg/kg' },
   '--dose-mg': { key: 'doseMg', min: 0.1, max: 5000, label: 'dose per administration, mg' },
   '--daily-mg': { key: 'dailyMg', min: 1, max: 5000, label: 'daily dose, mg/day' },
@@ -276,13 +283,13 @@ export async function courseCommand(argv: readonly string[], io: CliIo & CourseH
     const raw = args.options[flag];
     if (raw === undefined) continue;
     const value = Number(raw);
-    if (raw.trim() === '' || !Number.isFinite(value)) problems.push(`${flag}: "${raw}" is not a number; enter the ${spec.label}, ${spec.min}–${spec.max}.`);
-    else if (value < spec.min || value > spec.max) problems.push(`${flag}: ${raw} is outside the plausible range ${spec.min}–${spec.max} (${spec.label}).`);
+    if (raw.trim() === '' || !Number.isFinite(value)) problems.push(`${flag}: "${raw}" is not a number; enter the ${spec.label}, ${spec.shown ?? `${spec.min}–${spec.max}`}.`);
+    else if (value < spec.min || value > spec.max) problems.push(`${flag}: ${raw} is outside the ${spec.shown ? 'possible' : 'plausible'} range ${spec.min}–${spec.max} (${spec.label}).`);
     else numbers[spec.key] = value;
   }
   const start = args.options['--start'];
   if (start === undefined) problems.push('--start: required, the first administration on the ward clock as YYYY-MM-DDTHH:mm.');
-  if (numbers['weightKg'] === undefined && args.options['--weight-kg'] === undefined) problems.push('--weight-kg: required, body weight in kg (2–250).');
+  if (numbers['weightKg'] === undefined && args.options['--weight-kg'] === undefined) problems.push(`--weight-kg: required, body weight in kg (${numberOptions['--weight-kg']!.shown}).`);
   const timeZone = args.options['--time-zone'] ?? io.timeZone?.() ?? Intl.DateTimeFormat().resolvedOptions().timeZone;
   if (!isTimeZone(timeZone)) problems.push(`--time-zone: "${timeZone}" is not an IANA time zone name (e.g. Europe/London, America/Chicago).`);
   const basis = args.options['--basis'];

@@ -1,4 +1,7 @@
+import { checkNumber } from '../formulas/validate';
+import type { NumberInputSpec } from '../formulas/types';
 import { bsaMostellerM2 } from '../patient/bodySurfaceArea';
+import { ageYearsBounds, heightBounds, inputRange, weightBounds } from '../ranges';
 import { fail, issue, ok, type Issue, type Result } from '../result';
 import { findSource } from '../references';
 import { bloodLeadUmolPerLFromUgPerDl, bloodLeadUgPerDlFromUmolPerL, creatinineMgPerDlFromUmolPerL, urinaryCopperUgPer24hFromUmolPer24h, urinaryCopperUmolPer24hFromUgPer24h } from '../units/concentration';
@@ -241,6 +244,20 @@ function phaseInstants(firstMs: number, intervalHours: number, count: number, ti
   return instants; // count + 1 entries: the last is where the next phase begins
 }
 
+/** The patient's numbers, with their ranges from the one table (core/ranges), as a case file holds them. */
+const patientInputs = {
+  weightKg: { kind: 'number', label: 'weight', ...inputRange(weightBounds), meaning: 'body weight, kg' },
+  heightCm: { kind: 'number', label: 'height', ...inputRange(heightBounds), meaning: 'height, cm' },
+  ageYears: { kind: 'number', label: 'age', ...inputRange(ageYearsBounds), meaning: 'age, years' },
+} as const satisfies Readonly<Record<string, NumberInputSpec>>;
+
+/** Refuse a patient number outside its possible range; keep one outside the plausible range with a warning. */
+function checkPatientNumber(name: keyof typeof patientInputs, value: number, issues: Issue[], warnings: Issue[]): void {
+  const refused = checkNumber(name, value, patientInputs[name], 'record');
+  if (refused.length > 0) issues.push(...refused);
+  else warnings.push(...checkNumber(name, value, patientInputs[name], 'entered').map((it) => ({ ...it, severity: 'warning' as const })));
+}
+
 /**
  * Plan a heavy-metal course: the dose per administration with its basis and
  * any cap applied, every administration dated and timed on the ward's clock
@@ -250,7 +267,8 @@ function phaseInstants(firstMs: number, intervalHours: number, count: number, ti
  * planned (edetate disodium is refused earlier, by resolveCourseRegimen).
  *
  * @param regimen - from the catalogue (resolveCourseRegimen)
- * @param request - the patient (weight 2–250 kg; height 40–250 cm where a dose is per m²; age 0–120 years), the start and the choices
+ * @param request - the patient (weight, height where a dose is per m², age: refused outside the possible range of
+ *   core/ranges, kept with a warning outside the plausible one, as in a case file), the start and the choices
  * @returns the plan with warnings; or the issues that refuse it (field, value, range and source named)
  * @example planCourse(succimer-lead, { weightKg: 14, heightCm: 92, ageYears: 3, start: '2026-10-24T22:00', timeZone: 'Europe/London' })
  *   → 15 doses of 100 mg every 8 h, then 28 every 12 h; last 2026-11-12 09:00 (clocks went back on 25 October)
@@ -259,13 +277,9 @@ export function planCourse(regimen: CourseRegimen, request: CourseRequest): Resu
   const issues: Issue[] = [];
   const warnings: Issue[] = [];
   const { weightKg } = request;
-  if (!(weightKg >= 2 && weightKg <= 250)) issues.push(issue('out_of_range', ['weightKg'], `Weight ${weightKg} kg is outside the plausible range 2–250 kg.`));
-  if (request.heightCm !== undefined && !(request.heightCm >= 40 && request.heightCm <= 250)) {
-    issues.push(issue('out_of_range', ['heightCm'], `Height ${request.heightCm} cm is outside the plausible range 40–250 cm.`));
-  }
-  if (request.ageYears !== undefined && !(request.ageYears >= 0 && request.ageYears <= 120)) {
-    issues.push(issue('out_of_range', ['ageYears'], `Age ${request.ageYears} years is outside the plausible range 0–120 years.`));
-  }
+  checkPatientNumber('weightKg', weightKg, issues, warnings);
+  if (request.heightCm !== undefined) checkPatientNumber('heightCm', request.heightCm, issues, warnings);
+  if (request.ageYears !== undefined) checkPatientNumber('ageYears', request.ageYears, issues, warnings);
   const start = readWallClock(request.start, request.timeZone);
   if (!start.ok) issues.push(...start.issues);
   else if (start.warnings) warnings.push(...start.warnings);

@@ -227,7 +227,7 @@ describe('course --list and bad input', async () => {
   it('names the field, the value and the range; never assumes a unit', async () => {
     const weight = await cli('course', 'succimer-lead', '--weight-kg', 'fourteen', '--age-years', '3', '--start', '2026-10-24T22:00');
     expect(weight.code).toBe(1);
-    expect(weight.err).toContain('--weight-kg: "fourteen" is not a number; enter the weight, kg, 2–250.');
+    expect(weight.err).toContain('--weight-kg: "fourteen" is not a number; enter the weight, kg, 2–200.');
     const unit = await cli('course', ...pb2204.filter((it) => it !== '--blood-lead-unit' && it !== 'ug/dL'));
     expect(unit.err).toContain('--blood-lead-unit: required with --blood-lead (ug/dL or umol/L); a unit is never assumed.');
     const gap = await cli('course', 'succimer-lead', '--weight-kg', '14', '--age-years', '3', '--start', '2026-03-29T01:30');

@@ -278,3 +278,22 @@ describe('safety rules, each triggered and not triggered', () => {
     expect(refused('trientine-dihydrochloride-wilson', { weightKg: 66 })[0]!.path).toEqual(['ageYears']);
   });
 });
+
+describe("the patient's numbers take their ranges from core/ranges (one table with the case model)", () => {
+  // The ranges are the case model's (core/ranges/plausibleRanges.ts): weight refused at or below 0 and above 400 kg,
+  // plausible 2–200 kg; height refused above 275 cm, plausible 40–220 cm; age refused above 125, plausible 0–105.
+  it('keeps a weight outside the plausible range with a warning naming that range, as a case file does', () => {
+    // Dimercaprol for arsenic, 3 mg/kg (the course catalogue's figure): 230 kg × 3 = 690 mg per administration.
+    const heavy = planned('dimercaprol-arsenic', { weightKg: 230 });
+    expect(heavy.phases[0]!.dosePerAdministrationMg).toBeCloseTo(690, 5);
+    expect(heavy.warnings.map((it) => it.message)).toContain('Weight 230 kg is outside the plausible range 2–200 kg.');
+    expect(heavy.warnings.find((it) => it.path[0] === 'weightKg')!.severity).toBe('warning');
+  });
+
+  it('refuses a weight, a height or an age outside the possible range, naming the field, the value and the range', () => {
+    expect(refused('dimercaprol-arsenic', { weightKg: 0 })[0]).toMatchObject({ code: 'out_of_range', path: ['weightKg'], message: 'Weight 0 kg is outside the possible range 0–400 kg (above 0).' });
+    expect(refused('dimercaprol-arsenic', { weightKg: 401 })[0]!.path).toEqual(['weightKg']);
+    expect(refused('succimer-lead', { weightKg: 70, heightCm: 300 })[0]).toMatchObject({ path: ['heightCm'], message: 'Height 300 cm is outside the possible range 0–275 cm (above 0).' });
+    expect(refused('penicillamine-wilson', { weightKg: 70, ageYears: 130 })[0]).toMatchObject({ path: ['ageYears'], message: 'Age 130 a is outside the possible range 0–125 a.' });
+  });
+});
