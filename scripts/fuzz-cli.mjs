@@ -205,7 +205,7 @@ const reviewDates = [
 ];
 function optionInput() {
   const demoPath = join(here, 'assets/demo', `${pick(['th-0417', 'th-0093'])}.json`);
-  const command = pick(['compute', 'findings', 'explain', 'calendar', 'binding', 'dose']);
+  const command = pick(['compute', 'findings', 'explain', 'calendar', 'binding', 'dose', 'course']);
   let invalid = false;
   const args = [command];
   if (command === 'binding') {
@@ -217,6 +217,13 @@ function optionInput() {
     const weight = pick([['52', false], ['0', true], ['5200', true], ['', true]]);
     args.push('--product', pick(['deferasirox-film-coated', 'deferoxamine-vials']), '--target-mg-per-kg-per-day', target[0], '--weight-kg', weight[0]);
     invalid ||= target[1] || weight[1];
+  } else if (command === 'course') {
+    // A heavy-metal course: the patient's numbers as typed (strict decimals, ranges from core/ranges).
+    const weight = pick([['14', false], ['230', false], ['0x10', true], ['14abc', true], ['0', true], ['401', true], ['1e400', true], ['-3', true]]);
+    const age = pick([['3', false], ['0x3', true], ['130', true], ['3.5', false]]);
+    const height = pick([['92', false], ['300', true], ['9.2e1', false], ['Infinity', true]]);
+    args.push('succimer-lead', '--weight-kg', weight[0], '--age-years', age[0], '--height-cm', height[0], '--start', pick(['2026-10-24T22:00', '2026-10-24T25:00']), '--time-zone', 'Europe/London');
+    invalid ||= weight[1] || age[1] || height[1] || args.includes('2026-10-24T25:00');
   } else {
     args.push(demoPath);
     if (chance(0.7)) {
@@ -253,6 +260,7 @@ function optionInput() {
     invalid = true;
   }
   if (chance(0.2) && command !== 'binding' && command !== 'dose') args.push('--json');
+  if (command === 'course' && (args.includes('--colour') || args.includes('another.json'))) invalid = true;
   return { argv: args, invalid, label: `option ${command}` };
 }
 

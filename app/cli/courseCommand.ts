@@ -25,7 +25,8 @@ import { courseIcs } from '../host/courseCalendar';
 import type { SheetPdfOptions } from '../host/sheetPdf';
 import { toolVersion } from '../host/toolVersion';
 import { writeCalendarOutput } from '../host/icalendar';
-import { parseArgs, splitOutput } from './args';
+import { parseArgs, repeatedOptionProblems, splitOutput } from './args';
+import { parseDecimal } from '../../core/numbers/parseDecimal';
 import { formatNumber } from './format';
 import { exitCodes, type CliIo } from './io';
 
@@ -257,7 +258,7 @@ const flagOfPath: Readonly<Record<string, string>> = {
  */
 export async function courseCommand(argv: readonly string[], io: CliIo & CourseHostIo): Promise<number> {
   const args = parseArgs(argv, switches);
-  const problems: string[] = [];
+  const problems: string[] = [...repeatedOptionProblems(args)];
   const { rest, output: shortOutput } = splitOutput(args.positionals, problems);
   if (args.switches.has('--help')) {
     io.out(courseUsage);
@@ -282,8 +283,9 @@ export async function courseCommand(argv: readonly string[], io: CliIo & CourseH
   for (const [flag, spec] of Object.entries(numberOptions)) {
     const raw = args.options[flag];
     if (raw === undefined) continue;
-    const value = Number(raw);
-    if (raw.trim() === '' || !Number.isFinite(value)) problems.push(`${flag}: "${raw}" is not a number; enter the ${spec.label}, ${spec.shown ?? `${spec.min}–${spec.max}`}.`);
+    // Strict decimals (core/numbers): '0x10' is not 16 kg, an empty value is not 0.
+    const value = parseDecimal(raw);
+    if (value === undefined) problems.push(`${flag}: "${raw}" is not a number; enter the ${spec.label}, ${spec.shown ?? `${spec.min}–${spec.max}`}.`);
     else if (value < spec.min || value > spec.max) problems.push(`${flag}: ${raw} is outside the ${spec.shown ? 'possible' : 'plausible'} range ${spec.min}–${spec.max} (${spec.label}).`);
     else numbers[spec.key] = value;
   }

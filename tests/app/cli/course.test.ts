@@ -224,6 +224,20 @@ describe('course --list and bad input', async () => {
     expect(json.regimens.every((it) => it.sources.length > 0)).toBe(true);
   });
 
+  it('reads numbers strictly and refuses a flag given twice, printing no plan (as the other commands do)', async () => {
+    // Number('0x10') is 16 and Number('1e400') is Infinity: a weight typed so must not become a dose (an empty value is 'missing').
+    for (const typed of ['0x10', '14abc', 'Infinity', '1e400']) {
+      const run = await cli('course', ...pb2204.map((it, index) => (pb2204[index - 1] === '--weight-kg' ? typed : it)));
+      expect(run.code, typed).toBe(1);
+      expect(run.out, typed).toBe('');
+      expect(run.err, typed).toContain(`--weight-kg: "${typed}" is not a number; enter the weight, kg, 2–200.`);
+    }
+    const twice = await cli('course', ...pb2204, '--weight-kg', '20');
+    expect(twice.code).toBe(1);
+    expect(twice.out).toBe('');
+    expect(twice.err).toContain('--weight-kg: given 2 times ("14", "20"); give it once.');
+  });
+
   it('names the field, the value and the range; never assumes a unit', async () => {
     const weight = await cli('course', 'succimer-lead', '--weight-kg', 'fourteen', '--age-years', '3', '--start', '2026-10-24T22:00');
     expect(weight.code).toBe(1);
