@@ -17,8 +17,9 @@ import { severities, type Finding } from './types';
  * finding is for review by the prescriber.
  *
  * Local protocols may set a threshold differently: pass the overrides keyed by
- * threshold id (core/thresholds/catalogue.ts). The case file has no place for
- * them yet (version 1), so they are a parameter here.
+ * threshold id (core/thresholds/catalogue.ts), usually the case file's own
+ * `thresholdOverrides` (each with its reason and who set it). A finding's title
+ * and text then state the limit the local protocol applies.
  *
  * @param caseFile - a parsed case (core/model parseCase); not changed
  * @param results - computeCase(caseFile, asOf) for the same review date
@@ -45,7 +46,7 @@ export function evaluateFindings(
       return {
         ruleId: rule.id,
         severity: draft.severity,
-        title: rule.title,
+        title: rule.titleFor(context.threshold),
         text: draft.text,
         drugs: draft.drugs ?? rule.drugs,
         triggers: draft.triggers,

@@ -9,7 +9,10 @@ import { forPrescriberReview, shown } from '../wording';
 
 export const cardiacT2StarRule = defineRule({
   id: 'cardiac-t2star',
-  title: 'Cardiac T2*: heart iron (below 10 ms severe; 10–20 ms mild to moderate)',
+  title: (threshold) => {
+    const [severe, iron] = [threshold('cardiac-t2star-severe').value, threshold('cardiac-t2star-iron').value];
+    return `Cardiac T2*: heart iron (below ${severe} ms severe; ${severe}–${iron} ms mild to moderate)`;
+  },
   severity: 'urgent',
   drugs: [],
   sourceIds: ['anderson-2001', 'kirk-2009'],
@@ -97,7 +100,7 @@ export const ferritinLicDiscordanceRule = defineRule({
 
 export const liverIronOverdueRule = defineRule({
   id: 'liver-iron-overdue',
-  title: 'No liver iron result in the last 12 months',
+  title: (threshold) => `No liver iron result in the last ${threshold('lic-interval').value} months`,
   severity: 'review',
   drugs: [],
   sourceIds: ['mri-monitoring-interval-memory'],
@@ -123,7 +126,7 @@ export const liverIronOverdueRule = defineRule({
 
 export const cardiacT2StarOverdueRule = defineRule({
   id: 'cardiac-t2star-overdue',
-  title: 'Thalassaemia major from 10 years: no cardiac T2* in the last 12–24 months',
+  title: (threshold) => `Thalassaemia major from 10 years: no cardiac T2* in the last ${threshold('cardiac-t2star-interval-short').value}–${threshold('cardiac-t2star-interval-long').value} months`,
   severity: 'review',
   drugs: [],
   sourceIds: ['mri-monitoring-interval-memory'],
@@ -187,4 +190,3 @@ export const positiveBalanceRule = defineRule({
   },
 });
 
-export const ironRecordRules = [cardiacT2StarRule, mriFieldStrengthRule, ferritinLicDiscordanceRule, liverIronOverdueRule, cardiacT2StarOverdueRule, positiveBalanceRule] as const;

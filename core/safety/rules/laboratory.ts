@@ -63,7 +63,7 @@ export const altRaisedRule = defineRule({
 
 export const lowIronRule = defineRule({
   id: 'low-iron-on-chelation',
-  title: 'Ferritin consistently below 500 µg/L or LIC below 3 mg/g dry on deferasirox or deferiprone',
+  title: (threshold) => `Ferritin consistently below ${threshold('ferritin-low').value} µg/L or LIC below ${threshold('lic-low').value} mg/g dry on deferasirox or deferiprone`,
   severity: 'review',
   drugs: ['deferasirox', 'deferiprone'],
   sourceIds: ['low-iron-interruption-labels'],
@@ -196,4 +196,3 @@ export const deferasiroxMonthlyTestsRule = defineRule({
   },
 });
 
-export const laboratoryRules = [altRaisedRule, lowIronRule, deferiproneNeutrophilsRule, deferiproneAncMonitoringRule, deferasiroxMonthlyTestsRule] as const;

@@ -71,7 +71,7 @@ export const doseRangeRule = defineRule({
 
 export const deferoxamineGrowthRule = defineRule({
   id: 'deferoxamine-growth-limit',
-  title: 'Deferoxamine at most 40 mg/kg/day while growing',
+  title: (threshold) => `Deferoxamine at most ${threshold(doseThresholdId('dose-growing-max', 'deferoxamine')!).value} mg/kg/day while growing`,
   severity: 'review',
   drugs: ['deferoxamine'],
   sourceIds: ['deferoxamine-label', 'common-practice'],
@@ -102,7 +102,7 @@ export const deferoxamineGrowthRule = defineRule({
 
 export const deferoxamineIntravenousRateRule = defineRule({
   id: 'deferoxamine-intravenous-rate',
-  title: 'Intravenous deferoxamine at most 15 mg/kg/h',
+  title: (threshold) => `Intravenous deferoxamine at most ${threshold(doseThresholdId('dose-iv-rate-max', 'deferoxamine')!).value} mg/kg/h`,
   severity: 'review',
   drugs: ['deferoxamine'],
   sourceIds: ['deferoxamine-label'],
@@ -322,13 +322,3 @@ export const ascorbicAcidRule = defineRule({
     }),
 });
 
-export const regimenRules = [
-  doseRangeRule,
-  deferoxamineGrowthRule,
-  deferoxamineIntravenousRateRule,
-  deferoxamineTherapeuticIndexRule,
-  deferoxamineHearingEyesRule,
-  ascorbicAcidRule,
-  chelatorCombinationRule,
-  pregnancyRule,
-] as const;

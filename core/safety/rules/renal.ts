@@ -240,4 +240,3 @@ export const deferasiroxCreatinineRiseRule = defineRule({
   },
 });
 
-export const renalRules = [deferasiroxEgfrRule, deferasiroxCrclRule, deferasiroxCreatinineRiseRule] as const;

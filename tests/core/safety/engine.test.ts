@@ -27,7 +27,7 @@ describe('the rule and threshold catalogues', () => {
   });
 });
 
-describe('local protocol overrides (a parameter: case files v1 have no place for them)', () => {
+describe('local protocol overrides (the case file’s thresholdOverrides, passed to evaluateFindings)', () => {
   // 41.3 / 43 mg/dL at 100 cm gives a bedside Schwartz eGFR of 43 (Schwartz 2009).
   const child = smallCase({ ageYears: 10, weightKg: 30, heightCm: 100, results: [result('creatinine', 5, 41.3 / 43, 'mg/dL')], chelationPeriods: [period('deferasirox', 14)] });
 

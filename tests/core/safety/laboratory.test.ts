@@ -1,4 +1,5 @@
 import { afterAll, describe, expect, it } from 'vitest';
+import { safetyRules } from '../../../core/safety';
 import { expectDescriptive, findingsFor, ofRule, period, producedTexts, result, smallCase } from './safetyCases';
 
 afterAll(() => expectDescriptive(producedTexts));
@@ -64,6 +65,17 @@ describe('low-iron-on-chelation (deferasirox and deferiprone labels: ferritin co
       smallCase({ results: [result('liver-iron', 20, value, 'mg/g{dry}', { method: 'biopsy' }), result('neutrophils', 2, 3, '10*9/L')], chelationPeriods: [period('deferiprone', 25)] });
     expect(ofRule(findingsFor(lic(2.9)), 'low-iron-on-chelation')[0]!.text).toContain('liver iron 2.9 mg/g dry');
     expect(ofRule(findingsFor(lic(3)), 'low-iron-on-chelation')).toHaveLength(0);
+  });
+
+  it('a local protocol’s ferritin limit of 600 µg/L: the finding’s title states 600, the one applied; the rule listing keeps the labelled 500', () => {
+    // Labels: ferritin consistently below 500 µg/L (published); a local protocol may set 600 (override range 50–2000).
+    const local = { 'ferritin-low': { value: 600, reason: 'local haematology protocol', by: 'Pharmacist AB' } };
+    const json = onDrug('deferasirox', [result('ferritin', 40, 550, 'ug/L'), result('ferritin', 5, 560, 'ug/L')]);
+    expect(ofRule(findingsFor(json), 'low-iron-on-chelation')).toHaveLength(0);
+    const [finding] = ofRule(findingsFor(json, undefined, local), 'low-iron-on-chelation');
+    expect(finding!.title).toBe('Ferritin consistently below 600 µg/L or LIC below 3 mg/g dry on deferasirox or deferiprone');
+    expect(finding!.text).toContain('the local threshold of 600 (overriding the labelled 500; local haematology protocol, Pharmacist AB)');
+    expect(safetyRules.find((it) => it.id === 'low-iron-on-chelation')!.title).toBe('Ferritin consistently below 500 µg/L or LIC below 3 mg/g dry on deferasirox or deferiprone');
   });
 });
 
