@@ -2,7 +2,7 @@ import { inputRange, weightBounds } from '../ranges';
 import { defineFormula, type AnyFormula } from '../formulas/types';
 import { issue } from '../result';
 import { kg } from '../units/quantity';
-import { formatAmount } from './formatAmount';
+import { formatAmount } from '../numbers/formatNumber';
 import { proposePracticalDose, defaultMeasurableStepMl, practicalDoseRanges } from './practicalDose';
 import { defaultProductCatalogue, findProduct } from './productCatalogue';
 

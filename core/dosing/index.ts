@@ -5,7 +5,7 @@
  */
 export * from './productCatalogue';
 export * from './practicalDose';
-export { formatAmount } from './formatAmount';
+export { formatAmount } from '../numbers/formatNumber';
 export { closestCombination, smallestCoveringCombination, halfMgUnitsFromMg, type Piece, type Combination } from './combinationSearch';
 export { practicalDose, dosingFormulas } from './formulas';
 export { proportionOfDaysCovered, type DaysCovered, type Supply } from './proportionOfDaysCovered';

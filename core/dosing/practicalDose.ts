@@ -2,7 +2,7 @@ import { fail, issue, ok, type Issue, type Result } from '../result';
 import { weightBounds } from '../ranges';
 import type { Kilograms, MgPerKgPerDay, Milligrams, Millilitres } from '../units/quantity';
 import { closestCombination, halfMgUnitsFromMg, smallestCoveringCombination, type Piece } from './combinationSearch';
-import { formatAmount } from './formatAmount';
+import { formatAmount } from '../numbers/formatNumber';
 import type { Product, SolutionProduct, TabletProduct, VialProduct } from './productCatalogue';
 
 /** The intended dose: per kg per day, or per kg per administration (a deferoxamine infusion). */

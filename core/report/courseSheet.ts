@@ -1,5 +1,6 @@
 import { courseCaution, courseDrug, type CoursePlan } from '../courses';
 import { citeShort, findSource } from '../references';
+import { formatNumber } from '../numbers/formatNumber';
 import { sheetCaution, type Sheet, type SheetBlock } from './sheet';
 
 /** What the host adds to a planned course to print it. */
@@ -13,7 +14,7 @@ export interface CourseSheetInput {
   readonly planSha256: string;
 }
 
-const mgText = (value: number) => `${(Math.round(value * 10) / 10).toFixed(1)} mg`;
+const mgText = (value: number) => `${formatNumber(value, 1)} mg`;
 const when = (at: { readonly localDate: string; readonly localTime: string; readonly utcOffset: string }) => `${at.localDate} ${at.localTime} (UTC${at.utcOffset})`;
 const cite = (id: string) => {
   const source = findSource(id);
@@ -41,7 +42,7 @@ export function buildCourseSheet(input: CourseSheetInput): Sheet {
     patient.ageYears !== null ? `${patient.ageYears} years` : null,
     `${patient.weightKg} kg`,
     patient.heightCm !== null ? `${patient.heightCm} cm` : null,
-    patient.bsaM2 !== null ? `BSA ${patient.bsaM2.toFixed(3)} m² (Mosteller)` : null,
+    patient.bsaM2 !== null ? `BSA ${formatNumber(patient.bsaM2, 3)} m² (Mosteller)` : null,
   ]
     .filter((it) => it !== null)
     .join(' · ');
@@ -49,8 +50,8 @@ export function buildCourseSheet(input: CourseSheetInput): Sheet {
     { label: 'Regimen', value: `${plan.regimenId}: ${plan.title}` },
     { label: 'Dose group', value: plan.population },
     { label: 'First administration', value: `${when(plan.start)}, ${plan.timeZone}` },
-    ...(plan.bloodLead ? [{ label: 'Blood lead', value: `${plan.bloodLead.ugPerDl.toFixed(1)} µg/dL = ${plan.bloodLead.umolPerL.toFixed(2)} µmol/L` }] : []),
-    ...(plan.urinaryCopper ? [{ label: '24-hour urinary copper', value: `${plan.urinaryCopper.ugPer24h.toFixed(0)} µg/24 h = ${plan.urinaryCopper.umolPer24h.toFixed(2)} µmol/24 h` }] : []),
+    ...(plan.bloodLead ? [{ label: 'Blood lead', value: `${formatNumber(plan.bloodLead.ugPerDl, 1)} µg/dL = ${formatNumber(plan.bloodLead.umolPerL, 2)} µmol/L` }] : []),
+    ...(plan.urinaryCopper ? [{ label: '24-hour urinary copper', value: `${formatNumber(plan.urinaryCopper.ugPer24h, 0)} µg/24 h = ${formatNumber(plan.urinaryCopper.umolPer24h, 2)} µmol/24 h` }] : []),
     ...(plan.renalSchedule ? [{ label: 'Renal schedule', value: plan.renalSchedule }] : []),
     ...plan.courses.map((course) => ({
       label: `Course ${course.course}`,
@@ -78,7 +79,7 @@ export function buildCourseSheet(input: CourseSheetInput): Sheet {
           {
             kind: 'paragraph' as const,
             style: 'body' as const,
-            text: `Trientine switch: today ${plan.trientineSwitch.currentDailyMg} mg/day of ${plan.trientineSwitch.fromProductId} (${plan.trientineSwitch.currentDailyBasis}) = ${plan.trientineSwitch.currentDailyBaseMg.toFixed(1)} mg trientine base/day; on ${plan.trientineSwitch.toProductId} (${plan.trientineSwitch.equivalentDailyBasis}) ${plan.trientineSwitch.equivalentDailyMg.toFixed(1)} mg/day. ${plan.trientineSwitch.notes.join(' ')}`,
+            text: `Trientine switch: today ${plan.trientineSwitch.currentDailyMg} mg/day of ${plan.trientineSwitch.fromProductId} (${plan.trientineSwitch.currentDailyBasis}) = ${formatNumber(plan.trientineSwitch.currentDailyBaseMg, 1)} mg trientine base/day; on ${plan.trientineSwitch.toProductId} (${plan.trientineSwitch.equivalentDailyBasis}) ${formatNumber(plan.trientineSwitch.equivalentDailyMg, 1)} mg/day. ${plan.trientineSwitch.notes.join(' ')}`,
           },
         ]
       : []),
@@ -200,7 +201,7 @@ export function buildCourseSheet(input: CourseSheetInput): Sheet {
               row.drugLabel,
               mgText(row.doseMg),
               row.stoichiometricCeilingMg === null ? '—' : `${mgText(row.stoichiometricCeilingMg)} ${row.metal}`,
-              row.pm && row.pm.pM !== undefined ? `${row.pm.pM.toFixed(1)} (${row.pm.basis}, ${row.pm.setId})` : row.pmNote,
+              row.pm && row.pm.pM !== undefined ? `${formatNumber(row.pm.pM, 1)} (${row.pm.basis}, ${row.pm.setId})` : row.pmNote,
             ]),
             emptyText: 'No chelator in the plan.',
             note: 'Ratios of chelator to metal are from memory; see the sources.',

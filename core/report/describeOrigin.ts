@@ -1,5 +1,5 @@
 import type { Origin } from '../formulas/derivation';
-import { formatPlain } from './formatNumber';
+import { formatPlain } from '../numbers/formatNumber';
 
 /**
  * Where a derivation input came from, in one line a reader can check: typed in,

@@ -4,39 +4,11 @@
  * names with a capital at the start of a sentence.
  */
 
-/**
- * A number with at most `decimals` decimals and no trailing zeros.
- *
- * @param value - any finite number
- * @param decimals - 0–6
- * @example shown(37.04, 0) === '37'; shown(0.02286, 4) === '0.0229'; shown(1.30, 2) === '1.3'
- */
-export function shown(value: number, decimals: number): string {
-  return String(Number(value.toFixed(decimals)));
-}
-
-/** UCUM codes as a reader writes them. */
-const readableUnits: Readonly<Record<string, string>> = {
-  'mL/min/{1.73_m2}': 'mL/min/1.73 m²',
-  'ug/L': 'µg/L',
-  'ng/mL': 'ng/mL',
-  '10*9/L': '× 10⁹/L',
-  '10*3/uL': '× 10³/µL',
-  'mg/g{dry}': 'mg/g dry',
-  'mg/kg/d': 'mg/kg/day',
-  'mg/d': 'mg/day',
-  'umol/L': 'µmol/L',
-};
-
-/**
- * A unit as a reader writes it.
- *
- * @param ucum - a UCUM code (or '%', 'ms', 'U/L')
- * @example readableUnit('mL/min/{1.73_m2}') === 'mL/min/1.73 m²'
- */
-export function readableUnit(ucum: string): string {
-  return readableUnits[ucum] ?? ucum;
-}
+// Numbers and units come from the one formatter and the one unit table, as on the sheet and the screens:
+// shown(37.04, 0) === '37' (core/numbers/formatNumber.ts formatTrimmed); readableUnit('10*9/L') === '×10⁹/L'
+// (core/units/displayUnit.ts). The short names keep the rules' sentences readable.
+export { formatTrimmed as shown } from '../numbers/formatNumber';
+export { displayUnit as readableUnit } from '../units/displayUnit';
 
 /**
  * A generic drug name with a capital first letter, to open a sentence.

@@ -1,3 +1,5 @@
+import { formatNumber } from '../numbers/formatNumber';
+
 /**
  * UCUM unit codes as a pharmacist reads them on a lab report or a sheet.
  * Codes are kept at the boundaries (files, JSON); this is presentation only.
@@ -35,4 +37,16 @@ const unitDisplay: Readonly<Record<string, string>> = {
 export function displayUnit(ucumCode: string): string {
   if (ucumCode === '1') return '';
   return unitDisplay[ucumCode] ?? ucumCode;
+}
+
+/**
+ * A value with its unit as a reader writes it: "280 mL", "0.6" for a fraction, "positive" for text.
+ * A number goes through formatNumber (core/numbers/formatNumber.ts), the unit through displayUnit.
+ *
+ * @example withUnit(181.44, 'mg', 1) === '181.4 mg'; withUnit(0.6, '1') === '0.60'
+ */
+export function withUnit(value: number | string, unit: string, decimals?: number): string {
+  const text = typeof value === 'number' ? formatNumber(value, decimals) : value;
+  const shown = displayUnit(unit);
+  return shown === '' ? text : `${text} ${shown}`;
 }

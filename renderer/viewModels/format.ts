@@ -1,12 +1,14 @@
+import { formatGrouped } from '../../core/numbers/formatNumber';
 import { displayUnit } from '../../core/units/displayUnit';
 
 /**
- * How numbers read on screen: grouped thousands, a fixed number of decimals,
- * the unit in its display form. Presentation only; every number comes from core.
+ * How numbers read on screen: grouped thousands, a fixed number of decimals
+ * (core/numbers/formatNumber.ts, the one formatter), the unit in its display form,
+ * '—' where there is no value. Presentation only; every number comes from core.
  */
 export function formatNumber(value: number | null | undefined, decimals: number): string {
   if (value === null || value === undefined || !Number.isFinite(value)) return '—';
-  return value.toLocaleString('en-GB', { minimumFractionDigits: decimals, maximumFractionDigits: decimals });
+  return formatGrouped(value, decimals);
 }
 
 /** A number with its unit: formatQuantity(11.4, 1, 'mg/g{dry}') === '11.4 mg/g dry weight'. */

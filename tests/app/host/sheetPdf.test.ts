@@ -3,7 +3,7 @@ import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { buildSheet } from '../../../core/report/buildSheet';
-import { formatNumber } from '../../../core/report/formatNumber';
+import { formatNumber } from '../../../core/numbers/formatNumber';
 import { sheetCaution } from '../../../core/report/sheet';
 import { printable, writeSheetPdf } from '../../../app/host/sheetPdf';
 import { cli, demoCase, tempDir } from '../cli/harness';

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { closestCombination, smallestCoveringCombination } from '../../../core/dosing/combinationSearch';
-import { formatAmount } from '../../../core/dosing/formatAmount';
+import { formatAmount } from '../../../core/numbers/formatNumber';
 import { defaultProductCatalogue, findProduct, parseProductCatalogue } from '../../../core/dosing/productCatalogue';
 import { findSource } from '../../../core/references';
 

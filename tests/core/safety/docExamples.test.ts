@@ -12,6 +12,8 @@ describe('core/safety doc-comment examples', () => {
     expect(shown(1.3, 2)).toBe('1.3');
     // UCUM 'mL/min/{1.73_m2}' as written on a laboratory report.
     expect(readableUnit('mL/min/{1.73_m2}')).toBe('mL/min/1.73 m²');
+    // The same table as the sheet and the screens (core/units/displayUnit.ts): one spelling of ×10⁹/L.
+    expect(readableUnit('10*9/L')).toBe('×10⁹/L');
     expect(capitalised('deferasirox')).toBe('Deferasirox');
   });
 
