@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { addDaysIso, addMonthsIso, daysBetween } from '../../../core/dates';
 import { computeCase } from '../../../core/ledger/computeCase';
 import { parseCase } from '../../../core/model/parseCase';
+import { sc0781 } from '../safety/scenarioCases';
 
 // Scenarios 4 and 6 of ../shared/scenarios.md, with invented records, checked by hand
 // arithmetic with the standard method (volume × haematocrit × 1.08 mg/mL; Cohen, Glimm &
@@ -27,29 +28,9 @@ function computed(json: unknown, asOf: string) {
 }
 
 describe('scenario 4: SC-0781 on monthly automated red-cell exchange', () => {
-  const exchanges = Array.from({ length: 14 }, (_, index) => ({
-    id: `x${index}`,
-    date: addMonthsIso('2025-10-06', index),
-    kind: 'exchange',
-    method: 'automated',
-    volumeIn: { value: 2000, unit: 'mL' },
-    unitHaematocrit: 0.6,
-    unitCount: 8,
-    volumeRemoved: { value: 4000, unit: 'mL' },
-    patientHaematocrit: 0.3,
-  }));
-  const json = {
-    format: 'chelation-ledger.case',
-    version: 1,
-    patient: patient('SC-0781', 74, 'sickle-cell-disease'),
-    transfusions: exchanges,
-    results: [
-      { id: 'f1', date: '2026-05-01', kind: 'ferritin', measured: { value: 900, unit: 'ug/L' } },
-      { id: 'f2', date: '2026-11-01', kind: 'ferritin', measured: { value: 600, unit: 'ug/L' } },
-      // A raw R2* from a 3 T scanner with a calibration derived at 1.5 T.
-      { id: 'l1', date: '2026-11-10', kind: 'liver-iron', method: 'mri-r2star', measured: { value: 180, unit: 's-1' }, fieldStrengthT: 3, calibrationId: 'hernando-1.5t' },
-    ],
-  };
+  // The one SC-0781 fixture (tests/core/safety/scenarioCases.ts), shared with the safety rules' tests.
+  const json = sc0781();
+  const exchanges = json.transfusions as { date: string }[];
 
   it('nets to zero: 2000 mL × 0.60 in and 4000 mL × 0.30 out carry the same 1296 mg', () => {
     const results = computed(json, '2026-11-20');
