@@ -3,6 +3,13 @@ import type { Band } from './band';
 
 export type FerritinBandId = 'below-500' | 'from-500-to-1000' | 'above-1000';
 
+/** The band edges, µg/L (guideline literature, see the source beside ferritinBand). */
+export const ferritinBandEdgesUgPerL = { maintenanceFrom: 500, maintenanceUpTo: 1000 } as const;
+const { maintenanceFrom, maintenanceUpTo } = ferritinBandEdgesUgPerL;
+
+/** The bands as a formula's expression states them: '< 500 | 500–1000 | > 1000'. */
+export const ferritinBandsText = `< ${maintenanceFrom} | ${maintenanceFrom}–${maintenanceUpTo} | > ${maintenanceUpTo}`;
+
 /** Shown with every ferritin band: ferritin is a surrogate of body iron. */
 export const ferritinSurrogateCaution =
   'Ferritin is a surrogate of body iron (raised by inflammation and liver damage); review it with the liver iron concentration.';
@@ -31,7 +38,7 @@ export function ferritinBand(
 ): Band<FerritinBandId> {
   const caution = context.sickleCellDisease ? `${ferritinSickleCellCaution} ${ferritinSurrogateCaution}` : ferritinSurrogateCaution;
   const sourceId = 'ferritin-guideline-literature';
-  if (ferritin < 500) return { id: 'below-500', label: 'below 500 µg/L', sourceId, caution };
-  if (ferritin <= 1000) return { id: 'from-500-to-1000', label: '500–1000 µg/L (a usual maintenance range)', sourceId, caution };
-  return { id: 'above-1000', label: 'above 1000 µg/L (consistently above 1000 is a usual point to consider chelation)', sourceId, caution };
+  if (ferritin < maintenanceFrom) return { id: 'below-500', label: `below ${maintenanceFrom} µg/L`, sourceId, caution };
+  if (ferritin <= maintenanceUpTo) return { id: 'from-500-to-1000', label: `${maintenanceFrom}–${maintenanceUpTo} µg/L (a usual maintenance range)`, sourceId, caution };
+  return { id: 'above-1000', label: `above ${maintenanceUpTo} µg/L (consistently above ${maintenanceUpTo} is a usual point to consider chelation)`, sourceId, caution };
 }

@@ -27,14 +27,15 @@ import {
   type UmolPerGDry,
 } from '../units/quantity';
 import { dailyIronLoadingMgPerKgPerDay } from './annualIronLoading';
-import { bodyIronMgFromLic, bodyIronMgPerKgFromLic, licFromBodyIronMgPerKg } from './bodyIron';
-import { cardiacT2StarBand } from './cardiacT2StarBand';
+import { angelucciSlopeMgPerKgPerMgPerGDry as angelucci, bodyIronMgFromLic, bodyIronMgPerKgFromLic, licFromBodyIronMgPerKg } from './bodyIron';
+import { cardiacT2StarBand, cardiacT2StarBandsText } from './cardiacT2StarBand';
 import { exchangeIronRemovedMg } from './exchangeIronRemoved';
-import { ferritinBand } from './ferritinBand';
-import { intakeBand } from './intakeBand';
+import { ferritinBand, ferritinBandsText } from './ferritinBand';
+import { intakeBand, intakeBandsBarred, intakeBandsText } from './intakeBand';
+import { daysPerYear } from '../units/time';
 import { ironIntakeRateMgPerKgPerDay } from './ironIntakeRate';
 import { ironPerGramHaemoglobinMg, ironPerMlRedCellsFromMchc } from './ironPerMlFromMchc';
-import { licBand } from './licBand';
+import { licBand, licBandsText } from './licBand';
 import { licChangeMgPerGDry } from './licChange';
 import { licFromR2Star } from './licFromR2Star';
 import { exactlyOneInput } from './oneOfInputs';
@@ -154,7 +155,7 @@ export const ironPerMlFromMchc = defineFormula({
 export const ironIntakeRate = defineFormula({
   id: 'iron-intake-rate',
   title: 'Iron intake per kg per day over a window',
-  expression: 'intake (mg/kg/day) = total iron (mg) ÷ weight (kg) ÷ window (days); band < 0.3, 0.3–0.5, > 0.5',
+  expression: `intake (mg/kg/day) = total iron (mg) ÷ weight (kg) ÷ window (days); band ${intakeBandsText}`,
   sourceIds: ['brittenham-2011', 'hoffbrand-2012'],
   notes: ['For the trailing year before a review use a window of 365 days (366 across 29 February).'],
   inputs: {
@@ -175,7 +176,7 @@ export const ironIntakeRate = defineFormula({
 export const annualIronLoading = defineFormula({
   id: 'annual-iron-loading',
   title: 'Daily iron loading from the yearly volume of red cells transfused',
-  expression: 'loading (mg/kg/day) = pure red cells (mL/kg/yr) × iron per mL of pure red cells (mg/mL) ÷ 365.2425',
+  expression: `loading (mg/kg/day) = pure red cells (mL/kg/yr) × iron per mL of pure red cells (mg/mL) ÷ ${daysPerYear}`,
   sourceIds: ['hoffbrand-2012', 'brittenham-2011', 'cohen-2008'],
   notes: ['Pure red-cell volume = volume transfused × unit haematocrit. 2–4 units a month is about 0.3–0.6 mg/kg/day (Hoffbrand 2012).'],
   inputs: {
@@ -239,7 +240,7 @@ const angelucciNotes = [
 export const bodyIron = defineFormula({
   id: 'body-iron',
   title: 'Body iron stores from liver iron (Angelucci relation)',
-  expression: 'body iron stores (mg/kg) = 10.6 × LIC (mg/g dry); total (mg) = mg/kg × weight (kg)',
+  expression: `body iron stores (mg/kg) = ${angelucci} × LIC (mg/g dry); total (mg) = mg/kg × weight (kg)`,
   sourceIds: ['angelucci-2000'],
   notes: angelucciNotes,
   inputs: { licMgPerGDry: licInput, weightKg: weightInput },
@@ -256,7 +257,7 @@ export const bodyIron = defineFormula({
 export const licFromBodyIron = defineFormula({
   id: 'lic-from-body-iron',
   title: 'Liver iron from body iron stores (Angelucci relation, inverted)',
-  expression: 'LIC (mg/g dry) = body iron stores (mg/kg) ÷ 10.6',
+  expression: `LIC (mg/g dry) = body iron stores (mg/kg) ÷ ${angelucci}`,
   sourceIds: ['angelucci-2000'],
   notes: angelucciNotes,
   inputs: {
@@ -271,7 +272,7 @@ export const licFromBodyIron = defineFormula({
 export const licChange = defineFormula({
   id: 'lic-change',
   title: 'Change of liver iron from a net iron balance',
-  expression: 'net (mg/kg) = net balance (mg/kg/day) × days; ΔLIC (mg/g dry) = net (mg/kg) ÷ 10.6',
+  expression: `net (mg/kg) = net balance (mg/kg/day) × days; ΔLIC (mg/g dry) = net (mg/kg) ÷ ${angelucci}`,
   sourceIds: ['angelucci-2000'],
   notes: [
     'Net balance = iron in (transfusions) minus iron out (chelation, venesection, basal loss); positive raises the LIC.',
@@ -443,8 +444,8 @@ export const licFromR2StarFormula = defineFormula({
 export const ironBands = defineFormula({
   id: 'iron-bands',
   title: 'Bands of iron intake, liver iron, cardiac T2* and ferritin',
-  expression:
-    'intake < 0.3 | 0.3–0.5 | > 0.5 mg/kg/day; LIC ≤ 1.8 | < 3 | 3–7 | < 15 | ≥ 15 mg/g dry; cardiac T2* > 20 | 10–20 | 6–10 | < 6 ms; ferritin < 500 | 500–1000 | > 1000 µg/L',
+  // Built from the bands' own edges, so the text cannot drift from what the bands compute.
+  expression: `intake ${intakeBandsBarred} mg/kg/day; LIC ${licBandsText} mg/g dry; cardiac T2* ${cardiacT2StarBandsText} ms; ferritin ${ferritinBandsText} µg/L`,
   sourceIds: ['brittenham-2011', 'olivieri-brittenham-1997', 'anderson-2001', 'kirk-2009', 'ferritin-guideline-literature'],
   notes: ['Give any of the four values. Ferritin is a surrogate of body iron, and a poor one in sickle cell disease.'],
   inputs: {

@@ -11,6 +11,9 @@ export type LicBandId = 'normal' | 'above-normal' | 'target-range' | 'raised-ris
 export const licBandEdgesMgPerGDry = { normalUpTo: 1.8, targetFrom: 3, targetUpTo: 7, highCardiacFrom: 15 } as const;
 const edges = licBandEdgesMgPerGDry;
 
+/** The bands as a formula's expression states them: '≤ 1.8 | < 3 | 3–7 | < 15 | ≥ 15'. */
+export const licBandsText = `≤ ${edges.normalUpTo} | < ${edges.targetFrom} | ${edges.targetFrom}–${edges.targetUpTo} | < ${edges.highCardiacFrom} | ≥ ${edges.highCardiacFrom}`;
+
 /**
  * Band of a liver iron concentration (LIC).
  *

@@ -51,7 +51,7 @@ export const netIronBalance = defineFormula({
 export const bodyIronCarriedForward = defineFormula({
   id: 'body-iron-carried-forward',
   title: 'Body iron and LIC carried forward from the last measured LIC',
-  expression: 'stores (mg) = 10.6 × LIC at the anchor × weight at the anchor + net balance since; LIC now = stores ÷ (10.6 × weight now)',
+  expression: `stores (mg) = ${angelucciSlopeMgPerKgPerMgPerGDry} × LIC at the anchor × weight at the anchor + net balance since; LIC now = stores ÷ (${angelucciSlopeMgPerKgPerMgPerGDry} × weight now)`,
   sourceIds: ['angelucci-2000'],
   notes: ['The net balance is transfused iron minus iron in removed blood, expected chelation removal and basal loss since the measurement.'],
   inputs: {

@@ -1,4 +1,5 @@
 import { daysBetween } from '../dates/isoDate';
+import { daysPerYear } from '../units/time';
 
 export interface DatedValue {
   /** ISO date 'YYYY-MM-DD'. */
@@ -47,7 +48,7 @@ export function logLinearTrend(points: readonly DatedValue[]): LogLinearTrend | 
   }
   if (sxx === 0) return null;
   const slopePerDay = sxy / sxx;
-  const changePerYear = Math.exp(slopePerDay * 365.2425) - 1;
+  const changePerYear = Math.exp(slopePerDay * daysPerYear) - 1;
   const flat = Math.abs(changePerYear) < 0.05;
   const characteristicDays = slopePerDay === 0 ? null : Math.log(2) / Math.abs(slopePerDay);
   return {

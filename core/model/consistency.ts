@@ -6,7 +6,7 @@ import { r2StarCalibrations } from '../iron/r2StarCalibrations';
 import { plausibleRangeText } from './bounds';
 import { weightBounds, weightChangeWithin90Days, weightForAgeBands } from '../ranges/plausibleRanges';
 import { daysBetween } from '../dates';
-import { ageInDecimalYears } from '../patient/age';
+import { ageOnDate } from '../patient/ageOnDate';
 import { chelatorIdForPeriod, findChelator } from '../chelators/catalogue';
 import { latestWeightOnOrBefore } from './latestWeight';
 import { pathText } from './zodIssues';
@@ -101,14 +101,6 @@ function calibrationProblems(theCase: Case): Issue[] {
   return found;
 }
 
-/** Age in decimal years on a date from the patient block (365.2425-day Gregorian year), or undefined. */
-function ageOnDate(theCase: Case, date: IsoDate): number | undefined {
-  const age = theCase.patient.age;
-  if (age.kind === 'years-on-date') return age.years + daysBetween(age.onDate, date) / 365.2425;
-  const years = ageInDecimalYears(age.birthDate, date);
-  return years.ok ? years.value : undefined;
-}
-
 /**
  * Weights that look mistyped: outside the band for the age on the day
  * (plausibleRanges.ts weightForAgeBands), or more than a fifth away from a
@@ -121,7 +113,7 @@ function weightProblems(theCase: Case): Issue[] {
   weights.forEach((entry, index) => {
     const path = ['patient', 'weights', index, 'weight', 'value'];
     const kg = entry.weight.value;
-    const age = ageOnDate(theCase, entry.date);
+    const age = ageOnDate(theCase.patient.age, entry.date) ?? undefined;
     const band = age === undefined ? undefined : weightForAgeBands.find((it) => age >= it.fromYears && age < it.toYears);
     if (band && (kg < band.minKg || kg > band.maxKg)) {
       found.push(

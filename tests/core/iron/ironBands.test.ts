@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { cardiacT2StarBand, ferritinBand, ironBands, licBand } from '../../../core/iron';
 import { runFormula } from '../../../core/formulas/run';
+import { formulaCatalogue } from '../../../core/catalogue';
 import { findSource } from '../../../core/references';
 import { mgPerGDry, msec, ugPerL } from '../../../core/units/quantity';
 
@@ -109,5 +110,18 @@ describe('iron-bands calculator', () => {
     const run = runFormula(ironBands, {});
     expect(run.ok).toBe(false);
     if (!run.ok) expect(run.issues[0]?.code).toBe('required');
+  });
+});
+
+describe('the formulas state the bands and the Angelucci slope from the constants the code computes with', () => {
+  // As printed: Brittenham 2011 Table 2 (intake < 0.3, 0.3–0.5, > 0.5 mg/kg/day); Olivieri & Brittenham 1997 and
+  // Brittenham 2011 (LIC 1.8, 3, 7, 15 mg/g dry); Anderson 2001 and Kirk 2009 (T2* 20, 10, 6 ms); Angelucci 2000 (10.6).
+  it('iron-bands, iron-intake-rate and body-iron read as the publications print them', () => {
+    const expression = (id: string) => formulaCatalogue.find((it) => it.id === id)!.expression;
+    expect(expression('iron-bands')).toBe(
+      'intake < 0.3 | 0.3–0.5 | > 0.5 mg/kg/day; LIC ≤ 1.8 | < 3 | 3–7 | < 15 | ≥ 15 mg/g dry; cardiac T2* > 20 | 10–20 | 6–10 | < 6 ms; ferritin < 500 | 500–1000 | > 1000 µg/L',
+    );
+    expect(expression('iron-intake-rate')).toContain('band < 0.3, 0.3–0.5, > 0.5');
+    expect(expression('body-iron')).toContain('= 10.6 × LIC (mg/g dry)');
   });
 });
