@@ -1,4 +1,4 @@
-import type { AssumptionOrigin } from './origin';
+import { assumptionOrigin, type AssumptionOrigin } from './origin';
 import { findAssumption, type AssumptionOverrides } from './catalogue';
 
 export interface ResolvedAssumption {
@@ -21,27 +21,5 @@ export function resolveAssumption(id: string, overrides: AssumptionOverrides): R
   const assumption = findAssumption(id);
   if (!assumption) throw new Error(`Unknown assumption ${id}`);
   const override = overrides[id];
-  if (override) {
-    return {
-      id,
-      label: assumption.label,
-      unit: assumption.unit,
-      value: override.value,
-      origin: {
-        kind: 'assumption',
-        assumptionId: id,
-        overridden: true,
-        reason: override.reason,
-        ...(override.by !== undefined ? { by: override.by } : {}),
-        ...(override.at !== undefined ? { at: override.at } : {}),
-      },
-    };
-  }
-  return {
-    id,
-    label: assumption.label,
-    unit: assumption.unit,
-    value: assumption.value,
-    origin: { kind: 'assumption', assumptionId: id, overridden: false },
-  };
+  return { id, label: assumption.label, unit: assumption.unit, value: override ? override.value : assumption.value, origin: assumptionOrigin(id, override) };
 }

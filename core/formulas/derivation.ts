@@ -5,7 +5,9 @@
  * never in a second pass.
  */
 
-import type { AssumptionOrigin } from '../assumptions/origin';
+import type { AssumptionOrigin, AssumptionUse } from '../assumptions/origin';
+
+export type { AssumptionUse } from '../assumptions/origin';
 
 export type Origin =
   /** Typed by the user; `ref` points at the case entry, e.g. 'transfusions[3] 2026-01-04'. */
@@ -27,14 +29,6 @@ export type Origin =
   /** The output of another formula. */
   | { readonly kind: 'computed'; readonly derivation: Derivation };
 
-/** An assumption as used inside a record total: its value and whether it was overridden. */
-export interface AssumptionUse {
-  readonly assumptionId: string;
-  readonly value: number;
-  readonly overridden: boolean;
-  readonly reason?: string;
-  readonly by?: string;
-}
 
 export interface DerivedValue {
   readonly name: string;
@@ -56,13 +50,18 @@ export interface Derivation {
   readonly sourceIds: readonly string[];
 }
 
+/**
+ * Visit every node of a derivation tree, depth first, the root first: the one walk over
+ * nested derivations (the method appendix and formulaIdsIn use it).
+ */
+export function forEachDerivation(derivation: Derivation, visit: (node: Derivation) => void): void {
+  visit(derivation);
+  for (const input of derivation.inputs) if (input.origin.kind === 'computed') forEachDerivation(input.origin.derivation, visit);
+}
+
 /** Every formula id used in a derivation tree, depth first, each once. */
 export function formulaIdsIn(derivation: Derivation): string[] {
   const seen = new Set<string>();
-  const walk = (node: Derivation): void => {
-    seen.add(node.formulaId);
-    for (const input of node.inputs) if (input.origin.kind === 'computed') walk(input.origin.derivation);
-  };
-  walk(derivation);
+  forEachDerivation(derivation, (node) => seen.add(node.formulaId));
   return [...seen];
 }

@@ -1,4 +1,5 @@
 import { findAssumption, type AssumptionOverrides } from '../assumptions';
+import { assumptionOrigin } from '../assumptions/origin';
 import { parseDecimal } from '../numbers/parseDecimal';
 import { issue, type Issue } from '../result';
 import type { Origin } from './derivation';
@@ -163,17 +164,10 @@ export function validateInputs(
       if (override) {
         issues.push(...checkNumber(name, override.value, { ...spec, min: assumption.min, max: assumption.max }));
         values[name] = override.value;
-        origins[name] = {
-          kind: 'assumption',
-          assumptionId: assumption.id,
-          overridden: true,
-          reason: override.reason,
-          ...(override.by !== undefined ? { by: override.by } : {}),
-          ...(override.at !== undefined ? { at: override.at } : {}),
-        };
+        origins[name] = assumptionOrigin(assumption.id, override);
       } else {
         values[name] = assumption.value;
-        origins[name] = { kind: 'assumption', assumptionId: assumption.id, overridden: false };
+        origins[name] = assumptionOrigin(assumption.id);
       }
     } else if (spec.default !== undefined) {
       values[name] = spec.default;

@@ -1,4 +1,5 @@
 import { resolveAssumption, type ResolvedAssumption } from '../assumptions';
+import { assumptionUseOf } from '../assumptions/origin';
 import { addDaysIso, daysBetween, type IsoDate } from '../dates/isoDate';
 import type { AssumptionUse } from '../formulas/derivation';
 import { runInternal } from '../formulas/run';
@@ -32,13 +33,7 @@ export function dayIndexOf(context: ReviewContext, date: IsoDate): number {
 
 /** A resolved assumption as a derivation records it. */
 export function assumptionUse(assumption: ResolvedAssumption): AssumptionUse {
-  return {
-    assumptionId: assumption.id,
-    value: assumption.value,
-    overridden: assumption.origin.overridden,
-    ...(assumption.origin.reason !== undefined ? { reason: assumption.origin.reason } : {}),
-    ...(assumption.origin.by !== undefined ? { by: assumption.origin.by } : {}),
-  };
+  return assumptionUseOf(assumption.origin, assumption.value);
 }
 
 /** The efficiency assumptions (and the film-coated factor) behind the expected removal of some periods. */

@@ -1,4 +1,5 @@
-import type { AssumptionUse, Derivation } from '../formulas/derivation';
+import { assumptionUseOf } from '../assumptions/origin';
+import { forEachDerivation, type AssumptionUse, type Derivation } from '../formulas/derivation';
 import { findFormula } from '../catalogue';
 import { findSource, type Source } from '../references';
 
@@ -40,31 +41,17 @@ export function methodAppendix(derivations: readonly { readonly id: string; read
     entry.usedBy.add(resultId);
     assumptions.set(key, entry);
   };
-  const walk = (node: Derivation, resultId: string): void => {
+  const note = (node: Derivation, resultId: string): void => {
     const entry = formulas.get(node.formulaId) ?? { usedBy: new Set<string>() };
     entry.usedBy.add(resultId);
     formulas.set(node.formulaId, entry);
     for (const input of node.inputs) {
       const origin = input.origin;
-      if (origin.kind === 'assumption') {
-        noteAssumption(
-          {
-            assumptionId: origin.assumptionId,
-            value: input.value as number,
-            overridden: origin.overridden,
-            ...(origin.reason !== undefined ? { reason: origin.reason } : {}),
-            ...(origin.by !== undefined ? { by: origin.by } : {}),
-          },
-          resultId,
-        );
-      } else if (origin.kind === 'record') {
-        for (const use of origin.assumptions ?? []) noteAssumption(use, resultId);
-      } else if (origin.kind === 'computed') {
-        walk(origin.derivation, resultId);
-      }
+      if (origin.kind === 'assumption') noteAssumption(assumptionUseOf(origin, input.value as number), resultId);
+      else if (origin.kind === 'record') for (const use of origin.assumptions ?? []) noteAssumption(use, resultId);
     }
   };
-  for (const { id, derivation } of derivations) walk(derivation, id);
+  for (const { id, derivation } of derivations) forEachDerivation(derivation, (node) => note(node, id));
   return {
     formulas: [...formulas.entries()].map(([formulaId, { usedBy }]) => {
       const formula = findFormula(formulaId);
