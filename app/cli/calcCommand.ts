@@ -129,10 +129,15 @@ function calcJson(formula: AnyFormula, derivation: Derivation): unknown {
 
 function formatDescription(description: FormulaDescription): string {
   const inputs = description.inputs.map((input) => {
+    // The ranges the calculator checks (core/formulas/describe.ts reads them from the same specs):
+    // per unit for a number entered with a chosen unit, with excluded ends and whole numbers marked.
+    const unitName = input.unit === '1' ? (input.integer ? 'count' : 'fraction') : input.unit;
     const domain =
       input.kind === 'choice'
         ? `one of ${input.choices!.join(' | ')}`
-        : `${input.unit === '1' ? 'fraction' : input.unit}, ${formatPlain(input.min!)}–${formatPlain(input.max!)}${input.range!.includes('(') ? ` ${input.range!.slice(input.range!.indexOf('('))}` : ''}${input.integer ? ', whole number' : ''}`;
+        : input.rangesByUnit
+          ? Object.entries(input.rangesByUnit).map(([unit, range]) => `${unit} ${formatPlain(range.min)}–${formatPlain(range.max)}`).join(' or ')
+          : `${unitName}, ${formatPlain(input.min!)}–${formatPlain(input.max!)}${input.range!.includes('(') ? ` ${input.range!.slice(input.range!.indexOf('('))}` : ''}${input.integer ? ', whole number' : ''}`;
     const fallback =
       input.default !== undefined ? `; default ${input.default}${input.defaultFrom ? ` (${input.defaultFrom})` : ''}` : '';
     const needed = input.usedWhen ? `; used only with ${input.usedWhen}` : input.required ? '' : input.default === undefined ? '; optional' : '';

@@ -17,6 +17,8 @@ export interface InputDescription {
   readonly range?: string;
   /** Whole numbers only. */
   readonly integer?: boolean;
+  /** For a number entered with a chosen unit: the range checked in each unit (the value is checked in its own unit). */
+  readonly rangesByUnit?: Readonly<Record<string, { readonly min: number; readonly max: number }>>;
   readonly choices?: readonly string[];
   readonly meaning: string;
   readonly required: boolean;
@@ -66,6 +68,7 @@ function describeInput(name: string, spec: InputSpec): InputDescription {
     max: range.max,
     range: describeRange(range),
     ...(spec.integer ? { integer: true } : {}),
+    ...(spec.unitRanges ? { rangesByUnit: spec.unitRanges } : {}),
     required: fallback === undefined && !spec.optional && spec.usedWhen === undefined,
     ...(fallback !== undefined ? { default: fallback } : {}),
     ...(spec.usedWhen ? { usedWhen: `${flagForInput(spec.usedWhen.input)} ${spec.usedWhen.oneOf.join(' | ')}` } : {}),

@@ -39,6 +39,11 @@ export interface NumberInputSpec {
    */
   readonly unitFrom?: string;
   /**
+   * With `unitFrom`: the range checked in each unit (compute checks the value in its chosen unit,
+   * core/units/formulas.ts checkLabValue); `min`/`max` are then their union. `calc --list` shows these.
+   */
+  readonly unitRanges?: Readonly<Record<string, { readonly min: number; readonly max: number }>>;
+  /**
    * The input only applies when another (choice) input has one of these values
    * (the efficiency of the chosen chelator). Otherwise it is not read, not
    * defaulted and not listed in the derivation; compute receives undefined.

@@ -58,6 +58,11 @@ export function checkNumber(name: string, value: number, spec: NumberInputSpec, 
     }
     if (spec.outsideAdvice) advice += spec.outsideAdvice;
     const which = mode === 'record' && spec.plausible ? 'possible' : 'plausible';
+    if (spec.unitRanges) {
+      // A number entered with a chosen unit: state the range of each unit, as compute checks it (not their union).
+      const perUnit = Object.entries(spec.unitRanges).map(([unit, it]) => `${it.min}–${it.max} ${unit}`).join(' or ');
+      return [issue('out_of_range', [name], `${capitalise(spec.label)} ${value} is outside the ${which} range in every unit: ${perUnit}${advice}.`)];
+    }
     return [issue('out_of_range', [name], `${capitalise(spec.label)} ${withUnit(value, spec.unit)} is outside the ${which} range ${describeRange(range)}${advice}.`)];
   }
   return [];

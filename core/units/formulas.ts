@@ -89,6 +89,7 @@ export function labValueInput<Unit extends string>(quantity: LabQuantity<Unit>):
     min: Math.min(...mins),
     max: Math.max(...maxes),
     unitFrom: quantity.unitName,
+    unitRanges: quantity.ranges,
     meaning: `${quantity.label} in the unit chosen with ${quantity.label} unit: ${rangesText(quantity)}`,
   };
 }

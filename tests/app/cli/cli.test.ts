@@ -52,6 +52,60 @@ describe('calc --list', () => {
   });
 });
 
+describe('calc --list states the ranges the calculators enforce', () => {
+  // The outside check is each calculator's own refusal, run through `calc`: every listed end is accepted,
+  // a value just beyond it is refused naming the flag, an excluded end is refused, and an input marked
+  // "whole number" refuses a half. "Just beyond" is a thousandth of the range (1 for whole numbers).
+  type Listed = { id: string; inputs: { name: string; flag: string; kind: string; min?: number; max?: number; range?: string; integer?: boolean; rangesByUnit?: Record<string, { min: number; max: number }> }[] };
+  const flagProblem = (err: string, flag: string) => err.split('\n').some((line) => line.startsWith(`${flag}: `) && !line.includes('required'));
+  it('every number input of every calculator, at both ends and just beyond', async () => {
+    const listed = JSON.parse((await cli('calc', '--list', '--json')).out) as Listed[];
+    for (const entry of listed) {
+      for (const input of entry.inputs.filter((it) => it.kind === 'number' && it.rangesByUnit === undefined)) {
+        const spec = formulaCatalogue.find((it) => it.id === entry.id)!.inputs[input.name]!;
+        const enabling = spec.kind === 'number' && spec.usedWhen ? [flagForInput(spec.usedWhen.input), spec.usedWhen.oneOf[0]!] : [];
+        const run = async (value: number) => (await cli('calc', entry.id, ...enabling, input.flag, String(value))).err;
+        const step = input.integer ? 1 : (input.max! - input.min!) / 1000;
+        const lowerExcluded = input.range!.includes(`above ${input.min}`);
+        const upperExcluded = input.range!.includes(`below ${input.max}`);
+        const where = `${entry.id} ${input.flag} (${input.range})`;
+        expect(flagProblem(await run(lowerExcluded ? input.min! + step : input.min!), input.flag), `${where} at its lower end`).toBe(false);
+        expect(flagProblem(await run(upperExcluded ? input.max! - step : input.max!), input.flag), `${where} at its upper end`).toBe(false);
+        expect(flagProblem(await run(lowerExcluded ? input.min! : input.min! - step), input.flag), `${where} below`).toBe(true);
+        expect(flagProblem(await run(upperExcluded ? input.max! : input.max! + step), input.flag), `${where} above`).toBe(true);
+        if (input.integer) expect(flagProblem(await run(input.min! + 0.5), input.flag), `${where} a half`).toBe(true);
+      }
+    }
+  }, 120_000);
+
+  it('creatinine per unit, as the calculators check it in the unit chosen', async () => {
+    const listed = JSON.parse((await cli('calc', '--list', '--json')).out) as Listed[];
+    const creatinine = listed.find((it) => it.id === 'creatinine-units')!.inputs.find((it) => it.flag === '--serum-creatinine')!;
+    expect(Object.keys(creatinine.rangesByUnit!)).toEqual(['mg/dL', 'umol/L']);
+    // Every calculator taking a creatinine lists the same ranges per unit.
+    for (const entry of listed) for (const input of entry.inputs.filter((it) => it.flag === '--serum-creatinine')) expect(input.rangesByUnit, entry.id).toEqual(creatinine.rangesByUnit);
+    for (const [unit, range] of Object.entries(creatinine.rangesByUnit!)) {
+      const run = (value: number) => cli('calc', 'creatinine-units', '--serum-creatinine', String(value), '--creatinine-unit', unit);
+      const step = (range.max - range.min) / 1000;
+      expect((await run(range.min)).code, `${unit} ${range.min}`).toBe(0);
+      expect((await run(range.max)).code, `${unit} ${range.max}`).toBe(0);
+      for (const beyond of [range.min - step, range.max + step]) {
+        const refused = await run(beyond);
+        expect(refused.code, `${unit} ${beyond}`).toBe(1);
+        expect(refused.out).toBe('');
+        expect(refused.err).toContain(`${range.min}–${range.max} ${unit}`);
+      }
+    }
+    const text = (await cli('calc', '--list')).out;
+    expect(text).toContain('--serum-creatinine <mg/dL 0.1–20 or umol/L 8–1770>');
+    // Ages as enforced: Cockcroft–Gault and CKD-EPI 18–120, bedside Schwartz from 1 to below 18.
+    expect(listed.find((it) => it.id === 'crcl-cockcroft-gault')!.inputs.find((it) => it.flag === '--age-years')).toMatchObject({ min: 18, max: 120 });
+    expect(listed.find((it) => it.id === 'egfr-ckd-epi-2021')!.inputs.find((it) => it.flag === '--age-years')).toMatchObject({ min: 18, max: 120 });
+    expect(listed.find((it) => it.id === 'egfr-schwartz-bedside')!.inputs.find((it) => it.flag === '--age-years')!.range).toBe('1–18 a (below 18)');
+    expect(text).toContain('--administrations-per-day <count, 1–6, whole number>');
+  });
+});
+
 describe('calc <calculator>', () => {
   it('prints a readable line with units, inputs and their origins (280 mL × 0.60 × 1.08 = 181.44 mg)', async () => {
     const { code, out } = await cli('calc', 'transfusion-iron', '--volume-ml', '280', '--unit-haematocrit', '0.6');
@@ -122,7 +176,9 @@ describe('calc <calculator>', () => {
         expect(out).toBe('');
         expect(err).toContain(`${input.flag}: `);
         expect(err).toContain(String(tooHigh));
-        expect(err).toContain(`${input.min}–${input.max}`);
+        // A number entered with a chosen unit states the range of each unit, as compute checks it.
+        if (input.rangesByUnit) for (const [unit, range] of Object.entries(input.rangesByUnit)) expect(err).toContain(`${range.min}–${range.max} ${unit}`);
+        else expect(err).toContain(`${input.min}–${input.max}`);
       });
     }
     for (const input of describeFormula(formula).inputs.filter((it) => it.kind === 'choice')) {
