@@ -98,3 +98,23 @@ export function generatedCaseJson(density = 1): unknown {
     review: { reviewDate: generatedReviewDate, notes: [], signOff: null },
   };
 }
+
+/**
+ * The generated case with its chelation record replaced by `periodCount` back-to-back deferasirox
+ * periods over the same 20 years (a dose change every 20 × 365 ⁄ periodCount days, the dose
+ * stepping through 20–24 mg/kg), the last one ongoing: one unbroken run of dose changes, the
+ * shape that made a review quadratic in the number of periods (issue 17).
+ */
+export function generatedCaseWithPeriods(periodCount: number): unknown {
+  const json = generatedCaseJson(1) as { chelationPeriods: Record<string, unknown>[] };
+  const template = json.chelationPeriods.find((period) => period.drug === 'deferasirox')!;
+  const periodDays = recordDays / periodCount;
+  json.chelationPeriods = Array.from({ length: periodCount }, (_, index) => ({
+    ...template,
+    id: `dc-${index}`,
+    dose: { value: 20 + (index % 5), unit: 'mg/kg' },
+    startDate: iso(Math.floor(index * periodDays)),
+    endDate: index === periodCount - 1 ? null : iso(Math.floor((index + 1) * periodDays) - 1),
+  }));
+  return json;
+}

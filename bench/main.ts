@@ -18,7 +18,9 @@ import { phGrid } from '../core/chemistry/phSweep';
 import { molar } from '../core/chemistry/types';
 import type { Case } from '../core/model/caseFile';
 import { baselineKernel, type KernelInput } from './baselineKernel';
-import { generatedCaseJson, generatedReviewDate } from './generatedCase';
+import { generatedCaseJson, generatedCaseWithPeriods, generatedReviewDate } from './generatedCase';
+import { evaluateFindings } from '../core/safety';
+import { monitoringCalendar } from '../core/monitoring';
 import { measure, scalingExponent, type Timing } from './harness';
 import { bundleGzipBytes, ironCourseNavigationMs } from './rendererBench';
 import { panelRun, writeWorkspace } from './workspaceBench';
@@ -100,7 +102,7 @@ async function recomputeFigures(): Promise<void> {
 }
 
 async function scalingFigures(): Promise<void> {
-  console.log('2. Scaling with record length (1×, 4×, 16×) and with horizon (24, 120 months)');
+  console.log('2. Scaling with record length (1×, 4×, 16×), with horizon (24, 120 months) and with chelation periods (100, 1,000, 2,667)');
   const byDensity: { size: number; ms: number }[] = [];
   for (const density of [1, 4, 16]) {
     const caseFile = parsedGenerated(density);
@@ -119,6 +121,23 @@ async function scalingFigures(): Promise<void> {
     row(`scaling: horizon ${horizon} months`, timing.medianMs, 'ms', null);
   }
   row('scaling: exponent in horizon', scalingExponent(byHorizon), '', 1.2, 'the record part does not grow with the horizon, so this is at most 1');
+  // A whole review (parse, compute, findings, monitoring calendar) of one unbroken run of dose changes.
+  const byPeriods: { size: number; ms: number }[] = [];
+  for (const periodCount of [100, 1000, 2667]) {
+    const json = generatedCaseWithPeriods(periodCount);
+    const review = () => {
+      const parsed = parseCase(json);
+      if (!parsed.ok) throw new Error(`periods case (${periodCount}) does not parse`);
+      const computed = computeCase(parsed.value, generatedReviewDate);
+      if (!computed.ok) throw new Error(`periods case (${periodCount}) does not compute`);
+      return [evaluateFindings(parsed.value, computed.value, generatedReviewDate, parsed.value.thresholdOverrides), monitoringCalendar(parsed.value, generatedReviewDate)];
+    };
+    const timing = await measure(`${periodCount} chelation periods, whole review`, review, { minRuns: 5, minTimeMs: 1000, warmupRuns: 1 });
+    print(timing);
+    byPeriods.push({ size: periodCount, ms: timing.medianMs });
+    row(`scaling: ${periodCount} chelation periods, whole review`, timing.medianMs, 'ms', null);
+  }
+  row('scaling: exponent in chelation periods', scalingExponent(byPeriods), '', 1.2, 'parse, compute, findings and calendar of one run of dose changes; the rest of the record is fixed, so this is below 1');
 }
 
 async function chemistryFigures(): Promise<void> {

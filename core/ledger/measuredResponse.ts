@@ -150,19 +150,38 @@ function regimenCoverage(chelation: readonly ChelationSpan[], fromDate: IsoDate,
   // Day offsets of each span relative to fromDate; a regimen is the set of spans on a day, keyed by their indices.
   const starts = inWindow.map((span) => daysBetween(fromDate, span.start));
   const ends = inWindow.map((span) => (span.end === null ? Number.POSITIVE_INFINITY : daysBetween(fromDate, span.end)));
+  // The set of spans changes only where one starts or ends: walk those offsets, not every day against every span
+  // (days × spans was quadratic in a record of thousands of dose changes).
+  const startingAt = new Map<number, number[]>();
+  const endingBefore = new Map<number, number[]>();
+  const at = (map: Map<number, number[]>, offset: number, index: number) => {
+    const list = map.get(offset);
+    if (list) list.push(index);
+    else map.set(offset, [index]);
+  };
+  inWindow.forEach((_, index) => {
+    const first = Math.max(1, starts[index]!);
+    const last = Math.min(days, ends[index]!);
+    if (first > last) return;
+    at(startingAt, first, index);
+    if (last < days) at(endingBefore, last + 1, index);
+  });
+  const changes = [...new Set([1, ...startingAt.keys(), ...endingBefore.keys()])].filter((offset) => offset <= days).sort((a, b) => a - b);
+  const running = new Set<number>();
   const counts = new Map<string, number>();
   let key = '';
   let run = 0;
-  for (let offset = 1; offset <= days; offset += 1) {
-    let dayKey = '';
-    for (let index = 0; index < inWindow.length; index += 1) if (starts[index]! <= offset && offset <= ends[index]!) dayKey += `${index},`;
+  changes.forEach((offset, change) => {
+    for (const index of endingBefore.get(offset) ?? []) running.delete(index);
+    for (const index of startingAt.get(offset) ?? []) running.add(index);
+    const dayKey = [...running].sort((a, b) => a - b).map((index) => `${index},`).join('');
     if (dayKey !== key) {
       if (run > 0) counts.set(key, (counts.get(key) ?? 0) + run);
       key = dayKey;
       run = 0;
     }
-    run += 1;
-  }
+    run += (changes[change + 1] ?? days + 1) - offset;
+  });
   if (run > 0) counts.set(key, (counts.get(key) ?? 0) + run);
   const spansOf = (regimenKey: string) => regimenKey.split(',').filter((it) => it !== '').map((it) => inWindow[Number(it)]!);
   const ranked = [...counts.entries()].sort((a, b) => b[1] - a[1]).map(([regimenKey, count]) => ({ spans: spansOf(regimenKey), days: count }));

@@ -52,24 +52,42 @@ function duplicateIds(theCase: Case): Issue[] {
 /** Two periods of one drug that share days: usually a regimen change typed without ending the old period. */
 /** Periods of one drug that overlap (a duplicated period counts the drug twice); `base` is the list's path. */
 function overlappingSameDrug(periods: readonly ChelationPeriod[], base: Path = ['chelationPeriods']): Issue[] {
-  const found: Issue[] = [];
-  periods.forEach((later, laterIndex) => {
-    periods.slice(0, laterIndex).forEach((earlier, earlierIndex) => {
-      if (earlier.drug !== later.drug) return;
-      const earlierEnds = earlier.endDate ?? '9999-12-31';
-      const laterEnds = later.endDate ?? '9999-12-31';
-      if (later.startDate > earlierEnds || earlier.startDate > laterEnds) return;
-      const path = [...base, laterIndex];
-      found.push(
-        issue(
-          'inconsistent',
-          path,
-          `${pathText(path)} (${later.drug} from ${later.startDate}) overlaps ${pathText([...base, earlierIndex])} of the same drug; end the earlier period if the regimen changed${base[0] === 'proposedRegimens' ? ' (in a proposal, each drug once: a duplicate counts its dose twice)' : ''}.`,
-          'warning',
-        ),
-      );
-    });
+  const endOf = (index: number) => periods[index]!.endDate ?? '9999-12-31';
+  // The overlapping pairs (later index, earlier index), found drug by drug in one sweep over the start
+  // dates: a period still open when another starts overlaps it. Comparing every pair was quadratic
+  // in the number of periods (a record of weekly dose changes has thousands).
+  const pairs: [laterIndex: number, earlierIndex: number][] = [];
+  const byDrug = new Map<string, number[]>();
+  periods.forEach((period, index) => {
+    const ofDrug = byDrug.get(period.drug);
+    if (ofDrug) ofDrug.push(index);
+    else byDrug.set(period.drug, [index]);
   });
+  for (const indices of byDrug.values()) {
+    const byStart = [...indices].sort((a, b) => (periods[a]!.startDate < periods[b]!.startDate ? -1 : periods[a]!.startDate > periods[b]!.startDate ? 1 : a - b));
+    let open: number[] = [];
+    for (const index of byStart) {
+      const start = periods[index]!.startDate;
+      // Ended before this start: ended before every later start too.
+      open = open.filter((other) => endOf(other) >= start);
+      for (const other of open) if (periods[other]!.startDate <= endOf(index)) pairs.push(other < index ? [index, other] : [other, index]);
+      open.push(index);
+    }
+  }
+  pairs.sort((a, b) => a[0] - b[0] || a[1] - b[1]);
+  const found: Issue[] = [];
+  for (const [laterIndex, earlierIndex] of pairs) {
+    const later = periods[laterIndex]!;
+    const path = [...base, laterIndex];
+    found.push(
+      issue(
+        'inconsistent',
+        path,
+        `${pathText(path)} (${later.drug} from ${later.startDate}) overlaps ${pathText([...base, earlierIndex])} of the same drug; end the earlier period if the regimen changed${base[0] === 'proposedRegimens' ? ' (in a proposal, each drug once: a duplicate counts its dose twice)' : ''}.`,
+        'warning',
+      ),
+    );
+  }
   return found;
 }
 
