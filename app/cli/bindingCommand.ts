@@ -23,18 +23,20 @@ import {
 } from '../../core/chemistry';
 import { parseDecimal } from '../../core/numbers/parseDecimal';
 import { citeShort, findSource } from '../../core/references';
+import { weightBounds } from '../../core/ranges';
 import { kg } from '../../core/units/quantity';
 import { parseArgs, repeatedOptionProblems, type ParsedArgs } from './args';
 import { decisionSupportCaution, formatNumber } from './format';
 import { exitCodes, type CliIo } from './io';
 
 export const bindingUsage = `Usage:
-  chelation-ledger binding [--metal Fe3+|Al3+] [--weight-kg <1–250>] [--json]
+  chelation-ledger binding [--metal Fe3+|Al3+] [--weight-kg N] [--json]
       metal bound per dosing day by stoichiometry beside pM at pH 7.4, for the iron chelators at
       their catalogued doses; pPb of edetate, pentetate and succimer; lead against plasma calcium
   chelation-ledger binding --sweep --ligand-set <set id> [--metal Fe3+] [--from 2] [--to 12] [--step 1]
       [--metal-umol 1] [--ligand-umol 10] [--json]
-      pM and log K′ of one constant set against pH`;
+      pM and log K′ of one constant set against pH
+  --weight-kg: above ${weightBounds.possible.min} to ${weightBounds.possible.max} kg; outside ${weightBounds.plausible.min}–${weightBounds.plausible.max} kg the table says to check it (the case file's ranges)`;
 
 const switches = ['--json', '--sweep', '--help'] as const;
 const tableOptions = ['--metal', '--weight-kg'] as const;
@@ -118,10 +120,23 @@ function pmBasisText(pm: PmComparisonRow): string {
   return 'not computed';
 }
 
+/** A weight outside the plausible range, said once (the table is still computed with it). */
+function weightWarning(weightKg: number | undefined): string[] {
+  if (weightKg === undefined || (weightKg >= weightBounds.plausible.min && weightKg <= weightBounds.plausible.max)) return [];
+  return [`Check the weight: ${formatNumber(weightKg, 1)} kg is outside the plausible ${weightBounds.plausible.min}–${weightBounds.plausible.max} kg (typed in pounds, or a digit too many?).`];
+}
+
 function tableCommand(args: ParsedArgs, io: CliIo): number {
   const problems: string[] = [];
   const metal = choiceOption<CapacityMetalId>(args, '--metal', capacityMetalIds, 'Fe3+', problems);
-  const weightKg = numberOption(args, '--weight-kg', undefined, 1, 250, problems);
+  // The case file's weight ranges (core/ranges): refused outside the possible range, flagged outside the plausible one.
+  const weightText = args.options['--weight-kg'];
+  const weightKg = weightText === undefined ? undefined : parseDecimal(weightText);
+  if (weightText !== undefined && (weightKg === undefined || weightKg <= weightBounds.possible.min || weightKg > weightBounds.possible.max)) {
+    problems.push(
+      `--weight-kg: "${weightText}" is not a body weight; enter the weight in kg, above ${weightBounds.possible.min} and at most ${weightBounds.possible.max} (plausible ${weightBounds.plausible.min}–${weightBounds.plausible.max}).`,
+    );
+  }
   if (problems.length > 0) {
     io.err(problems.join('\n'));
     return exitCodes.invalidInput;
@@ -138,6 +153,7 @@ function tableCommand(args: ParsedArgs, io: CliIo): number {
         {
           metal,
           weightKg: weightKg ?? null,
+          warnings: weightWarning(weightKg),
           convention: 'pM at pH 7.4, 1 µmol/L total metal, 10 µmol/L total ligand, no precipitation',
           rows: rows.map((row) => ({ ...row, constantSet: setLine(row.pm.setId), pmBasis: pmBasisText(row.pm) })),
           lead: lead.map((row) => ({ ...row, constantSet: setLine(row.setId), pmBasis: pmBasisText(row) })),
@@ -150,7 +166,7 @@ function tableCommand(args: ParsedArgs, io: CliIo): number {
     );
     return exitCodes.ok;
   }
-  io.out([...capacityText(rows, metal, weightKg), '', ...leadText(lead), '', ...competitionText(competition.value), '', decisionSupportCaution].join('\n'));
+  io.out([...weightWarning(weightKg), ...capacityText(rows, metal, weightKg), '', ...leadText(lead), '', ...competitionText(competition.value), '', decisionSupportCaution].join('\n'));
   return exitCodes.ok;
 }
 

@@ -1,18 +1,29 @@
 import { bindingUsage } from './bindingCommand';
 import { calcUsage } from './calcCommand';
 import { calendarUsage } from './calendarCommand';
+import { courseUsage } from './courseCommand';
 import { archiveUsage, recoverUsage, renameUsage } from './caseFileCommands';
 import { doseUsage } from './doseCommand';
+import { addUsage, newUsage } from './editCommands';
 import { explainUsage } from './explainCommand';
+import { importUsage } from './importCommand';
+import { panelUsage } from './panelCommand';
 import { decisionSupportCaution } from './format';
 import { previewUsage } from './previewCommand';
+import { sheetUsage } from './sheetCommand';
 
 /** The commands that keep a detailed usage of their own. */
 const detailedUsages: Readonly<Record<string, string>> = {
   binding: bindingUsage,
   calc: calcUsage,
   calendar: calendarUsage,
+  course: courseUsage,
   dose: doseUsage,
+  new: newUsage,
+  add: addUsage,
+  import: importUsage,
+  panel: panelUsage,
+  sheet: sheetUsage,
   explain: explainUsage,
   preview: previewUsage,
   rename: renameUsage,

@@ -127,9 +127,9 @@ const addKinds: Readonly<Record<string, AddKind>> = {
     list: 'transfusions',
     idPrefix: 't',
     flags: ['--date', '--kind', '--volume-ml', '--unit-haematocrit', '--units', '--method', '--volume-removed-ml', '--patient-haematocrit', '--note'],
-    usage: `  add transfusion <case.json> --date YYYY-MM-DD --volume-ml N [--unit-haematocrit 0.60] [--units N] [--note TEXT]
-  add transfusion <case.json> --kind exchange --method manual|automated --date … --volume-ml N --volume-removed-ml N --patient-haematocrit 0.30 [--unit-haematocrit 0.60] [--units N]
-  add transfusion <case.json> --kind venesection --date … --volume-removed-ml N --patient-haematocrit 0.40
+    usage: `  chelation-ledger add transfusion <case.json> --date YYYY-MM-DD --volume-ml N [--unit-haematocrit 0.60] [--units N] [--note TEXT]
+  chelation-ledger add transfusion <case.json> --kind exchange --method manual|automated --date … --volume-ml N --volume-removed-ml N --patient-haematocrit 0.30 [--unit-haematocrit 0.60] [--units N]
+  chelation-ledger add transfusion <case.json> --kind venesection --date … --volume-removed-ml N --patient-haematocrit 0.40
     Without --unit-haematocrit the product default applies and is shown as assumed.`,
     build: (option) => {
       const kind = option('--kind') ?? 'simple';
@@ -150,8 +150,8 @@ const addKinds: Readonly<Record<string, AddKind>> = {
     list: 'results',
     idPrefix: 'r',
     flags: ['--date', '--kind', '--value', '--unit', '--method', '--field-strength-t', '--calibration', '--note'],
-    usage: `  add result <case.json> --date YYYY-MM-DD --kind ferritin --value N --unit ug/L [--note TEXT]
-  add result <case.json> --date … --kind liver-iron --method mri --value N --unit mg/g{dry} --field-strength-t 1.5 --calibration ID
+    usage: `  chelation-ledger add result <case.json> --date YYYY-MM-DD --kind ferritin --value N --unit ug/L [--note TEXT]
+  chelation-ledger add result <case.json> --date … --kind liver-iron --method mri --value N --unit mg/g{dry} --field-strength-t 1.5 --calibration ID
     Kinds and units are those of the case file (docs/case-file.md); units are UCUM codes.`,
     build: (option) =>
       defined({
@@ -169,7 +169,7 @@ const addKinds: Readonly<Record<string, AddKind>> = {
     list: 'chelationPeriods',
     idPrefix: 'p',
     flags: ['--drug', '--formulation', '--route', '--dose', '--dose-unit', '--administrations-per-day', '--days-per-week', '--start', '--end', '--adherence', '--infusion-hours', '--note'],
-    usage: `  add period <case.json> --drug deferasirox --formulation film-coated-tablet --dose N --dose-unit mg/kg
+    usage: `  chelation-ledger add period <case.json> --drug deferasirox --formulation film-coated-tablet --dose N --dose-unit mg/kg
       --administrations-per-day N --days-per-week N --start YYYY-MM-DD [--end YYYY-MM-DD] [--adherence 0.9] [--route R] [--infusion-hours N]
     The dose is per administration as prescribed; oral drugs take route oral by default.`,
     build: (option) => {
@@ -194,7 +194,7 @@ const addKinds: Readonly<Record<string, AddKind>> = {
     list: 'coMedications',
     idPrefix: 'm',
     flags: ['--name', '--dose', '--dose-unit', '--timing', '--start', '--end', '--note'],
-    usage: `  add comedication <case.json> --name "ascorbic acid" --start YYYY-MM-DD [--end YYYY-MM-DD] [--dose N --dose-unit mg] [--timing daily]
+    usage: `  chelation-ledger add comedication <case.json> --name "ascorbic acid" --start YYYY-MM-DD [--end YYYY-MM-DD] [--dose N --dose-unit mg] [--timing daily]
     The name is the generic name.`,
     build: (option) =>
       defined({

@@ -89,7 +89,12 @@ describe('binding: the capacity and pM table', () => {
 
   it('refuses bad input naming the flag, the value and the range or choices', async () => {
     expect(await cli('binding', '--metal', 'Pb2+')).toMatchObject({ code: 1, err: '--metal: "Pb2+" is not one of Fe3+, Al3+.' });
-    expect(await cli('binding', '--weight-kg', '0')).toMatchObject({ code: 1, err: '--weight-kg: "0" is outside the plausible range 1–250.' });
+    // The case file's weight ranges (core/ranges/plausibleRanges.ts): possible above 0 to 400 kg, plausible 2–200 kg.
+    expect(await cli('binding', '--weight-kg', '0')).toMatchObject({ code: 1, err: '--weight-kg: "0" is not a body weight; enter the weight in kg, above 0 and at most 400 (plausible 2–200).' });
+    expect(await cli('binding', '--weight-kg', '401')).toMatchObject({ code: 1, err: '--weight-kg: "401" is not a body weight; enter the weight in kg, above 0 and at most 400 (plausible 2–200).' });
+    const heavy = await cli('binding', '--weight-kg', '230');
+    expect(heavy.code).toBe(0);
+    expect(heavy.out.split('\n')[0]).toBe('Check the weight: 230.0 kg is outside the plausible 2–200 kg (typed in pounds, or a digit too many?).');
     const unknown = await cli('binding', '--dose', '5');
     expect(unknown.code).toBe(2);
     expect(unknown.err).toContain('--dose: not an option of binding');
