@@ -103,6 +103,18 @@ const importPreviewSchema = z.strictObject({
   rejected: z.array(z.strictObject({ line: z.number().int().positive().nullable(), reason: z.string() })),
   /** What the import understood, to show beside the preview: the column mapping (guessed or given), the date order, the resources read. */
   understood: z.array(z.string()).optional(),
+  /**
+   * For a CSV: its columns in order, each with the field it is read as (null: not read), the fields a
+   * column may be mapped to and those the import needs, for the user to correct the mapping.
+   * Answered also when a required column is missing (then nothing would be added and the refusal is among `rejected`).
+   */
+  csvMapping: z
+    .strictObject({
+      columns: z.array(z.strictObject({ column: z.string(), field: z.string().nullable() })),
+      fields: z.array(z.string()),
+      required: z.array(z.string()),
+    })
+    .optional(),
 });
 
 const emptyRequest = z.strictObject({});

@@ -313,6 +313,38 @@ function unitsUnderstood(kind: CsvKind, read: CellReader, mapping: Readonly<Reco
   ];
 }
 
+/** A CSV file's columns, each with the field it is read as (null: not read), as the app's import screen shows them for correcting. */
+export interface CsvColumnMapping {
+  readonly columns: readonly { readonly column: string; readonly field: string | null }[];
+  readonly fields: readonly string[];
+  readonly required: readonly string[];
+}
+
+/**
+ * The header row of a CSV and the field each column is read as: the given
+ * mapping, the rest guessed from the header words as readCsvImport guesses them.
+ *
+ * @returns the columns, or null when the file has no header row or names a column it does not have
+ */
+export function csvColumnMapping(text: string, kind: CsvKind, given?: Readonly<Record<string, string>>): CsvColumnMapping | null {
+  const first = Papa.parse<string[]>(text.replace(/^\uFEFF/, ''), { header: false, preview: 1 }).data[0];
+  if (!first || (first.length === 1 && first[0]!.trim() === '')) return null;
+  const headers = first.map((cell) => cell.trim());
+  const fields = csvFields[kind];
+  const fieldAt = new Map<number, string>();
+  for (const [field, spec] of Object.entries(fields)) {
+    const named = given?.[field];
+    const index = named !== undefined ? headers.indexOf(named) : headers.findIndex((it, at) => spec.words.includes(squash(it)) && !fieldAt.has(at) && !Object.values(given ?? {}).includes(it));
+    if (named !== undefined && index < 0) return null;
+    if (index >= 0) fieldAt.set(index, field);
+  }
+  return {
+    columns: headers.map((column, index) => ({ column, field: fieldAt.get(index) ?? null })),
+    fields: Object.keys(fields),
+    required: Object.keys(fields).filter((field) => fields[field]!.required),
+  };
+}
+
 /**
  * Read a CSV export into an import plan.
  *

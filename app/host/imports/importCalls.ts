@@ -3,7 +3,7 @@ import { fail, issue, ok, type Issue, type Result } from '../../../core/result';
 import type { CaseStore, OpenedCase } from '../caseStore';
 import { revisionFromToken, revisionToken } from '../revisionToken';
 import { readCodeMap } from './codeMap';
-import { csvFieldsByKind, type CsvKind } from './csvImport';
+import { csvColumnMapping, csvFieldsByKind, type CsvKind } from './csvImport';
 import { commitImport, describeEntry, previewImport, previewRowsShown, type ImportChoices, type ImportPreview } from './importCase';
 import type { Rejected } from './importPlan';
 
@@ -84,10 +84,26 @@ const cautionWarnings = (found: ImportPreview): Issue[] => found.cautions.map((t
  */
 export async function importDryRun(store: CaseStore, request: ImportRequest): Promise<Result<HostValue<'importDryRun'>>> {
   const found = await preview(store, request);
-  if (!found.ok) return found;
+  const csvKind = request.kind === 'fhir-bundle' ? null : csvKindOf[request.kind];
+  const mapping = csvKind === null ? ok(undefined) : fieldMapping(request, csvKind);
+  const columns = csvKind !== null && mapping.ok ? csvColumnMapping(request.sourceText, csvKind, mapping.value) : null;
+  const csvMapping = columns && { columns: columns.columns.map((it) => ({ ...it })), fields: [...columns.fields], required: [...columns.required] };
+  if (!found.ok) {
+    // A CSV whose header row is read but does not map (a required column missing): the columns are
+    // answered with the refusal as a whole-file rejection, so the user can map the columns and try again.
+    if (csvMapping === null || found.issues[0]?.path[0] !== 'sourceText') return found;
+    return ok({
+      counts: { transfusions: 0, results: 0, weights: 0, heights: 0 },
+      firstRows: [],
+      rejected: found.issues.slice(1).map((it) => ({ line: it.path[0] === 'line 1' || it.path[0] === 'columnMapping' ? 1 : null, reason: it.message })),
+      understood: [],
+      csvMapping,
+    });
+  }
   const { preview: previewed } = found.value;
   return ok(
     {
+      ...(csvMapping ? { csvMapping } : {}),
       counts: { ...previewed.counts },
       firstRows: previewed.entries.slice(0, previewRowsShown).map((entry) => `${entry.where}: ${describeEntry(entry)}`),
       rejected: [

@@ -113,7 +113,6 @@ describe('importDryRun through the host contract', () => {
     const before = disk();
     const cases = [
       { kind: 'csv-transfusions', sourceName: 'empty.csv', sourceText: '', expected: /^empty\.csv: nothing was imported/ },
-      { kind: 'csv-results', sourceName: 'odd.csv', sourceText: 'when,what\n2026-01-01,x\n', expected: /^odd\.csv: nothing was imported/ },
       { kind: 'fhir-bundle', sourceName: 'results.csv', sourceText: 'date,test\n', expected: /^results\.csv is not valid JSON/ },
       { kind: 'fhir-bundle', sourceName: 'patient.json', sourceText: '{"resourceType":"Patient"}', expected: /^patient\.json: nothing was imported/ },
     ] as const;
@@ -126,6 +125,44 @@ describe('importDryRun through the host contract', () => {
     }
     const missing = await dispatch('importDryRun', { ...csvRequest, caseId: 'nobody.json' });
     expect(!missing.ok && missing.issues[0]!.message).toContain('nobody.json');
+    expect(disk()).toEqual(before);
+  });
+});
+
+describe('the column mapping a dry run answers for a CSV', () => {
+  it('lists each column with the field it is read as, the fields and those required', async () => {
+    const { dispatch } = setUp();
+    const answer = await dispatch('importDryRun', csvRequest);
+    if (!answer.ok) throw new Error('dry run failed');
+    // The header of transfusionsCsv above, in order; "volume (L)" is read as volume (its unit in brackets).
+    expect((answer.value as { csvMapping: unknown }).csvMapping).toEqual({
+      columns: [
+        { column: 'date', field: 'date' },
+        { column: 'volume (L)', field: 'volume' },
+        { column: 'haematocrit', field: 'haematocrit' },
+        { column: 'units', field: 'units' },
+      ],
+      fields: ['date', 'volume', 'haematocrit', 'units', 'product'],
+      required: ['date', 'volume'],
+    });
+  });
+
+  it('answers the columns when a required one is missing, with the refusal as a whole-file rejection, and a commit is refused', async () => {
+    const { dispatch, disk, revisionOf } = setUp();
+    const before = disk();
+    const request = { caseId, kind: 'csv-results', sourceName: 'odd.csv', sourceText: 'when,what\n2026-01-01,x\n' } as const;
+    const answer = await dispatch('importDryRun', request);
+    expect(answer.ok, JSON.stringify(answer)).toBe(true);
+    if (!answer.ok) return;
+    const value = answer.value as { counts: Record<string, number>; rejected: { line: number | null; reason: string }[]; csvMapping: { columns: unknown[] } };
+    expect(value.counts).toEqual({ transfusions: 0, results: 0, weights: 0, heights: 0 });
+    expect(value.rejected).toEqual([{ line: 1, reason: expect.stringContaining('no column for test, value, unit') }]);
+    expect(value.csvMapping.columns).toEqual([{ column: 'when', field: 'date' }, { column: 'what', field: null }]);
+    // Mapped by the user, the same file is read.
+    const mapped = await dispatch('importDryRun', { ...request, sourceText: 'when,what,reading,uom\n2026-01-01,ferritin,1500,ug/L\n', columnMapping: { what: 'test', reading: 'value', uom: 'unit' } });
+    expect(mapped.ok && (mapped.value as { counts: Record<string, number> }).counts['results']).toBe(1);
+    const commit = await dispatch('importCommit', { ...request, baseRevision: await revisionOf() });
+    expect(!commit.ok && commit.issues[0]!.message).toMatch(/^odd\.csv: nothing was imported/);
     expect(disk()).toEqual(before);
   });
 });
