@@ -1,4 +1,4 @@
-import type { HostApi } from '../core/contract';
+import type { HostApi, HostRequest, HostValue } from '../core/contract';
 import { caseIdSchema } from '../core/contract';
 import { fail, issue, ok, type Result } from '../core/result';
 
@@ -21,6 +21,11 @@ export interface Progress {
   readonly cancelled: () => boolean;
 }
 
+/** An import of records from a file into one case, as the contract's importDryRun takes it (the file's text read in the page). */
+export type RecordImportRequest = HostRequest<'importDryRun'>;
+/** What an import would add: counts, first rows, every rejected row, the column mapping of a CSV. */
+export type RecordImportPreview = HostValue<'importDryRun'>;
+
 export interface WorkspaceHost {
   /** Every case with its document; stops early (returning what it has read) when `progress` says cancelled. */
   listCases(progress?: Progress): Promise<Result<readonly StoredCase[]>>;
@@ -28,6 +33,10 @@ export interface WorkspaceHost {
   createCase(json: unknown): Promise<Result<{ readonly id: string }>>;
   /** A whole case file, as text, added to the workspace under a name from its label. */
   importCase(text: string): Promise<Result<{ readonly id: string }>>;
+  /** What an import would add to a case; nothing is written. */
+  previewRecordImport(request: RecordImportRequest): Promise<Result<RecordImportPreview>>;
+  /** Add an import to a case as it was last opened or saved here; refused when the file changed on disk since. */
+  commitRecordImport(request: RecordImportRequest): Promise<Result<{ readonly counts: Readonly<Record<string, number>> }>>;
   exportSheet(id: string, asOf: string): Promise<Result<{ readonly location: string }>>;
   exportCalendar(id: string, asOf: string): Promise<Result<{ readonly location: string }>>;
   readUnitSystem(): Promise<'si' | 'conventional'>;
@@ -98,6 +107,15 @@ export function workspaceHostOver(api: HostApi): WorkspaceHost {
         return fail(issue('invalid_file', ['file'], 'The file is not JSON: a case file is the JSON this program saves.'));
       }
       return create(json);
+    },
+    previewRecordImport: (request) => api.importDryRun(request),
+    async commitRecordImport(request) {
+      const baseRevision = revisions.get(request.caseId);
+      if (baseRevision === undefined) return fail(issue('host_failed', ['caseId'], `"${request.caseId}" was not opened from this workspace; reopen it.`));
+      const committed = await api.importCommit({ ...request, baseRevision });
+      if (!committed.ok) return committed;
+      revisions.set(request.caseId, committed.value.revision);
+      return ok({ counts: committed.value.counts });
     },
     async exportSheet(id, asOf) {
       const listedSettings = await api.readSettings({});

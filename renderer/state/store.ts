@@ -1,20 +1,52 @@
 import { createStore, type StoreApi } from 'zustand/vanilla';
 import { useStore } from 'zustand';
 import type { MenuCommand } from '../../core/contract/callNames';
+import { importKinds } from '../../core/contract';
 import type { Case } from '../../core/model/caseFile';
 import { formatIssues } from '../../core/result';
-import type { StoredCase, WorkspaceHost } from '../hostPort';
-import { checkDraft, draftFromJson, draftToJson, type Draft, type DraftCheck } from '../viewModels/draftCase';
+import type { RecordImportPreview, RecordImportRequest, StoredCase, WorkspaceHost } from '../hostPort';
+import { checkDraft, draftFromJson, draftToJson, isDraft, type Draft, type DraftCheck } from '../viewModels/draftCase';
+import { importedText, kindForFile, type DateOrder, type ImportKind } from '../viewModels/recordImport';
+import { createKeptDrafts, pageKeptDrafts, type KeptDrafts } from './keptDrafts';
 
 /**
  * The one module that owns the workspace's state (zustand is used here and
  * nowhere else). Views read it through `useWorkspace` and change it only
  * through the intents below; each intent is a small function of the state.
  */
-export const screens = ['cases', 'record', 'iron', 'regimens', 'findings', 'sheet', 'assumptions'] as const;
+export const screens = ['cases', 'record', 'import', 'iron', 'regimens', 'findings', 'sheet', 'assumptions'] as const;
 export type Screen = (typeof screens)[number];
 export type UnitSystem = 'si' | 'conventional';
-export type SaveState = 'saved' | 'saving' | 'unsaved-errors' | 'failed';
+export type SaveState = 'saved' | 'saving' | 'unsaved-errors' | 'failed' | 'unsaved-restored';
+
+/** An import of records from a file into a case: the user's choices, the host's preview, and the work under way. */
+export interface ImportSession {
+  readonly caseId: string | null;
+  readonly kind: ImportKind;
+  readonly fileName: string | null;
+  /** The chosen file's text, read in the page; null before a file is chosen (or when a restored draft was too large to keep it). */
+  readonly fileText: string | null;
+  /** The user's corrections of the column mapping (column → field); null: the host's guesses. */
+  readonly columnMapping: Readonly<Record<string, string>> | null;
+  readonly dateOrder: DateOrder | null;
+  readonly preview: RecordImportPreview | null;
+  readonly previewWarnings: readonly string[];
+  /** Why the host refused the dry run or the commit, in its words. */
+  readonly refusal: string | null;
+  /** A dry run or a commit waiting for the host; Cancel abandons its answer. */
+  readonly pending: { readonly what: 'preview' | 'commit'; readonly label: string } | null;
+}
+
+/** A kept entry put back on screen (a reload or a failed save came between), with a way to discard it. */
+export interface RestoredNotice {
+  readonly what: 'record' | 'import';
+  readonly keptAt: string;
+  /** The stored case changed after the entry was typed: it is not saved over it until the user edits. */
+  readonly storedChanged: boolean;
+}
+
+/** The largest file text an import draft keeps in the browser's storage (about 1 MB of 5 MB per origin; a modelling choice of ours). */
+const keptImportTextLimit = 1_000_000;
 
 const historyLimit = 200;
 
@@ -43,6 +75,8 @@ export interface WorkspaceState {
   readonly openWaiting: boolean;
   /** The workspace folder the host reads, where it has one (null for the in-page store). */
   readonly workspaceFolder: string | null;
+  readonly importSession: ImportSession | null;
+  readonly restored: RestoredNotice | null;
 }
 
 export interface WorkspaceIntents {
@@ -50,7 +84,8 @@ export interface WorkspaceIntents {
   showScreen(screen: Screen): void;
   openCase(id: string): void;
   closeCase(): void;
-  createCase(json: unknown): Promise<void>;
+  /** True when the case was created (and opened). */
+  createCase(json: unknown): Promise<boolean>;
   importCase(text: string): Promise<void>;
   /** Change the draft; recorded for undo and saved when core accepts it. */
   edit(change: (draft: Draft) => Draft): void;
@@ -67,6 +102,18 @@ export interface WorkspaceIntents {
   openRequested(): Promise<void>;
   /** A command from the desktop menu or the main process. */
   hostCommand(command: MenuCommand): void;
+  /** The Import screen, for the given case (else the open one, else the first). */
+  openImport(caseId?: string): void;
+  chooseImportFile(fileName: string, fileText: string): void;
+  setImportChoices(change: Partial<Pick<ImportSession, 'caseId' | 'kind' | 'columnMapping' | 'dateOrder'>>): void;
+  commitImport(): Promise<void>;
+  /** Stop waiting for the dry run or commit under way; its answer is not shown (a commit the host already began may still be written: the case is read again when it answers). */
+  cancelImport(): void;
+  /** Start the import over: the file and choices are dropped (and their kept draft). */
+  clearImport(): void;
+  /** Drop the restored entry: the record goes back to the stored case (undo brings the entry back), an import starts over. */
+  discardRestored(): void;
+  dismissRestored(): void;
 }
 
 export type Workspace = WorkspaceState & WorkspaceIntents;
@@ -91,12 +138,53 @@ const initial: WorkspaceState = {
   busy: null,
   openWaiting: false,
   workspaceFolder: null,
+  importSession: null,
+  restored: null,
 };
 
-/** A new workspace store (one per page; tests make their own). */
-export function createWorkspaceStore(): StoreApi<Workspace> {
+const emptyImport = (caseId: string | null): ImportSession => ({
+  caseId,
+  kind: 'csv-transfusions',
+  fileName: null,
+  fileText: null,
+  columnMapping: null,
+  dateOrder: null,
+  preview: null,
+  previewWarnings: [],
+  refusal: null,
+  pending: null,
+});
+
+interface KeptRecord {
+  readonly draft: Draft;
+  /** The stored case the entry started from, as JSON text: a restore over a changed file is not saved over it unasked. */
+  readonly startedFrom: string;
+}
+const isKeptRecord = (value: unknown): value is KeptRecord =>
+  typeof value === 'object' && value !== null && isDraft((value as KeptRecord).draft) && typeof (value as KeptRecord).startedFrom === 'string';
+
+type KeptImport = Pick<ImportSession, 'caseId' | 'kind' | 'fileName' | 'fileText' | 'columnMapping' | 'dateOrder'>;
+const isKeptImport = (value: unknown): value is KeptImport => {
+  const kept = value as KeptImport;
+  return (
+    typeof value === 'object' && value !== null &&
+    (kept.caseId === null || typeof kept.caseId === 'string') &&
+    (importKinds as readonly string[]).includes(kept.kind) &&
+    (kept.fileName === null || typeof kept.fileName === 'string') &&
+    (kept.fileText === null || typeof kept.fileText === 'string') &&
+    (kept.columnMapping === null || (typeof kept.columnMapping === 'object' && Object.values(kept.columnMapping).every((it) => typeof it === 'string'))) &&
+    (kept.dateOrder === null || kept.dateOrder === 'day-first' || kept.dateOrder === 'month-first')
+  );
+};
+
+/** A new workspace store (one per page; tests make their own, with drafts in memory unless given). */
+export function createWorkspaceStore(drafts: KeptDrafts = createKeptDrafts(null)): StoreApi<Workspace> {
   return createStore<Workspace>()((set, get) => {
     let cancelled = false;
+    /** Which import request's answer is awaited; a newer request or a Cancel makes an older answer stale. */
+    let importTicket = 0;
+    /** The stored case's draft a restored entry replaced: what "Discard it" goes back to. */
+    let beforeRestore: Draft | null = null;
     const begin = (label: string) => {
       cancelled = false;
       set({ busy: { label, done: 0, total: null } });
@@ -125,18 +213,84 @@ export function createWorkspaceStore(): StoreApi<Workspace> {
       const saved = await host.saveCase(openId, json);
       if (get().draft !== draft) return; // a later edit saves itself
       if (saved.ok) {
+        drafts.discard(`record:${openId}`);
         set({ saveState: 'saved', cases: get().cases.map((entry) => (entry.id === openId ? { id: openId, json } : entry)) });
         if (get().openWaiting) void get().openRequested();
       } else {
         set({ saveState: 'failed', message: `Not saved: ${formatIssues(saved.issues)} What you typed is still here.` });
       }
     };
+    /** Keep the open record's draft until a save of it succeeds. */
+    const keepRecord = (draft: Draft) => {
+      const { openId, cases } = get();
+      if (!openId) return;
+      const stored = cases.find((entry) => entry.id === openId);
+      const existing = drafts.read(`record:${openId}`, isKeptRecord);
+      drafts.keep(`record:${openId}`, { draft, startedFrom: existing?.value.startedFrom ?? JSON.stringify(stored?.json ?? null) } satisfies KeptRecord);
+    };
+    const changeDraft = (next: Draft, history: Pick<WorkspaceState, 'past' | 'future'>) => {
+      set({ draft: next, ...history });
+      keepRecord(next);
+      void settle(next);
+    };
     const open = (id: string) => {
       const stored = get().cases.find((entry) => entry.id === id);
       if (!stored) return;
       const draft = draftFromJson(stored.json);
+      const storedText = JSON.stringify(stored.json);
+      const kept = drafts.read(`record:${id}`, isKeptRecord);
       const check = checkDraft(draft);
-      set({ openId: id, draft, check, accepted: check.caseFile, past: [], future: [], saveState: 'saved', screen: 'record', lastExport: null });
+      set({ openId: id, draft, check, accepted: check.caseFile, past: [], future: [], saveState: 'saved', screen: 'record', lastExport: null, restored: null });
+      if (!kept) return;
+      if (JSON.stringify(draftToJson(kept.value.draft)) === storedText) {
+        drafts.discard(`record:${id}`);
+        return;
+      }
+      // The entry typed before a reload or a failed save: back on screen, the stored case one undo away.
+      const storedChanged = kept.value.startedFrom !== storedText;
+      const restoredCheck = checkDraft(kept.value.draft);
+      beforeRestore = draft;
+      set({ draft: kept.value.draft, check: restoredCheck, accepted: restoredCheck.caseFile ?? check.caseFile, past: [draft], restored: { what: 'record', keptAt: kept.keptAt, storedChanged } });
+      if (storedChanged) set({ saveState: 'unsaved-restored' });
+      else void settle(kept.value.draft);
+    };
+    const keepImport = () => {
+      const session = get().importSession;
+      if (!session) return;
+      const { caseId, kind, fileName, fileText, columnMapping, dateOrder } = session;
+      drafts.keep('import', { caseId, kind, fileName, fileText: fileText !== null && fileText.length <= keptImportTextLimit ? fileText : null, columnMapping, dateOrder } satisfies KeptImport);
+    };
+    const importRequest = (session: ImportSession): RecordImportRequest | null => {
+      if (!session.caseId || session.fileName === null || session.fileText === null) return null;
+      return {
+        caseId: session.caseId,
+        kind: session.kind,
+        sourceName: session.fileName,
+        sourceText: session.fileText,
+        ...(session.columnMapping && session.kind !== 'fhir-bundle' ? { columnMapping: { ...session.columnMapping } } : {}),
+        ...(session.dateOrder && session.kind !== 'fhir-bundle' ? { dateOrder: session.dateOrder } : {}),
+      };
+    };
+    const setSession = (change: Partial<ImportSession>) => {
+      const session = get().importSession;
+      if (session) set({ importSession: { ...session, ...change } });
+    };
+    /** Ask the host what the import would add, for the choices as they stand now. */
+    const runPreview = async () => {
+      const { host, importSession } = get();
+      const request = importSession && importRequest(importSession);
+      if (!host || !request) return;
+      const ticket = (importTicket += 1);
+      setSession({ pending: { what: 'preview', label: `Reading ${request.sourceName}` }, refusal: null });
+      const previewed = await host.previewRecordImport(request);
+      if (ticket !== importTicket) return;
+      if (previewed.ok) setSession({ pending: null, preview: previewed.value, previewWarnings: (previewed.warnings ?? []).map((it) => it.message), refusal: null });
+      else setSession({ pending: null, preview: null, previewWarnings: [], refusal: formatIssues(previewed.issues) });
+    };
+    const changeImport = (change: Partial<ImportSession>) => {
+      setSession({ ...change, preview: null, refusal: null });
+      keepImport();
+      void runPreview();
     };
     const exportWith = async (kind: 'sheet' | 'calendar', asOf: string) => {
       const { host, openId } = get();
@@ -164,17 +318,19 @@ export function createWorkspaceStore(): StoreApi<Workspace> {
       closeCase() {
         set({ openId: null, draft: null, check: null, accepted: null, past: [], future: [], screen: 'cases' });
         if (get().openWaiting) void get().openRequested();
+        set({ openId: null, draft: null, check: null, accepted: null, past: [], future: [], screen: 'cases', restored: null });
       },
       async createCase(json) {
         const host = get().host;
-        if (!host) return;
+        if (!host) return false;
         const created = await host.createCase(json);
         if (!created.ok) {
-          set({ message: `The case was not created: ${formatIssues(created.issues)}` });
-          return;
+          set({ message: `The case was not created: ${formatIssues(created.issues)} What you typed is still in the form.` });
+          return false;
         }
         await refresh();
         open(created.value.id);
+        return true;
       },
       async importCase(text) {
         const host = get().host;
@@ -192,22 +348,19 @@ export function createWorkspaceStore(): StoreApi<Workspace> {
         if (!draft) return;
         const next = change(draft);
         if (next === draft) return;
-        set({ draft: next, past: [...get().past, draft].slice(-historyLimit), future: [] });
-        void settle(next);
+        changeDraft(next, { past: [...get().past, draft].slice(-historyLimit), future: [] });
       },
       undo() {
         const { past, draft, future } = get();
         const previous = past[past.length - 1];
         if (!previous || !draft) return;
-        set({ draft: previous, past: past.slice(0, -1), future: [draft, ...future] });
-        void settle(previous);
+        changeDraft(previous, { past: past.slice(0, -1), future: [draft, ...future] });
       },
       redo() {
         const { past, draft, future } = get();
         const [next, ...rest] = future;
         if (!next || !draft) return;
-        set({ draft: next, past: [...past, draft], future: rest });
-        void settle(next);
+        changeDraft(next, { past: [...past, draft], future: rest });
       },
       setUnitSystem(unitSystem) {
         set({ unitSystem });
@@ -257,12 +410,95 @@ export function createWorkspaceStore(): StoreApi<Workspace> {
           else if (draft && saveState === 'failed') void settle(draft);
         }
       },
+      openImport(caseId) {
+        const { importSession, openId, cases } = get();
+        const target = caseId ?? openId ?? importSession?.caseId ?? cases[0]?.id ?? null;
+        if (importSession) {
+          set({ screen: 'import' });
+          if (caseId && caseId !== importSession.caseId) changeImport({ caseId });
+          return;
+        }
+        const kept = drafts.read('import', isKeptImport);
+        if (kept && (kept.value.fileName !== null || kept.value.columnMapping !== null)) {
+          const keptCase = kept.value.caseId !== null && cases.some((entry) => entry.id === kept.value.caseId) ? kept.value.caseId : target;
+          set({ screen: 'import', importSession: { ...emptyImport(caseId ?? keptCase), ...kept.value, caseId: caseId ?? keptCase }, restored: { what: 'import', keptAt: kept.keptAt, storedChanged: false } });
+          void runPreview();
+          return;
+        }
+        set({ screen: 'import', importSession: emptyImport(target) });
+      },
+      chooseImportFile(fileName, fileText) {
+        const session = get().importSession ?? emptyImport(get().openId);
+        set({ importSession: session });
+        changeImport({ fileName, fileText, kind: kindForFile(fileName, session.kind), columnMapping: null });
+      },
+      setImportChoices(change) {
+        // A new kind reads other fields: the corrections of the old mapping no longer apply.
+        changeImport(change.kind !== undefined && change.kind !== get().importSession?.kind ? { ...change, columnMapping: null } : change);
+      },
+      async commitImport() {
+        const { host, importSession, openId, saveState, cases } = get();
+        const request = importSession && importRequest(importSession);
+        if (!host || !importSession || !request) return;
+        if (request.caseId === openId && saveState !== 'saved') {
+          setSession({ refusal: 'The open record has entries that are not saved yet; correct or undo them in Record first, so that the import does not set them aside.' });
+          return;
+        }
+        const ticket = (importTicket += 1);
+        const label = (cases.find((entry) => entry.id === request.caseId)?.json as { patient?: { label?: string } } | null)?.patient?.label ?? request.caseId;
+        setSession({ pending: { what: 'commit', label: `Adding the import from ${request.sourceName} to ${label}` }, refusal: null });
+        const committed = await host.commitRecordImport(request);
+        const abandoned = ticket !== importTicket;
+        // Whatever was shown, the workspace is read again so that the screens show what is on disk.
+        await refresh();
+        if (committed.ok && request.caseId === get().openId) open(request.caseId);
+        if (abandoned) {
+          if (committed.ok) set({ message: `The import you stopped waiting for was added before it could be stopped: ${importedText(committed.value.counts, request.sourceName, label)}` });
+          return;
+        }
+        if (!committed.ok) {
+          setSession({ pending: null, refusal: formatIssues(committed.issues) });
+          return;
+        }
+        drafts.discard('import');
+        set({ importSession: null, restored: null, message: importedText(committed.value.counts, request.sourceName, label) });
+        if (get().openId !== request.caseId) open(request.caseId);
+        set({ screen: 'record' });
+      },
+      cancelImport() {
+        const pending = get().importSession?.pending;
+        if (!pending) return;
+        importTicket += 1;
+        setSession({ pending: null, refusal: pending.what === 'commit' ? 'No longer waiting for the host. If it had already begun adding the import, the case is read again when it answers.' : null });
+      },
+      clearImport() {
+        importTicket += 1;
+        drafts.discard('import');
+        set({ importSession: emptyImport(get().importSession?.caseId ?? get().openId), restored: get().restored?.what === 'import' ? null : get().restored });
+      },
+      discardRestored() {
+        const restored = get().restored;
+        if (!restored) return;
+        if (restored.what === 'import') {
+          get().clearImport();
+          return;
+        }
+        const { draft, past } = get();
+        set({ restored: null });
+        if (!beforeRestore || !draft) return;
+        const back = beforeRestore;
+        beforeRestore = null;
+        changeDraft(back, { past: [...past, draft].slice(-historyLimit), future: [] });
+      },
+      dismissRestored() {
+        set({ restored: null });
+      },
     };
   });
 }
 
 /** The page's store. */
-export const workspaceStore = createWorkspaceStore();
+export const workspaceStore = createWorkspaceStore(pageKeptDrafts());
 
 /** Read a slice of the workspace in a component. */
 export function useWorkspace<Slice>(select: (state: Workspace) => Slice): Slice {

@@ -32,6 +32,17 @@ export function draftFromJson(json: unknown): Draft {
   return { base, tables };
 }
 
+/** True when a value has a draft's shape (a kept draft read back from the browser's storage). */
+export function isDraft(value: unknown): value is Draft {
+  if (typeof value !== 'object' || value === null) return false;
+  const { base, tables } = value as Partial<Draft>;
+  if (typeof base !== 'object' || base === null || Array.isArray(base) || typeof tables !== 'object' || tables === null) return false;
+  return recordTableIds.every((table) => {
+    const rows = (tables as Record<string, unknown>)[table];
+    return Array.isArray(rows) && rows.every((row: Partial<Row>) => typeof row === 'object' && row !== null && typeof row.id === 'string' && typeof row.cells === 'object' && row.cells !== null && Object.values(row.cells).every((cell) => typeof cell === 'string'));
+  });
+}
+
 /** The case-file JSON a draft stands for (what the store writes when it checks). */
 export function draftToJson(draft: Draft): Record<string, unknown> {
   const json: Record<string, unknown> = { ...draft.base };

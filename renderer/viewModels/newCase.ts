@@ -11,6 +11,16 @@ export interface NewCaseFields {
   readonly weightDate: string;
 }
 
+/** The New case form before anything is typed: weighed today, the first choices. */
+export const emptyNewCaseFields = (today: string): NewCaseFields => ({ label: '', birthDate: '', sexAtBirth: 'female', diagnosisGroup: 'thalassaemia-major', weightKg: '', weightDate: today });
+
+const newCaseFieldKeys = ['label', 'birthDate', 'sexAtBirth', 'diagnosisGroup', 'weightKg', 'weightDate'] as const satisfies readonly (keyof NewCaseFields)[];
+
+/** True when a value has the form's fields, each text (a kept draft read back). */
+export function isNewCaseFields(value: unknown): value is NewCaseFields {
+  return typeof value === 'object' && value !== null && newCaseFieldKeys.every((key) => typeof (value as Record<string, unknown>)[key] === 'string');
+}
+
 /**
  * A new case file from the New case form, checked by core/model: the case
  * JSON, or the issues in the trade's words (the form keeps what was typed).

@@ -4,16 +4,19 @@ import { screens, useWorkspace, workspaceStore, type Screen } from '../state/sto
 import { AssumptionsView } from './AssumptionsView';
 import { CasesView } from './CasesView';
 import { FindingsView } from './FindingsView';
+import { ImportView } from './ImportView';
 import { IronCourseView } from './IronCourseView';
 import { RecordView } from './RecordView';
 import { RegimensView } from './RegimensView';
 import { SheetView } from './SheetView';
 import { AboutDialog } from './AboutDialog';
 import { cautionText } from './cautionText';
+import { RestoredNotice } from './RestoredNotice';
 
 const screenTitles: Readonly<Record<Screen, string>> = {
   cases: 'Cases',
   record: 'Record',
+  import: 'Import',
   iron: 'Iron course',
   regimens: 'Regimens',
   findings: 'Findings',
@@ -26,6 +29,7 @@ const saveStateText = {
   saving: 'Saving…',
   'unsaved-errors': 'Not saved: correct the fields marked below (what you typed is kept)',
   failed: 'Not saved: the store refused the write (what you typed is kept)',
+  'unsaved-restored': 'Not saved: a restored entry; the stored case changed since it was typed (edit to save it, or discard it)',
 } as const;
 
 /** The workspace shell: header with the open case and its saved state, navigation, the caution line, the screen. */
@@ -85,7 +89,7 @@ export function App() {
         <ul>
           {screens.map((id) => (
             <li key={id}>
-              <button type="button" aria-current={screen === id ? 'page' : undefined} disabled={id !== 'cases' && id !== 'assumptions' && !openId} onClick={() => showScreen(id)}>
+              <button type="button" aria-current={screen === id ? 'page' : undefined} disabled={id !== 'cases' && id !== 'assumptions' && id !== 'import' && !openId} onClick={() => (id === 'import' ? workspaceStore.getState().openImport() : showScreen(id))}>
                 {screenTitles[id]}
               </button>
             </li>
@@ -100,8 +104,10 @@ export function App() {
       ) : null}
       <main id="main" ref={mainRef} tabIndex={-1} aria-label={screenTitles[screen]}>
         <h1>{screenTitles[screen]}</h1>
+        <RestoredNotice />
         {screen === 'cases' ? <CasesView /> : null}
         {screen === 'record' ? <RecordView /> : null}
+        {screen === 'import' ? <ImportView /> : null}
         {screen === 'iron' ? <IronCourseView /> : null}
         {screen === 'regimens' ? <RegimensView /> : null}
         {screen === 'findings' ? <FindingsView /> : null}

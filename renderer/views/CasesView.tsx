@@ -4,7 +4,9 @@ import { choiceWords } from '../../core/words';
 import { todayIso } from '../hooks/useReview';
 import { useWorkspace, workspaceStore } from '../state/store';
 import { caseCountText, caseSortKeys, caseSortLabels, caseSummaryLine, visibleCaseLines, type CaseSortKey } from '../viewModels/casesList';
-import { newCaseJson } from '../viewModels/newCase';
+import { emptyNewCaseFields, isNewCaseFields, newCaseJson, type NewCaseFields } from '../viewModels/newCase';
+import { useKeptDraft } from '../hooks/useKeptDraft';
+import { KeptEntryNotice } from './KeptEntryNotice';
 
 /** The workspace's cases with a summary line each; search, sort, new, open, import. */
 export function CasesView() {
@@ -15,7 +17,7 @@ export function CasesView() {
   const today = todayIso();
   const lines = useMemo(() => cases.map((stored) => caseSummaryLine(stored, today)), [cases, today]);
   const shown = visibleCaseLines(lines, search, sortKey);
-  const { openCase, importCase } = workspaceStore.getState();
+  const { openCase, importCase, openImport } = workspaceStore.getState();
   return (
     <>
       <div className="toolbar">
@@ -28,8 +30,9 @@ export function CasesView() {
             {caseSortKeys.map((key) => <option key={key} value={key}>{caseSortLabels[key]}</option>)}
           </select>
         </label>
+        <button type="button" onClick={() => openImport()} disabled={cases.length === 0}>Import records (CSV or FHIR) into a case</button>
         <label className="file-button">
-          Import a case file
+          Add a case file (JSON)
           <input
             type="file"
             accept=".json,application/json"
@@ -70,9 +73,10 @@ export function CasesView() {
 }
 
 function NewCaseForm() {
-  const [fields, setFields] = useState({ label: '', birthDate: '', sexAtBirth: 'female', diagnosisGroup: 'thalassaemia-major', weightKg: '', weightDate: todayIso() as string });
+  const kept = useKeptDraft<NewCaseFields>('new-case', emptyNewCaseFields(todayIso()), isNewCaseFields);
+  const { fields, setFields } = kept;
   const [problems, setProblems] = useState<readonly string[]>([]);
-  const set = (key: keyof typeof fields) => (event: { target: { value: string } }) => setFields({ ...fields, [key]: event.target.value });
+  const set = (key: keyof NewCaseFields) => (event: { target: { value: string } }) => setFields({ ...fields, [key]: event.target.value });
   const submit = async (event: FormEvent) => {
     event.preventDefault();
     const built = newCaseJson(fields);
@@ -81,12 +85,13 @@ function NewCaseForm() {
       return;
     }
     setProblems([]);
-    await workspaceStore.getState().createCase(built.value);
+    if (await workspaceStore.getState().createCase(built.value)) kept.discard();
   };
   return (
     <form className="new-case" onSubmit={submit} aria-labelledby="new-case-title">
       <h2 id="new-case-title">New case</h2>
       <p className="hint">Use a local code as the label (e.g. TH-0417), never a name.</p>
+      {kept.restoredAt ? <KeptEntryNotice what="new case" keptAt={kept.restoredAt} onKeep={kept.dismissNotice} onDiscard={kept.discard} /> : null}
       <div className="form-grid">
         <label>Label <input value={fields.label} onChange={set('label')} required /></label>
         <label>Birth date <input value={fields.birthDate} onChange={set('birthDate')} placeholder="YYYY-MM-DD" /></label>

@@ -9,7 +9,8 @@ export function RecordView() {
   const draft = useWorkspace((state) => state.draft);
   const check = useWorkspace((state) => state.check);
   const unitSystem = useWorkspace((state) => state.unitSystem);
-  const { edit, setUnitSystem } = workspaceStore.getState();
+  const openId = useWorkspace((state) => state.openId);
+  const { edit, setUnitSystem, openImport } = workspaceStore.getState();
   if (!draft) return <p>Open a case first.</p>;
   const preferred = (kind: string) => preferredUnit(unitSystem, kind);
   const intentsOf = (table: RecordTableId): TableIntents => ({
@@ -30,6 +31,7 @@ export function RecordView() {
             </label>
           ))}
         </fieldset>
+        <button type="button" onClick={() => openImport(openId ?? undefined)}>Import records from a file</button>
         <p className="hint">Paste rows from a spreadsheet into any cell: the columns fill from that cell rightwards. Enter moves down a column; Ctrl+Z undoes.</p>
       </div>
       {other.length > 0 ? (

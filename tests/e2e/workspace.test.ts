@@ -253,22 +253,35 @@ describe('accessibility of every screen', { retry: 2 }, () => {
   }, 120_000);
 });
 
+/** The preview server (app/preview) over a fresh copy of the demo workspace, and a page in Chromium on it. */
+async function openPreviewPage(options: { bypassCSP?: boolean } = {}): Promise<{ page: Page; errors: string[]; close: () => Promise<void> }> {
+  const { mkdtempSync } = await import('node:fs');
+  const { tmpdir } = await import('node:os');
+  const { join } = await import('node:path');
+  const { runPreview } = await import('../../app/preview/runPreview');
+  const configFolder = mkdtempSync(join(tmpdir(), 'chelation-ledger-e2e-'));
+  const started = await runPreview({ appName: 'chelation-ledger', appVersion: '0.0.0-test', appFolder: repoRoot, configFolder, rendererFolder: workspace.rendererFolder });
+  if (!started.ok) throw new Error(started.issues.map((it) => it.message).join('; '));
+  const preview = started.value;
+  const context = await browser.newContext({ viewport: { width: 1400, height: 900 }, bypassCSP: options.bypassCSP ?? false });
+  const page = await context.newPage();
+  const errors: string[] = [];
+  page.on('pageerror', (error) => errors.push(error.message));
+  await page.goto(preview.url);
+  return {
+    page,
+    errors,
+    close: async () => {
+      await context.close();
+      await preview.close();
+    },
+  };
+}
+
 describe('through the preview server (app/preview) and the host client (renderer/host)', { retry: 2 }, () => {
   it('lists the demo workspace, opens a case and shows its iron course, with the chart from core', async () => {
-    const { mkdtempSync } = await import('node:fs');
-    const { tmpdir } = await import('node:os');
-    const { join } = await import('node:path');
-    const { runPreview } = await import('../../app/preview/runPreview');
-    const configFolder = mkdtempSync(join(tmpdir(), 'chelation-ledger-e2e-'));
-    const started = await runPreview({ appName: 'chelation-ledger', appVersion: '0.0.0-test', appFolder: repoRoot, configFolder, rendererFolder: workspace.rendererFolder });
-    if (!started.ok) throw new Error(started.issues.map((it) => it.message).join('; '));
-    const preview = started.value;
-    const context = await browser.newContext({ viewport: { width: 1400, height: 900 } });
-    const page = await context.newPage();
-    const errors: string[] = [];
-    page.on('pageerror', (error) => errors.push(error.message));
+    const { page, errors, close } = await openPreviewPage();
     try {
-      await page.goto(preview.url);
       await page.locator('button[aria-label="Open TH-0417"]').click();
       await page.click('nav button:has-text("Iron course")');
       expect(await page.locator('.summary').textContent()).toContain('11.4 mg/g dry weight on 2026-11-17');
@@ -277,8 +290,99 @@ describe('through the preview server (app/preview) and the host client (renderer
       expect(await page.locator('dialog').textContent()).toContain('desktop app or preview server');
       expect(errors).toEqual([]);
     } finally {
-      await context.close();
-      await preview.close();
+      await close();
     }
+  }, 120_000);
+});
+
+describe('importing records through the preview server (app/preview) into the demo case', { retry: 2 }, () => {
+  // Invented exports of our own (scenarios.md §1, TH-0417). Transfusions: line 3 holds a haematocrit of 61,
+  // a percentage in a fraction column, which the import refuses. Results: 04/12/2026 could be 4 December or
+  // 12 April (both parts 12 or less), so it is refused until the day-first choice is made.
+  const transfusionsCsv = 'Date given,Volume (mL),Hct,Units\n2026-11-24,560,0.6,2\n2026-11-25,550,61,2\n2026-11-27,540,0.58,2\n';
+  const resultsCsv = 'Collected,Test,Result,Unit\n04/12/2026,ferritin,2650,ug/L\n2026-11-26,ALT,41,U/L\n';
+
+  it('previews a CSV of transfusions and one of results, lists the refused rows, commits each and shows the record updated; axe finds nothing serious on the Import screen', async () => {
+    // axe is injected into the page, which the page's Content-Security-Policy would refuse.
+    const { page, errors, close } = await openPreviewPage({ bypassCSP: true });
+    try {
+      await page.locator('button[aria-label="Open TH-0417"]').click();
+      await page.click('button:has-text("Import records from a file")');
+      await expect.poll(() => page.locator('h1').textContent()).toBe('Import');
+      expect(await page.locator('.caution').first().textContent()).toContain('for review by the prescriber');
+      await page.setInputFiles('input[type="file"]', { name: 'unit-export.csv', mimeType: 'text/csv', buffer: Buffer.from(transfusionsCsv) });
+      await expect.poll(() => page.locator('.import-adds').textContent()).toBe('Would add 2 transfusions.');
+      expect(await page.locator('.import-refused tbody tr').count()).toBe(1);
+      expect(await page.locator('.import-refused tbody tr').first().textContent()).toMatch(/^line 3.*haematocrit 61 looks like a percentage/);
+      expect(await page.locator('select[aria-label=\'Column "Hct" is read as\']').inputValue()).toBe('haematocrit');
+      await page.screenshot({ path: `${artifactsDir}import.png`, fullPage: true });
+      const results = await new AxeBuilder({ page }).options({ resultTypes: ['violations'] }).withTags(['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa', 'wcag22aa']).analyze();
+      expect(results.violations.filter((it) => it.impact === 'serious' || it.impact === 'critical').map((it) => `${it.id}: ${it.nodes.map((node) => node.target.join(' ')).join('; ')}`)).toEqual([]);
+      await page.click('button:has-text("Add to TH-0417")');
+      await expect.poll(() => page.locator('h1').textContent()).toBe('Record');
+      expect(await page.locator('.message').textContent()).toContain('Added 2 transfusions from unit-export.csv to TH-0417.');
+      const transfusionDates = await page.locator('.record-table').first().locator('input[aria-label^="Date, row"]').evaluateAll((inputs) => inputs.map((it) => (it as HTMLInputElement).value));
+      expect(transfusionDates).toEqual(expect.arrayContaining(['2026-11-24', '2026-11-27']));
+      expect(transfusionDates).not.toContain('2026-11-25');
+
+      // The results file, by keyboard where a user would: the kind and the date order are radio choices.
+      await page.click('button:has-text("Import records from a file")');
+      await page.locator('input[name="import-kind"][value="csv-results"]').focus();
+      await page.keyboard.press('Space');
+      await page.setInputFiles('input[type="file"]', { name: 'lab-export.csv', mimeType: 'text/csv', buffer: Buffer.from(resultsCsv) });
+      await expect.poll(() => page.locator('.import-refused tbody tr').first().textContent()).toMatch(/^line 2.*could be day-first or month-first/);
+      await expect.poll(() => page.locator('.import-adds').textContent()).toBe('Would add 1 result.');
+      await page.locator('label:has-text("day first") input').focus();
+      await page.keyboard.press('Space');
+      await expect.poll(() => page.locator('.import-adds').textContent()).toBe('Would add 2 results.');
+      expect(await page.locator('.import-rows').textContent()).toContain('2026-12-04 ferritin 2650 ug/L');
+      await page.locator('button:has-text("Add to TH-0417")').focus();
+      await page.keyboard.press('Enter');
+      await expect.poll(() => page.locator('h1').textContent()).toBe('Record');
+      expect(await page.locator('.message').textContent()).toContain('Added 2 results from lab-export.csv to TH-0417.');
+      const resultDates = await page.locator('.record-table').nth(1).locator('input[aria-label^="Date, row"]').evaluateAll((inputs) => inputs.map((it) => (it as HTMLInputElement).value));
+      expect(resultDates).toEqual(expect.arrayContaining(['2026-12-04', '2026-11-26']));
+      expect(errors).toEqual([]);
+    } finally {
+      await close();
+    }
+  }, 180_000);
+});
+
+describe('kept drafts', { retry: 2 }, () => {
+  it('keeps a new case being typed and a record entry core refuses across a reload, says so, and discards on request', async () => {
+    const { context, page, errors } = await openPage({ 'th-0417.json': demo });
+    await page.fill('label:has-text("Label") input', 'ZZ-0002');
+    await page.fill('label:has-text("Weight, kg") input', '38');
+    await page.reload();
+    await page.locator('table.cases').waitFor();
+    await expect.poll(() => page.locator('.new-case .restored-notice').textContent()).toContain('Unsaved entry restored');
+    expect(await page.locator('label:has-text("Label") input').inputValue()).toBe('ZZ-0002');
+    expect(await page.locator('label:has-text("Weight, kg") input').inputValue()).toBe('38');
+    await page.screenshot({ path: `${artifactsDir}kept-new-case.png` });
+    await page.click('.new-case button:has-text("Discard it")');
+    expect(await page.locator('label:has-text("Label") input').inputValue()).toBe('');
+    expect(await page.locator('.new-case .restored-notice').count()).toBe(0);
+
+    // A haematocrit typed as a percentage: core refuses it, so it is not saved; the reload keeps it.
+    await page.click('button[aria-label="Open TH-0417"]');
+    // The latest transfusion (the table shows the latest rows).
+    const cell = `input[aria-label="${await page.locator('.record-table').first().locator('input[aria-label^="Unit haematocrit, row"]').last().getAttribute('aria-label')}"]`;
+    const stored = await page.locator(cell).inputValue();
+    await page.fill(cell, '62');
+    await expect.poll(() => savedState(page).textContent()).toContain('Not saved');
+    await page.reload();
+    await page.locator('button[aria-label="Open TH-0417"]').click();
+    await expect.poll(() => page.locator('.restored-notice').textContent()).toContain('Unsaved entry restored');
+    expect(await page.locator(cell).inputValue()).toBe('62');
+    await page.screenshot({ path: `${artifactsDir}kept-record.png` });
+    await page.click('.restored-notice button:has-text("Discard it")');
+    await expect.poll(() => page.locator(cell).inputValue()).toBe(stored);
+    await expect.poll(() => savedState(page).textContent()).toBe('All changes saved');
+    await page.reload();
+    await page.locator('button[aria-label="Open TH-0417"]').click();
+    expect(await page.locator('.restored-notice').count()).toBe(0);
+    expect(errors).toEqual([]);
+    await context.close();
   }, 120_000);
 });
