@@ -25,9 +25,12 @@ export interface MonthOfAccount {
   /**
    * Estimated body iron stores at the end of the month, mg: anchored to the
    * latest measured LIC (Angelucci relation) and carried forward by the net
-   * balance; null before the first LIC on record. Not clamped at zero: a
-   * negative estimate means the expected removal exceeds what the record
-   * supports, and the caller says so.
+   * balance; between two measured LICs the gap between the carried balance
+   * and the next measurement is spread evenly over the days between them, so
+   * the estimate meets every measurement; after the last, carried forward
+   * only. Null before the first LIC on record. Not clamped at zero: a
+   * negative estimate after the last measurement means the expected removal
+   * exceeds what the record supports, and the caller says so.
    */
   readonly bodyIronMg: number | null;
   /** Estimated LIC at the end of the month, mg/g dry; null before the first LIC. */
@@ -122,6 +125,9 @@ export function computeIronAccount(input: LedgerInput): IronAccount {
   }
 
   const months: MonthOfAccount[] = [];
+  const monthLastIndex: number[] = [];
+  /** Each measurement day with the stores it sets and the balance carried to it from the one before. */
+  const meetings: { readonly index: number; readonly anchoredMg: number; readonly carriedMg: number | null }[] = [];
   let bodyIronMg: number | null = null;
   for (let monthFirstIndex = 0; monthFirstIndex < dayCount; ) {
     const monthFirstDay = isoFromEpochDay(firstEpochDay + monthFirstIndex);
@@ -145,12 +151,15 @@ export function computeIronAccount(input: LedgerInput): IronAccount {
       if (measured) {
         const meanLic = measured.reduce((sum, value) => sum + value, 0) / measured.length;
         // The measurement describes the end of its day: it replaces the running estimate.
+        const carriedMg: number | null = bodyIronMg;
         bodyIronMg = angelucciSlopeMgPerKgPerMgPerGDry * meanLic * daily.weightKg[index]!;
+        meetings.push({ index, anchoredMg: bodyIronMg, carriedMg });
         const date = isoFromEpochDay(firstEpochDay + index);
         for (const value of measured) measuredLic.push({ date, licMgPerGDry: value });
       }
     }
     const lastIndex = nextMonthIndex - 1;
+    monthLastIndex.push(lastIndex);
     const weightKg = daily.weightKg[lastIndex]!;
     months.push({
       month: monthKey(monthFirstDay),
@@ -173,7 +182,7 @@ export function computeIronAccount(input: LedgerInput): IronAccount {
   return {
     firstDay,
     lastDay: input.asOf,
-    months,
+    months: meetEachMeasurement(months, monthLastIndex, meetings),
     bodyIronAtAsOfMg: bodyIronMg,
     licAtAsOfMgPerGDry: bodyIronMg === null ? null : bodyIronMg / (angelucciSlopeMgPerKgPerMgPerGDry * weightAtAsOf),
     daily,
@@ -212,4 +221,35 @@ export function sumDaily(series: Float64Array, fromIndex: number, toIndex: numbe
   let total = 0;
   for (let index = Math.max(0, fromIndex); index <= Math.min(series.length - 1, toIndex); index += 1) total += series[index]!;
   return total;
+}
+
+/**
+ * The month-end estimates between two measured LICs, moved so that they meet
+ * the later one: the gap between the balance carried to that day and what it
+ * measured is spread evenly over the days since the earlier measurement (a
+ * modelling choice of ours: the record says the stores got there, not when
+ * the difference arose). The flows are untouched, so the months still add up
+ * to the record; only the estimate line changes, and only between
+ * measurements.
+ */
+function meetEachMeasurement(
+  months: readonly MonthOfAccount[],
+  monthLastIndex: readonly number[],
+  meetings: readonly { readonly index: number; readonly anchoredMg: number; readonly carriedMg: number | null }[],
+): MonthOfAccount[] {
+  const moved = [...months];
+  for (let meeting = 1; meeting < meetings.length; meeting += 1) {
+    const from = meetings[meeting - 1]!.index;
+    const { index: to, anchoredMg, carriedMg } = meetings[meeting]!;
+    if (carriedMg === null || to <= from) continue;
+    const gapMg = anchoredMg - carriedMg;
+    for (let month = 0; month < moved.length; month += 1) {
+      const last = monthLastIndex[month]!;
+      const entry = moved[month]!;
+      if (last < from || last >= to || entry.bodyIronMg === null) continue;
+      const bodyIronMg = entry.bodyIronMg + (gapMg * (last - from)) / (to - from);
+      moved[month] = { ...entry, bodyIronMg, licEstimateMgPerGDry: bodyIronMg / (angelucciSlopeMgPerKgPerMgPerGDry * entry.weightKg) };
+    }
+  }
+  return moved;
 }

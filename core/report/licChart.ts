@@ -85,7 +85,7 @@ export function licChart(results: LicChartResults, options: LicChartOptions = {}
     .map((month) => ({ at: month.lastDay, value: month.licEstimateMgPerGDry! }));
   const plotted: PlottedSeries[] = [
     { id: 'measured', label: 'measured LIC', unit: 'mg/g{dry}', drawnAs: 'dots', points: measured },
-    { id: 'estimate', label: 'ledger estimate (month end, carried forward from the last measured LIC)', unit: 'mg/g{dry}', drawnAs: 'solid line, restarting at each measured LIC', points: estimate },
+    { id: 'estimate', label: 'ledger estimate (month end): the balance carried from each measured LIC, meeting the next one; after the last, carried forward', unit: 'mg/g{dry}', drawnAs: 'solid line, restarting at each measured LIC', points: estimate },
     ...scenarios.map((scenario, index) => ({
       id: `projection:${scenario.id}`,
       label: `projection, ${scenario.name} (band: 10th–90th percentile)`,
@@ -248,7 +248,7 @@ export function licChart(results: LicChartResults, options: LicChartOptions = {}
   const legendTop = bottom + margin.bottom + 4;
   const legendEntries: { sample: string; text: string }[] = [
     { sample: element('circle', { cx: 9, cy: -2.5, r: 2.6, fill: chartStyle.ink }), text: 'measured LIC' },
-    { sample: element('line', { x1: 0, x2: 18, y1: -2.5, y2: -2.5, stroke: chartStyle.ink, 'stroke-width': 1.4 }), text: 'ledger estimate, carried forward from the last measured LIC' },
+    { sample: element('line', { x1: 0, x2: 18, y1: -2.5, y2: -2.5, stroke: chartStyle.ink, 'stroke-width': 1.4 }), text: 'ledger estimate, carried from each measured LIC to meet the next' },
     ...scenarios.map((scenario, index) => ({
       sample: element('line', { x1: 0, x2: 18, y1: -2.5, y2: -2.5, stroke: chartStyle.ink, 'stroke-width': 1.2, 'stroke-dasharray': scenarioDash(index) }),
       text: `${scenarioMark(index)}: ${scenario.name} (${scenario.efficiencyBasis} efficiency); shaded: 10th–90th percentile`,

@@ -40,6 +40,31 @@ describe('iron account', () => {
     expect(account.licAtAsOfMgPerGDry).toBeCloseTo((5300 - 31) / 530, 9);
   });
 
+  it('between two measured LICs the estimate meets the later one: the gap is spread evenly over the days between them', () => {
+    // Hand arithmetic with the Angelucci relation (stores = 10.6 × LIC × weight, N Engl J Med 2000;343:327):
+    // LIC 10 on 2026-01-01 at 50 kg → 5,300 mg; 1 mg/day basal loss and nothing else carries 5,300 − 90 = 5,210 mg
+    // to 2026-04-01 (day 90), but LIC 12 is measured there → 6,360 mg: a gap of +1,150 mg over 90 days.
+    // Month ends: 2026-01-31 is day 30 → 5,300 − 30 + 1,150 × 30/90 = 5,653.33 mg (LIC 10.667);
+    // 2026-02-28 is day 58 → 5,300 − 58 + 1,150 × 58/90 = 5,983.11 mg; 2026-03-31 is day 89 → 5,211 + 1,137.22 = 6,348.22 mg.
+    const account = computeIronAccount({
+      ...base,
+      asOf: '2026-04-30',
+      licMeasurements: [
+        { date: '2026-01-01', licMgPerGDry: 10, method: 'biopsy', ref: 'r1' },
+        { date: '2026-04-01', licMgPerGDry: 12, method: 'biopsy', ref: 'r2' },
+      ],
+    });
+    const byMonth = Object.fromEntries(account.months.map((it) => [it.month, it]));
+    expect(byMonth['2026-01']!.bodyIronMg).toBeCloseTo(5300 - 30 + (1150 * 30) / 90, 6);
+    expect(byMonth['2026-01']!.licEstimateMgPerGDry).toBeCloseTo((5300 - 30 + (1150 * 30) / 90) / 530, 9);
+    expect(byMonth['2026-02']!.bodyIronMg).toBeCloseTo(5300 - 58 + (1150 * 58) / 90, 6);
+    expect(byMonth['2026-03']!.bodyIronMg).toBeCloseTo(5300 - 89 + (1150 * 89) / 90, 6);
+    // After the last measurement: carried forward only (29 days of basal loss from 6,360 mg).
+    expect(byMonth['2026-04']!.bodyIronMg).toBeCloseTo(6360 - 29, 6);
+    // The flows are untouched.
+    expect(account.months.reduce((sum, it) => sum + it.netMg, 0)).toBeCloseTo(-(31 + 28 + 31 + 30), 9);
+  });
+
   it('sums of the months equal the sums of the records (property, fast-check)', () => {
     fc.assert(
       fc.property(
