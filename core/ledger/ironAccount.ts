@@ -238,18 +238,18 @@ function meetEachMeasurement(
   meetings: readonly { readonly index: number; readonly anchoredMg: number; readonly carriedMg: number | null }[],
 ): MonthOfAccount[] {
   const moved = [...months];
-  for (let meeting = 1; meeting < meetings.length; meeting += 1) {
-    const from = meetings[meeting - 1]!.index;
-    const { index: to, anchoredMg, carriedMg } = meetings[meeting]!;
-    if (carriedMg === null || to <= from) continue;
-    const gapMg = anchoredMg - carriedMg;
-    for (let month = 0; month < moved.length; month += 1) {
-      const last = monthLastIndex[month]!;
-      const entry = moved[month]!;
-      if (last < from || last >= to || entry.bodyIronMg === null) continue;
-      const bodyIronMg = entry.bodyIronMg + (gapMg * (last - from)) / (to - from);
-      moved[month] = { ...entry, bodyIronMg, licEstimateMgPerGDry: bodyIronMg / (angelucciSlopeMgPerKgPerMgPerGDry * entry.weightKg) };
-    }
+  // One pass: months and measurements are both in day order; `next` is the first measurement after the month's end.
+  let next = 0;
+  for (let month = 0; month < moved.length; month += 1) {
+    const last = monthLastIndex[month]!;
+    while (next < meetings.length && meetings[next]!.index <= last) next += 1;
+    const entry = moved[month]!;
+    if (next === 0 || next === meetings.length || entry.bodyIronMg === null) continue;
+    const from = meetings[next - 1]!.index;
+    const { index: to, anchoredMg, carriedMg } = meetings[next]!;
+    if (carriedMg === null) continue;
+    const bodyIronMg = entry.bodyIronMg + ((anchoredMg - carriedMg) * (last - from)) / (to - from);
+    moved[month] = { ...entry, bodyIronMg, licEstimateMgPerGDry: bodyIronMg / (angelucciSlopeMgPerKgPerMgPerGDry * entry.weightKg) };
   }
   return moved;
 }

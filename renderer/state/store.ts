@@ -142,6 +142,9 @@ const initial: WorkspaceState = {
   restored: null,
 };
 
+/** The workspace with no case open (closing a case; another folder's case asked for). */
+const noCaseOpen = { openId: null, draft: null, check: null, accepted: null, past: [], future: [], screen: 'cases', restored: null } as const satisfies Partial<WorkspaceState>;
+
 const emptyImport = (caseId: string | null): ImportSession => ({
   caseId,
   kind: 'csv-transfusions',
@@ -316,9 +319,8 @@ export function createWorkspaceStore(drafts: KeptDrafts = createKeptDrafts(null)
       },
       openCase: open,
       closeCase() {
-        set({ openId: null, draft: null, check: null, accepted: null, past: [], future: [], screen: 'cases' });
+        set(noCaseOpen);
         if (get().openWaiting) void get().openRequested();
-        set({ openId: null, draft: null, check: null, accepted: null, past: [], future: [], screen: 'cases', restored: null });
       },
       async createCase(json) {
         const host = get().host;
@@ -394,7 +396,7 @@ export function createWorkspaceStore(drafts: KeptDrafts = createKeptDrafts(null)
         if (taken.value === null) return;
         const { id, folder } = taken.value;
         // The host's workspace is now the file's folder: the open case (saved) belonged to the old one.
-        set({ openId: null, draft: null, check: null, accepted: null, past: [], future: [], screen: 'cases', workspaceFolder: folder });
+        set({ ...noCaseOpen, workspaceFolder: folder });
         await refresh();
         if (get().cases.some((entry) => entry.id === id)) open(id);
         else set({ message: `${id} was not found in ${folder}; the cases of that folder are listed.` });
