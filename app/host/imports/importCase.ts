@@ -69,10 +69,18 @@ export interface ImportPreview {
 /** An id not used in the case: 'imp-<date>', then '-2', '-3'. */
 function idMaker(caseFile: Case): (date: string) => string {
   const used = new Set<string>([...caseFile.transfusions.map((it) => it.id), ...caseFile.results.map((it) => it.id)]);
+  // The next suffix to try per date: every id below it is taken (used only grows), so an
+  // import of many rows on one date does not test the same taken ids again for each row.
+  const nextSuffix = new Map<string, number>();
   return (date) => {
-    let id = `imp-${date}`;
-    for (let n = 2; used.has(id); n += 1) id = `imp-${date}-${n}`;
+    let suffix = nextSuffix.get(date) ?? 1;
+    let id = suffix === 1 ? `imp-${date}` : `imp-${date}-${suffix}`;
+    while (used.has(id)) {
+      suffix += 1;
+      id = `imp-${date}-${suffix}`;
+    }
     used.add(id);
+    nextSuffix.set(date, suffix + 1);
     return id;
   };
 }
@@ -89,17 +97,24 @@ function merged(caseFile: Case, entries: readonly ProposedEntry[]): Record<strin
   };
 }
 
-/** Where a merged-case issue points back to a proposed entry: its list and its index past the case's own entries. */
-function entryOfIssue(caseFile: Case, entries: readonly ProposedEntry[], problem: Issue): ProposedEntry | undefined {
-  const [first, second, third] = problem.path;
-  const lists: Record<string, number> = { transfusions: caseFile.transfusions.length, results: caseFile.results.length };
-  if (typeof first === 'string' && first in lists && typeof second === 'number') {
-    return entries.filter((it) => it.list === first)[second - lists[first]!];
+/**
+ * Where a merged-case issue points back to a proposed entry: its list and its index past the
+ * case's own entries. The proposed entries are split by list once, not once per issue.
+ */
+function entryFinder(caseFile: Case, entries: readonly ProposedEntry[]): (problem: Issue) => ProposedEntry | undefined {
+  const byList = new Map<ProposedEntry['list'], ProposedEntry[]>();
+  for (const entry of entries) {
+    const list = byList.get(entry.list);
+    if (list) list.push(entry);
+    else byList.set(entry.list, [entry]);
   }
-  if (first === 'patient' && (second === 'weights' || second === 'heights') && typeof third === 'number') {
-    return entries.filter((it) => it.list === second)[third - caseFile.patient[second].length];
-  }
-  return undefined;
+  const own: Record<string, number> = { transfusions: caseFile.transfusions.length, results: caseFile.results.length };
+  return (problem) => {
+    const [first, second, third] = problem.path;
+    if ((first === 'transfusions' || first === 'results') && typeof second === 'number') return byList.get(first)?.[second - own[first]!];
+    if (first === 'patient' && (second === 'weights' || second === 'heights') && typeof third === 'number') return byList.get(second)?.[third - caseFile.patient[second].length];
+    return undefined;
+  };
 }
 
 /**
@@ -114,8 +129,9 @@ function screen(caseFile: Case, plan: ImportPlan): { entries: ProposedEntry[]; r
     if (parsed.ok) return { entries, rejected, other: [] };
     const refused = new Set<ProposedEntry>();
     const other: Issue[] = [];
+    const entryOfIssue = entryFinder(caseFile, entries);
     for (const problem of parsed.issues) {
-      const entry = entryOfIssue(caseFile, entries, problem);
+      const entry = entryOfIssue(problem);
       if (entry) {
         const column = typeof problem.path[2] === 'string' ? entry.columns?.[problem.path[2]] : undefined;
         if (!refused.has(entry)) rejected.push({ where: entry.where, reason: column === undefined ? problem.message : `column "${column.slice(0, 60)}": ${problem.message}` });

@@ -203,6 +203,29 @@ describe('import command', () => {
     expect(saved.transfusions.at(-1)).toMatchObject({ id: 'imp-2026-11-25', date: '2026-11-25', volume: { value: 560, unit: 'mL' } });
   });
 
+  it('gives rows on one date ids in turn past the ones taken, and names every refused row of a long file by its line', async () => {
+    const folder = tempDir();
+    const casePath = join(folder, 'th-0417.json');
+    copyFileSync(demoCase('th-0417'), casePath);
+    // A first import takes 'imp-2026-11-25'; the second import's three rows on that date follow it.
+    const firstPath = join(folder, 'first.csv');
+    writeFileSync(firstPath, 'date,volume,haematocrit,units\n2026-11-25,560,0.6,2\n');
+    expect((await cli('import', firstPath, '--into', casePath)).code).toBe(0);
+    const secondPath = join(folder, 'second.csv');
+    writeFileSync(secondPath, 'date,volume,haematocrit,units\n2026-11-25,550,0.6,2\n2026-11-25,540,0.6,2\n2026-11-25,530,0.6,2\n');
+    expect((await cli('import', secondPath, '--into', casePath)).code).toBe(0);
+    const saved = JSON.parse(readFileSync(casePath, 'utf8')) as { transfusions: { id: string }[] };
+    expect(saved.transfusions.slice(-4).map((it) => it.id)).toEqual(['imp-2026-11-25', 'imp-2026-11-25-2', 'imp-2026-11-25-3', 'imp-2026-11-25-4']);
+    // 3,000 rows before the demo's birth date (2011-06-14) and one after: each refused row is
+    // reported once with its own line (the screen once matched issues to rows quadratically).
+    const longPath = join(folder, 'long.csv');
+    writeFileSync(longPath, `date,volume,haematocrit,units\n${'2010-01-01,550,0.6,2\n'.repeat(3000)}2026-11-27,550,0.6,2\n`);
+    const dry = await cli('import', longPath, '--into', casePath, '--dry-run');
+    expect(dry.out).toContain('Would add: 1 transfusion(s)');
+    const refusedLines = [...dry.out.matchAll(/line (\d+): column "date": transfusions\[\d+\]\.date 2010-01-01 is before the birth date/g)].map((it) => Number(it[1]));
+    expect(refusedLines).toEqual(Array.from({ length: 3000 }, (_, index) => index + 2));
+  });
+
   it('adds the flag that makes a choice the host names in words, and prints each place once', async () => {
     const folder = tempDir();
     const casePath = join(folder, 'th-0417.json');
