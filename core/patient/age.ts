@@ -1,20 +1,23 @@
-import { addDays, addYears, differenceInCalendarDays, differenceInYears } from 'date-fns';
 import { fail, issue, ok, type Result } from '../result';
 import type { Years } from '../units/quantity';
 import { oldestAgeYears } from './ageRanges';
-import { parseCalendarDate } from './calendarDate';
+import { readCalendarDay, type CalendarDay } from './calendarDate';
 
 interface BirthAndReview {
-  readonly birth: Date;
-  readonly review: Date;
+  readonly birth: CalendarDay;
+  readonly review: CalendarDay;
   readonly wholeYears: number;
 }
 
+const millisecondsInDay = 86_400_000;
+
+const isLeapYear = (year: number): boolean => (year % 4 === 0 && year % 100 !== 0) || year % 400 === 0;
+
 function readBirthAndReview(birthDate: string, reviewDate: string): Result<BirthAndReview> {
-  const birth = parseCalendarDate(birthDate, 'birthDate', 'birth date');
-  const review = parseCalendarDate(reviewDate, 'reviewDate', 'review date');
+  const birth = readCalendarDay(birthDate, 'birthDate', 'birth date');
+  const review = readCalendarDay(reviewDate, 'reviewDate', 'review date');
   if (!birth.ok || !review.ok) return fail(...(birth.ok ? [] : birth.issues), ...(review.ok ? [] : review.issues));
-  if (review.value < birth.value) {
+  if (review.value.epochDay < birth.value.epochDay) {
     return fail(
       issue(
         'inconsistent',
@@ -23,8 +26,12 @@ function readBirthAndReview(birthDate: string, reviewDate: string): Result<Birth
       ),
     );
   }
-  // date-fns counts a year complete on the anniversary; a 29 February birth completes it on 1 March of a common year.
-  const wholeYears = differenceInYears(review.value, birth.value);
+  // A year is complete on the anniversary of month and day (a 29 February birth completes it on
+  // 1 March of a common year): the rule of date-fns' differenceInYears, which the tests compare with.
+  const { year: birthYear, month: birthMonth, day: birthDay } = birth.value;
+  const { year, month, day } = review.value;
+  const beforeAnniversary = month < birthMonth || (month === birthMonth && day < birthDay);
+  const wholeYears = year - birthYear - (beforeAnniversary ? 1 : 0);
   if (wholeYears > oldestAgeYears) {
     return fail(
       issue(
@@ -38,16 +45,16 @@ function readBirthAndReview(birthDate: string, reviewDate: string): Result<Birth
 }
 
 /**
- * The birthday on which a person completes a given year of age. A 29 February
- * birth has its birthday on 1 March in a common year ('leap-day-birthday',
- * common practice; the rule date-fns differenceInYears follows), so this stays
- * consistent with {@link ageInWholeYears}.
+ * The day number of the birthday on which a person completes a given year of
+ * age. A 29 February birth has its birthday on 1 March in a common year
+ * ('leap-day-birthday', common practice; the rule date-fns' addYears plus one
+ * day gives), so this stays consistent with {@link ageInWholeYears}.
  */
-function birthdayAtAge(birth: Date, ageYears: number): Date {
-  const anniversary = addYears(birth, ageYears);
-  const bornOnLeapDay = birth.getMonth() === 1 && birth.getDate() === 29;
-  // addYears clamps 29 February to 28 February in a common year.
-  return bornOnLeapDay && anniversary.getDate() === 28 ? addDays(anniversary, 1) : anniversary;
+function birthdayAtAge(birth: CalendarDay, ageYears: number): number {
+  const year = birth.year + ageYears;
+  const bornOnLeapDay = birth.month === 2 && birth.day === 29;
+  const [month, day] = bornOnLeapDay && !isLeapYear(year) ? [3, 1] : [birth.month, birth.day];
+  return Date.UTC(year, month - 1, day) / millisecondsInDay;
 }
 
 /**
@@ -81,7 +88,7 @@ export function ageInDecimalYears(birthDate: string, reviewDate: string): Result
   const { birth, review, wholeYears } = read.value;
   const lastBirthday = birthdayAtAge(birth, wholeYears);
   const nextBirthday = birthdayAtAge(birth, wholeYears + 1);
-  const daysSinceBirthday = differenceInCalendarDays(review, lastBirthday);
-  const daysInYearOfAge = differenceInCalendarDays(nextBirthday, lastBirthday);
+  const daysSinceBirthday = review.epochDay - lastBirthday;
+  const daysInYearOfAge = nextBirthday - lastBirthday;
   return ok((wholeYears + daysSinceBirthday / daysInYearOfAge) as Years);
 }

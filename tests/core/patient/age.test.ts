@@ -1,7 +1,9 @@
+import { UTCDate } from '@date-fns/utc';
+import { addDays, addYears, differenceInCalendarDays, differenceInYears } from 'date-fns';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { ageInDecimalYears, ageInWholeYears } from '../../../core/patient/age';
-import { parseCalendarDate } from '../../../core/patient/calendarDate';
+import { readCalendarDay } from '../../../core/patient/calendarDate';
 
 /**
  * Julian Day Number of a Gregorian date by the integer algorithm of Fliegel and
@@ -130,6 +132,65 @@ describe('age in decimal years', () => {
   });
 });
 
+/**
+ * Age the way date-fns computes it over @date-fns/utc's UTCDate (differenceInYears,
+ * addYears clamping 29 February to the 28th, then one day on; differenceInCalendarDays):
+ * a general reference library, and the way this module computed it before it was
+ * written out as day numbers. The results must be the same numbers, bit for bit.
+ */
+function dateFnsAge(birthIso: string, reviewIso: string): { whole: number; decimal: number } {
+  const utc = (text: string) => new UTCDate(Number(text.slice(0, 4)), Number(text.slice(5, 7)) - 1, Number(text.slice(8, 10)));
+  const birth = utc(birthIso);
+  const review = utc(reviewIso);
+  const whole = differenceInYears(review, birth);
+  const birthday = (age: number) => {
+    const anniversary = addYears(birth, age);
+    return birth.getMonth() === 1 && birth.getDate() === 29 && anniversary.getDate() === 28 ? addDays(anniversary, 1) : anniversary;
+  };
+  const last = birthday(whole);
+  return { whole, decimal: whole + differenceInCalendarDays(review, last) / differenceInCalendarDays(birthday(whole + 1), last) };
+}
+
+describe('age against date-fns (general reference library)', () => {
+  const day = fc.integer({ min: Date.UTC(1900, 0, 1) / 86_400_000, max: Date.UTC(2100, 11, 31) / 86_400_000 });
+  const isoOfDay = (epochDay: number) => new Date(epochDay * 86_400_000).toISOString().slice(0, 10);
+
+  it('gives exactly the same whole and decimal years on random pairs of days 1900–2100 (fast-check)', () => {
+    fc.assert(
+      fc.property(day, fc.integer({ min: 0, max: 120 * 365 }), (birthDay, daysLater) => {
+        const birth = isoOfDay(birthDay);
+        const review = isoOfDay(birthDay + daysLater);
+        const expected = dateFnsAge(birth, review);
+        if (expected.whole > 120) return;
+        expect(value(ageInWholeYears(birth, review))).toBe(expected.whole);
+        expect(value(ageInDecimalYears(birth, review))).toBe(expected.decimal);
+      }),
+      { numRuns: 3000, seed: 20261202 },
+    );
+  });
+
+  it('gives exactly the same on and around every leap day and year end of 1988–2104, for births on those days', () => {
+    const births: string[] = [];
+    for (let year = 1988; year <= 2104; year += 4) births.push(`${year}-02-28`, `${year}-02-29`, `${year}-03-01`, `${year}-12-31`, `${year + 1}-01-01`);
+    const valid = births.filter((text) => readCalendarDay(text, 'birthDate', 'birth date').ok);
+    // 2100 is not a leap year (Gregorian rule): its 29 February is no date and is left out; 2000 is one.
+    expect(valid).not.toContain('2100-02-29');
+    expect(valid).toContain('2000-02-29');
+    let checked = 0;
+    for (const birth of valid) {
+      for (const review of valid) {
+        if (review < birth) continue;
+        const expected = dateFnsAge(birth, review);
+        if (expected.whole > 120) continue;
+        expect(value(ageInWholeYears(birth, review)), `${birth} → ${review}`).toBe(expected.whole);
+        expect(value(ageInDecimalYears(birth, review)), `${birth} → ${review}`).toBe(expected.decimal);
+        checked += 1;
+      }
+    }
+    expect(checked).toBeGreaterThan(5_000);
+  });
+});
+
 describe('date refusals', () => {
   it('refuses a date that is not on the calendar, naming the field and the value', () => {
     expect(ageInWholeYears('2021-02-30', '2026-01-01')).toEqual({
@@ -147,7 +208,7 @@ describe('date refusals', () => {
 
   it('refuses other spellings of a date: day first, no zero padding, a time part', () => {
     for (const text of ['15/06/2011', '2011-6-15', '2011-06-15T00:00', '', '2021-13-01']) {
-      const result = parseCalendarDate(text, 'reviewDate', 'review date');
+      const result = readCalendarDay(text, 'reviewDate', 'review date');
       expect(result.ok, text).toBe(false);
       if (result.ok) continue;
       expect(result.issues[0]).toMatchObject({ code: 'invalid_date', path: ['reviewDate'] });
