@@ -1,10 +1,10 @@
 /**
  * Workspace figures: a folder of 1,000 generated case files (invented patients
  * "WS-0001"… built from the demo TH-0417 with their record, weights and doses
- * varied) opened, validated, computed and ranked by `chelation-ledger panel`,
- * the same path the Cases screen's ranking takes (app/host's case store and
- * core/panel). Measured as a whole command in a child process, with its peak
- * resident memory.
+ * varied) opened, validated, computed and ranked by `chelation-ledger panel`
+ * (app/host/workspaceReview.ts over the case store and core/panel, one thread
+ * per core). Measured as a whole command in a child process, with its peak
+ * resident memory (worker threads included: they share the process).
  */
 import { spawnSync } from 'node:child_process';
 import { mkdirSync, readFileSync, writeFileSync } from 'node:fs';

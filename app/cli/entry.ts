@@ -1,10 +1,11 @@
 import { writeCalendarOutput } from '../host/icalendar';
 import { readCaseFile } from '../host/caseFiles';
-import { homedir } from 'node:os';
+import { availableParallelism, homedir } from 'node:os';
 import { join } from 'node:path';
 import { openCaseStore } from '../host/caseStore';
 import { readTextFile } from '../host/textFiles';
 import { userConfigFolder } from '../host/userFolders';
+import { workspaceWorkersFrom } from '../host/workspaceReview';
 import { runPreview } from '../preview/runPreview';
 import { runAtBoundary } from './boundary';
 import { runCli, type CliHostIo } from './main';
@@ -36,6 +37,8 @@ const io: CliHostIo = {
     return runPreview({ appName: name, appVersion: version, appFolder, configFolder: userConfigFolder(process.env, process.platform, homedir()), ...options });
   },
   openStore: (folder) => openCaseStore(folder),
+  // One thread per core for a workspace review (CHELATION_LEDGER_WORKERS overrides); the worker script is built beside dist/cli.cjs.
+  workspaceWorkers: () => workspaceWorkersFrom(process.env, availableParallelism(), join(__dirname, 'workspaceWorker.cjs')),
 };
 
 void runAtBoundary(process.argv.slice(2), io, (argv) => runCli(argv, io)).then((code) => {

@@ -10,7 +10,7 @@ import { explainCommand } from './explainCommand';
 import { doseCommand } from './doseCommand';
 import { addCommand, newCommand, type StoreIo } from './editCommands';
 import { archiveCommand, recoverCommand, renameCommand } from './caseFileCommands';
-import { panelCommand } from './panelCommand';
+import { panelCommand, type PanelIo } from './panelCommand';
 import { importCommand } from './importCommand';
 import { findingsCommand } from './findingsCommand';
 import { previewCommand, type PreviewHostIo } from './previewCommand';
@@ -62,7 +62,7 @@ ${calcUsage}
 ${decisionSupportCaution}`;
 
 /** Everything the host hands the command line: streams, the case reader, the clock, file reading and writing. */
-export type CliHostIo = CaseIo & CalendarHostIo & TextIo & PreviewHostIo & CourseHostIo & Partial<SheetHostIo> & StoreIo;
+export type CliHostIo = CaseIo & CalendarHostIo & TextIo & PreviewHostIo & CourseHostIo & Partial<SheetHostIo> & StoreIo & PanelIo;
 
 /** A subcommand: parsed arguments and the host io in, the exit code out (it may be async). */
 export type Command = (args: ParsedArgs, io: CliHostIo) => number | Promise<number>;

@@ -1,6 +1,7 @@
 import { isIsoDate } from '../../core/dates/isoDate';
-import { rankPanel, type PanelEntry, type PanelRow, type PanelTier } from '../../core/panel';
-import { fail, formatIssues } from '../../core/result';
+import type { PanelRow, PanelTier } from '../../core/panel';
+import { formatIssues, type Result } from '../../core/result';
+import { reviewWorkspace, type WorkspaceWorkers } from '../host/workspaceReview';
 import type { ParsedArgs } from './args';
 import type { StoreIo } from './editCommands';
 import { decisionSupportCaution, formatNumber } from './format';
@@ -35,8 +36,13 @@ function rowText(row: PanelRow, index: number): string {
   ].join('\n');
 }
 
-/** `panel <folder> [--as-of DATE] [--json]`: every case reviewed and ranked by urgency (core/panel). */
-export async function panelCommand(args: ParsedArgs, io: CliIo & StoreIo): Promise<number> {
+/** The threads a workspace review may use (the process boundary reads them from the environment); absent: this thread alone. */
+export interface PanelIo {
+  readonly workspaceWorkers?: () => Result<WorkspaceWorkers>;
+}
+
+/** `panel <folder> [--as-of DATE] [--json]`: every case reviewed and ranked by urgency (core/panel, through app/host/workspaceReview.ts). */
+export async function panelCommand(args: ParsedArgs, io: CliIo & StoreIo & PanelIo): Promise<number> {
   if (args.switches.has('--help')) {
     io.out(panelUsage);
     return exitCodes.ok;
@@ -56,18 +62,18 @@ export async function panelCommand(args: ParsedArgs, io: CliIo & StoreIo): Promi
     io.err(problems.join('\n'));
     return exitCodes.usage;
   }
-  const store = io.openStore(folder);
-  // Each case is read and validated once, then reviewed (list() would read every file a second time).
-  const every = await store.openAll();
-  if (!every.ok) {
-    io.err(formatIssues(every.issues));
+  const workers = io.workspaceWorkers?.() ?? null;
+  if (workers !== null && !workers.ok) {
+    io.err(formatIssues(workers.issues));
+    return exitCodes.usage;
+  }
+  // Each case is read and validated once, then reviewed, shared over one thread per core.
+  const reviewed = await reviewWorkspace(io.openStore(folder), { ...(asOf === undefined ? {} : { asOf }), today: io.today(), workers: workers?.value ?? null });
+  if (!reviewed.ok) {
+    io.err(formatIssues(reviewed.issues));
     return exitCodes.invalidInput;
   }
-  const entries: PanelEntry[] = every.value.map(({ fileName, opened }) => ({
-    fileName,
-    loaded: opened.ok ? { ok: true, value: opened.value.caseFile } : fail(...opened.issues.filter((it) => it.severity === 'error')),
-  }));
-  const panel = rankPanel(entries, { ...(asOf === undefined ? {} : { asOf }), today: io.today() });
+  const panel = reviewed.value.review;
   if (args.switches.has('--json')) {
     io.out(JSON.stringify({ caution: decisionSupportCaution, folder, ...panel }, null, 2));
     return exitCodes.ok;

@@ -4,6 +4,7 @@ import { caseFileFormat, currentCaseFileVersion, type Case } from '../../core/mo
 import { parseCase } from '../../core/model/parseCase';
 import { fail, issue, ok, type Issue, type Result } from '../../core/result';
 import { describeFsError, isTemporaryFileName, nodeAtomicWriteFs, sweepTemporaryFiles, syncFolder, writeFileAtomic, type AtomicWriteFs } from './atomicWrite';
+import { boundedMap } from './boundedMap';
 import { caseJsonFromText } from './caseFiles';
 import { decodeTextBytes } from './textFiles';
 import { appendJournal, contentHash, journalEntries, journalNameFor, readJournal, type JournalEntry, type JournalLine } from './caseJournal';
@@ -107,6 +108,8 @@ export interface CaseStore {
   open(fileName: string): Promise<Result<OpenedCase>>;
   /** Every case of the folder opened once (the files list() summarises, in the same order), for a review of the whole workspace. */
   openAll(): Promise<Result<readonly { readonly fileName: string; readonly opened: Result<OpenedCase> }[]>>;
+  /** The names of the case files openAll opens, sorted (after the same sweep of old temporary files); nothing is opened. */
+  caseFileNames(): Promise<Result<readonly string[]>>;
   /** Write a new case file; refused with 'already_exists' if the name is taken. */
   create(fileName: string, caseFile: unknown, change: string): Promise<Result<OpenedCase>>;
   /** Replace a case with a new state; refused if the file changed since `expected`, or if the state has errors. */
@@ -133,6 +136,9 @@ export interface CaseStoreOptions {
   /** File-system writes; tests inject a full disk or a read-only folder. */
   readonly fs?: AtomicWriteFs;
 }
+
+/** How many case files are read at once when the whole folder is opened (a modelling choice of ours: enough to keep a disk or a share busy, few enough for any file-handle limit). */
+export const openAheadFiles = 8;
 
 const absentRevision: DiskRevision = { mtimeMs: 0, size: 0, sha256: '' };
 
@@ -349,7 +355,7 @@ export function openCaseStore(folder: string, options: CaseStoreOptions = {}): C
   }
 
 
-  async function openAll(): Promise<Result<readonly { readonly fileName: string; readonly opened: Result<OpenedCase> }[]>> {
+  async function caseFileNames(): Promise<Result<readonly string[]>> {
     let names: string[];
     try {
       await sweepTemporaryFiles(folder, now().getTime(), fs);
@@ -357,10 +363,14 @@ export function openCaseStore(folder: string, options: CaseStoreOptions = {}): C
     } catch (error) {
       return fail(issue('invalid_file', [], `Cannot list the workspace folder ${folder}: ${describeFsError(error)}.`));
     }
-    const caseNames = names.filter((name) => /\.json$/i.test(name) && !name.startsWith('.') && !isTemporaryFileName(name)).sort();
-    const every: { readonly fileName: string; readonly opened: Result<OpenedCase> }[] = [];
-    for (const fileName of caseNames) every.push({ fileName, opened: await open(fileName) });
-    return ok(every);
+    return ok(names.filter((name) => /\.json$/i.test(name) && !name.startsWith('.') && !isTemporaryFileName(name)).sort());
+  }
+
+  async function openAll(): Promise<Result<readonly { readonly fileName: string; readonly opened: Result<OpenedCase> }[]>> {
+    const names = await caseFileNames();
+    if (!names.ok) return names;
+    // A few files read at once, so the disk (or the network share) works while the files already read are validated.
+    return ok(await boundedMap(names.value, openAheadFiles, async (fileName) => ({ fileName, opened: await open(fileName) })));
   }
 
   return {
@@ -392,6 +402,8 @@ export function openCaseStore(folder: string, options: CaseStoreOptions = {}): C
     },
 
     openAll,
+
+    caseFileNames,
 
     async openArchived() {
       const archiveFolder = join(folder, 'archive');

@@ -8,8 +8,11 @@ import { evaluateFindings, severities, type Severity } from '../safety';
 /**
  * Panel review across a workspace: every case reviewed on its date and ranked
  * by how soon it asks for the pharmacist's attention. The command line's
- * `panel` and the workspace's Cases screen call this one function, so they
- * rank alike. Descriptive only: a rank orders the reviews, it decides nothing.
+ * `panel` reviews each case with reviewPanelEntry (in worker threads,
+ * app/host/workspaceReview.ts) and ranks them all with rankOutcomes; rankPanel
+ * is the two in one thread. (The workspace's Cases screen reviews each case in
+ * the renderer, renderer/viewModels/casesList.ts, and sorts by its own keys.)
+ * Descriptive only: a rank orders the reviews, it decides nothing.
  */
 
 /** Why a case sits where it does, most pressing first (a modelling choice of ours, following the issue's order). */
@@ -72,7 +75,22 @@ const panelBandSamples = 50;
 
 const severityRank = (severity: Severity) => severities.indexOf(severity);
 
-function reviewOne(entry: PanelEntry, options: PanelOptions): PanelRow | PanelProblem {
+/** A case's place in the panel: a row to rank, or why it could not be reviewed. */
+export type PanelOutcome = PanelRow | PanelProblem;
+
+/** True for a reviewed case (a row to rank), false for one listed as not reviewed. */
+export const isPanelRow = (outcome: PanelOutcome): outcome is PanelRow => 'tier' in outcome;
+
+/**
+ * Review one case of a workspace on its date: the per-case half of
+ * {@link rankPanel}, which a host may run for many cases at once (app/host/workspaceReview.ts
+ * runs it in worker threads) before {@link rankOutcomes} ranks them all.
+ *
+ * @param entry - the case file's name and its parse result
+ * @param options - one review date for all (`asOf`), or each case's own review date, else `today`
+ * @returns the case's row, or the case with the issues that kept it from being reviewed
+ */
+export function reviewPanelEntry(entry: PanelEntry, options: PanelOptions): PanelOutcome {
   if (!entry.loaded.ok) return { fileName: entry.fileName, label: null, issues: entry.loaded.issues.filter((it) => it.severity === 'error') };
   const caseFile = entry.loaded.value;
   const label = caseFile.patient.label;
@@ -149,12 +167,23 @@ export function comparePanelRows(a: PanelRow, b: PanelRow): number {
  *   === 'urgent-finding' (TH-0417 has an urgent finding on its review date 2026-11-20)
  */
 export function rankPanel(entries: readonly PanelEntry[], options: PanelOptions): PanelReview {
+  return rankOutcomes(entries.map((entry) => reviewPanelEntry(entry, options)));
+}
+
+/**
+ * Rank reviewed cases: the ranking half of {@link rankPanel}. The order is
+ * total (it ends on the file name, unique in a folder), so it does not depend
+ * on the order the outcomes arrive in.
+ *
+ * @param outcomes - one per case, from {@link reviewPanelEntry}, in any order
+ * @returns the rows most pressing first, and the cases not reviewed in file-name order
+ */
+export function rankOutcomes(outcomes: readonly PanelOutcome[]): PanelReview {
   const rows: PanelRow[] = [];
   const notReviewed: PanelProblem[] = [];
-  for (const entry of entries) {
-    const reviewed = reviewOne(entry, options);
-    if ('tier' in reviewed) rows.push(reviewed);
-    else notReviewed.push(reviewed);
+  for (const outcome of outcomes) {
+    if (isPanelRow(outcome)) rows.push(outcome);
+    else notReviewed.push(outcome);
   }
   return {
     rows: rows.sort(comparePanelRows),
