@@ -1,9 +1,8 @@
 import type { IsoDate } from '../dates/isoDate';
 import { computeCase } from '../ledger/computeCase';
 import type { Case } from '../model/caseFile';
-import { monitoringCalendar } from '../monitoring';
 import type { Issue, Result } from '../result';
-import { evaluateFindings, severities, type Severity } from '../safety';
+import { findingsWithMonitoring, severities, type Severity } from '../safety';
 
 /**
  * Panel review across a workspace: every case reviewed on its date and ranked
@@ -97,16 +96,16 @@ export function reviewPanelEntry(entry: PanelEntry, options: PanelOptions): Pane
   const asOf = options.asOf ?? caseFile.review.reviewDate ?? options.today;
   const computed = computeCase(caseFile, asOf, { samples: panelBandSamples });
   if (!computed.ok) return { fileName: entry.fileName, label, issues: computed.issues };
-  const findings = evaluateFindings(caseFile, computed.value, asOf, caseFile.thresholdOverrides);
-  if (!findings.ok) return { fileName: entry.fileName, label, issues: findings.issues };
-  const calendar = monitoringCalendar(caseFile, asOf);
-  if (!calendar.ok) return { fileName: entry.fileName, label, issues: calendar.issues };
+  // The findings with the monitoring calendar their rules read: the case's own overrides, the calendar's default too.
+  const evaluated = findingsWithMonitoring(caseFile, computed.value, asOf, caseFile.thresholdOverrides);
+  if (!evaluated.ok) return { fileName: entry.fileName, label, issues: evaluated.issues };
+  const { findings, monitoring } = evaluated.value;
 
   const counts = { urgent: 0, review: 0, information: 0 };
-  for (const finding of findings.value) counts[finding.severity] += 1;
-  const mostSevere = [...findings.value].sort((a, b) => severityRank(a.severity) - severityRank(b.severity))[0];
-  const overdue = calendar.value.items.filter((item) => item.overdue);
-  const next = [...calendar.value.items].sort((a, b) => b.daysOverdue - a.daysOverdue || a.dueDate.localeCompare(b.dueDate))[0];
+  for (const finding of findings) counts[finding.severity] += 1;
+  const mostSevere = [...findings].sort((a, b) => severityRank(a.severity) - severityRank(b.severity))[0];
+  const overdue = monitoring.items.filter((item) => item.overdue);
+  const next = [...monitoring.items].sort((a, b) => b.daysOverdue - a.daysOverdue || a.dueDate.localeCompare(b.dueDate))[0];
   const projectedNet = computed.value.projection?.scenarios[0]?.netMgPerKgPerDay ?? null;
   const tier: PanelTier =
     counts.urgent > 0

@@ -2,7 +2,7 @@ import type { IsoDate } from '../dates/isoDate';
 import type { CaseResults } from '../ledger/computeCase';
 import type { Case } from '../model/caseFile';
 import { ok, type Result } from '../result';
-import { safetyContext } from './context';
+import { safetyContext, type SafetyContext } from './context';
 import type { SafetyRule } from './rule';
 import { safetyRules } from './rules';
 import { anySourceUncertain, checkThresholdOverrides, type ThresholdOverrides } from '../thresholds';
@@ -30,13 +30,24 @@ import { severities, type Finding } from './types';
  * @example evaluateFindings(md1102, results, '2026-11-20') → ok([…, { ruleId: 'deferasirox-egfr', severity: 'review',
  *   text: 'Deferasirox with eGFR 49.1 mL/min/1.73 m² (CKD-EPI 2021, 2026-11-10): in the 40–60 band, …' }, …])
  */
-export function evaluateFindings(
+export function evaluateFindings(...args: Parameters<typeof findingsWithMonitoring>): Result<readonly Finding[]> {
+  const evaluated = findingsWithMonitoring(...args);
+  return evaluated.ok ? ok(evaluated.value.findings) : evaluated;
+}
+
+/**
+ * {@link evaluateFindings} with the monitoring calendar the rules read
+ * (core/monitoring monitoringCalendar on the same date, with the same
+ * overrides), for a caller that shows both (the panel) without computing the
+ * calendar twice. Parameters as for evaluateFindings.
+ */
+export function findingsWithMonitoring(
   caseFile: Case,
   results: CaseResults,
   asOf: IsoDate,
   thresholds: ThresholdOverrides = {},
   rules: readonly SafetyRule[] = safetyRules,
-): Result<readonly Finding[]> {
+): Result<{ readonly findings: readonly Finding[]; readonly monitoring: SafetyContext['monitoring'] }> {
   const checked = checkThresholdOverrides(thresholds);
   if (!checked.ok) return checked;
   const context = safetyContext(caseFile, results, asOf, checked.value);
@@ -58,5 +69,5 @@ export function evaluateFindings(
   );
   const rank = (finding: Finding) => severities.indexOf(finding.severity);
   // Array.prototype.sort is stable (ES2019): rules keep their order within a severity.
-  return ok([...findings].sort((first, second) => rank(first) - rank(second)));
+  return ok({ findings: [...findings].sort((first, second) => rank(first) - rank(second)), monitoring: context.monitoring });
 }

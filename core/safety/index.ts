@@ -6,5 +6,5 @@ export * from './types';
 export * from '../thresholds';
 export type { SafetyRule } from './rule';
 export { safetyRules } from './rules';
-export { evaluateFindings } from './evaluateFindings';
+export { evaluateFindings, findingsWithMonitoring } from './evaluateFindings';
 export { continuousRunStart } from '../model/continuousRunStart';
