@@ -65,12 +65,16 @@ export interface PanelOptions {
 }
 
 /**
- * The panel shows no band (only the central projected balance, which does not
- * depend on the sampling), so each case is computed with the fewest samples the
- * projection accepts (core/ledger/projection.ts) rather than the review's 500:
- * a modelling choice of ours that keeps a clinic's workspace quick to rank.
+ * The panel shows no band and no month ahead: only the net balance of the
+ * current regimen on the review date (which depends neither on the sampling nor
+ * on the horizon) and the findings (whose rules read the review date's figures,
+ * never a projected month's). So each case is computed with the fewest samples
+ * the projection accepts (core/ledger/projection.ts) rather than the review's
+ * 500, over a horizon of one month rather than 24: a modelling choice of ours
+ * that keeps a clinic's workspace quick to rank, and changes nothing the panel
+ * shows (tests/core/panel checks its rows against the full review's).
  */
-const panelBandSamples = 50;
+const panelCompute = { samples: 50, horizonMonths: 1 } as const;
 
 const severityRank = (severity: Severity) => severities.indexOf(severity);
 
@@ -94,7 +98,7 @@ export function reviewPanelEntry(entry: PanelEntry, options: PanelOptions): Pane
   const caseFile = entry.loaded.value;
   const label = caseFile.patient.label;
   const asOf = options.asOf ?? caseFile.review.reviewDate ?? options.today;
-  const computed = computeCase(caseFile, asOf, { samples: panelBandSamples });
+  const computed = computeCase(caseFile, asOf, panelCompute);
   if (!computed.ok) return { fileName: entry.fileName, label, issues: computed.issues };
   // The findings with the monitoring calendar their rules read: the case's own overrides, the calendar's default too.
   const evaluated = findingsWithMonitoring(caseFile, computed.value, asOf, caseFile.thresholdOverrides);

@@ -6,6 +6,8 @@ import { deepFreeze, readDemo } from '../model/caseFixtures';
 import { addDaysIso } from '../../../core/dates';
 import { monitoringCalendar } from '../../../core/monitoring';
 import { findingsFor, ofRule, parsed, period, result, reviewDate, smallCase } from '../safety/safetyCases';
+import { computeCase } from '../../../core/ledger/computeCase';
+import { findingsWithMonitoring } from '../../../core/safety';
 
 // The tiers follow the order the issue sets (urgent findings, overdue
 // monitoring, positive projected balance); the findings and due dates behind
@@ -121,4 +123,41 @@ describe('rankPanel: next monitoring follows the case’s local-protocol ANC int
     expect(anc!.overdue).toBe(false);
     expect(row!.overdueMonitoringCount).toBe(0);
   });
+});
+
+describe('rankPanel: computed with a short projection, its rows are those of the full review', () => {
+  // The panel computes each case over one month with 50 draws (a modelling choice, rankPanel.ts); what it
+  // shows must not depend on that: the same net balance, intake, finding counts and most severe finding as
+  // the review's own computeCase (24 months, 500 draws) and findings give, for every demo and scenario case.
+  const cases: [string, unknown][] = [
+    ['th-0417.json', readDemo('th-0417')],
+    ['th-0093.json', readDemo('th-0093')],
+    ['urgent.json', urgent],
+    ['overdue.json', overdue],
+    ['accumulating.json', accumulating],
+  ];
+  for (const [fileName, json] of cases) {
+    it(fileName, () => {
+      const loaded = parseCase(json);
+      if (!loaded.ok) throw new Error(`${fileName} does not parse`);
+      const [row] = rankPanel([{ fileName, loaded }], { today: '2030-01-01' }).rows;
+      const asOf = row!.asOf;
+      const full = computeCase(loaded.value, asOf);
+      if (!full.ok) throw new Error(`${fileName} does not compute`);
+      const evaluated = findingsWithMonitoring(loaded.value, full.value, asOf, loaded.value.thresholdOverrides);
+      if (!evaluated.ok) throw new Error(`${fileName} findings do not evaluate`);
+      const findings = evaluated.value.findings;
+      expect(row!.projectedNetMgPerKgPerDay).toBe(full.value.projection?.scenarios[0]?.netMgPerKgPerDay ?? null);
+      expect(row!.trailingIntakeMgPerKgPerDay).toBe(full.value.intake.mgPerKgPerDay);
+      expect(row!.findingCounts).toEqual({
+        urgent: findings.filter((it) => it.severity === 'urgent').length,
+        review: findings.filter((it) => it.severity === 'review').length,
+        information: findings.filter((it) => it.severity === 'information').length,
+      });
+      // The first finding of the most severe severity present (the rules' order within one).
+      const first = (['urgent', 'review', 'information'] as const).map((severity) => findings.find((it) => it.severity === severity)).find((it) => it !== undefined);
+      expect(row!.mostSevereFinding).toEqual(first ? { severity: first.severity, title: first.title, ruleId: first.ruleId } : null);
+      expect(row!.overdueMonitoringCount).toBe(evaluated.value.monitoring.items.filter((item) => item.overdue).length);
+    });
+  }
 });
