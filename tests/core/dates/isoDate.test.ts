@@ -60,4 +60,17 @@ describe('epoch days', () => {
       expect(epochDayFromIso(iso) - start).toBe(daysBetween('2024-01-01', iso));
     }
   });
+
+  it('names the same day as the platform Date (toISOString) for every day 1900–2100, every 7th day of years 0000–9999, and outside them', async () => {
+    // The reference is ECMAScript's own proleptic Gregorian calendar (ECMA-262 §21.4.1, Date.prototype.toISOString).
+    const { isoFromEpochDay } = await import('../../../core/dates');
+    const byDate = (day: number) => new Date(day * 86_400_000).toISOString().slice(0, 10);
+    const mismatches: number[] = [];
+    for (let day = -25_567; day <= 47_482; day += 1) if (isoFromEpochDay(day) !== byDate(day)) mismatches.push(day);
+    for (let day = -719_528; day <= 2_932_896; day += 7) if (isoFromEpochDay(day) !== byDate(day)) mismatches.push(day);
+    for (const day of [-719_529, -719_528, 2_932_896, 2_932_897, 1.5, -0.5]) if (isoFromEpochDay(day) !== byDate(day)) mismatches.push(day);
+    expect(mismatches).toEqual([]);
+    expect(isoFromEpochDay(-719_528)).toBe('0000-01-01');
+    expect(isoFromEpochDay(2_932_896)).toBe('9999-12-31');
+  });
 });
