@@ -77,9 +77,11 @@ export function App() {
             <span className="case-label">{label}</span>
             <span>review date {reviewDate ?? 'today'}</span>
             <span className={`save-state save-${saveState}`} role="status">{saveStateText[saveState]}</span>
-            <button type="button" onClick={undo} disabled={!canUndo} aria-keyshortcuts="Control+Z">Undo</button>
-            <button type="button" onClick={redo} disabled={!canRedo} aria-keyshortcuts="Control+Y">Redo</button>
-            <button type="button" onClick={closeCase}>Close case</button>
+            <span className="case-actions">
+              <button type="button" onClick={undo} disabled={!canUndo} aria-keyshortcuts="Control+Z">Undo</button>
+              <button type="button" onClick={redo} disabled={!canRedo} aria-keyshortcuts="Control+Y">Redo</button>
+              <button type="button" onClick={closeCase}>Close case</button>
+            </span>
           </div>
         ) : null}
         <button type="button" className="about-button" onClick={() => setAboutOpen(true)}>About</button>
