@@ -134,6 +134,19 @@ const millisecondsInDay = 86_400_000;
  * @example epochDayFromIso('1970-01-02') === 1
  */
 export function epochDayFromIso(date: IsoDate): number {
+  // 'YYYY-MM-DD' with years 0100–9999 by the calendar's arithmetic (H. Hinnant, days_from_civil, 2013),
+  // as for isoFromEpochDay; any other text through Date.UTC, which also reads years 0–99 as 19xx.
+  const year = date.length === 10 && date.charCodeAt(4) === hyphen && date.charCodeAt(7) === hyphen ? digitsAt(date, 0, 4) : -1;
+  const month = year >= 100 ? digitsAt(date, 5, 7) : -1;
+  const day = month >= 1 && month <= 12 ? digitsAt(date, 8, 10) : -1;
+  if (day >= 1 && day <= 31) {
+    const marchYear = month <= 2 ? year - 1 : year;
+    const era = Math.floor(marchYear / 400);
+    const yearOfEra = marchYear - era * 400;
+    const dayOfYear = Math.floor((153 * (month > 2 ? month - 3 : month + 9) + 2) / 5) + day - 1;
+    const dayOfEra = yearOfEra * 365 + Math.floor(yearOfEra / 4) - Math.floor(yearOfEra / 100) + dayOfYear;
+    return era * 146_097 + dayOfEra - 719_468;
+  }
   return Date.UTC(Number(date.slice(0, 4)), Number(date.slice(5, 7)) - 1, Number(date.slice(8, 10))) / millisecondsInDay;
 }
 

@@ -73,4 +73,18 @@ describe('epoch days', () => {
     expect(isoFromEpochDay(-719_528)).toBe('0000-01-01');
     expect(isoFromEpochDay(2_932_896)).toBe('9999-12-31');
   });
+
+  it('reads a date to the same day number as Date.UTC, valid or not, for years 0000–9999', async () => {
+    // The reference is ECMAScript's Date.UTC (ECMA-262 §21.4.3.4), which the fast path replaces: the same
+    // number for every day of 1900–2100 and every 7th day of 0100–9999, for days past a month's end
+    // (2026-02-30 is 2026-03-02 to both), and for text it does not read itself (two-digit years, month 13).
+    const { epochDayFromIso, isoFromEpochDay } = await import('../../../core/dates');
+    const byDateUtc = (text: string) => Date.UTC(Number(text.slice(0, 4)), Number(text.slice(5, 7)) - 1, Number(text.slice(8, 10))) / 86_400_000;
+    const texts: string[] = [];
+    for (let day = -25_567; day <= 47_482; day += 1) texts.push(isoFromEpochDay(day));
+    for (let day = -682_998; day <= 2_932_896; day += 7) texts.push(isoFromEpochDay(day));
+    texts.push('2026-02-30', '2024-02-31', '2025-04-31', '0099-06-01', '0050-01-01', '2026-13-01', '2026-00-10', '2026-01-00', '2026-1-01', '20260101', 'not a date');
+    const mismatches = texts.filter((text) => !Object.is(epochDayFromIso(text), byDateUtc(text)));
+    expect(mismatches).toEqual([]);
+  });
 });
