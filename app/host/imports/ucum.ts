@@ -7,8 +7,10 @@ import { fail, issue, ok, type Result } from '../../../core/result';
  * quantity through it to the units of the case file. It ships no type
  * declarations; the little we call is declared in ucumLhc.d.ts.
  */
-const ucum = UcumLhcUtils.getInstance();
-type UcumUtils = typeof ucum;
+type UcumUtils = ReturnType<typeof UcumLhcUtils.getInstance>;
+let instance: UcumUtils | undefined;
+/** The converter, made when first used: it reads its unit tables then, not at every start of the command line. */
+const ucumUtils = (): UcumUtils => (instance ??= UcumLhcUtils.getInstance());
 
 /**
  * Convert a value between UCUM units; mass and substance amounts convert only
@@ -26,7 +28,7 @@ export function convertUcum(value: number, fromUnit: string, toUnit: string, whe
   if (fromUnit === toUnit) return ok(value);
   let converted: ReturnType<UcumUtils['convertUnitTo']>;
   try {
-    converted = ucum.convertUnitTo(fromUnit, value, toUnit, molecularWeightGPerMol === undefined ? {} : { molecularWeight: molecularWeightGPerMol });
+    converted = ucumUtils().convertUnitTo(fromUnit, value, toUnit, molecularWeightGPerMol === undefined ? {} : { molecularWeight: molecularWeightGPerMol });
   } catch {
     converted = { status: 'error', toVal: null };
   }
@@ -39,7 +41,7 @@ export function convertUcum(value: number, fromUnit: string, toUnit: string, whe
 /** Whether a text is a valid UCUM code as written. */
 export function isUcumCode(unit: string): boolean {
   try {
-    return ucum.validateUnitString(unit).status === 'valid';
+    return ucumUtils().validateUnitString(unit).status === 'valid';
   } catch {
     return false;
   }
