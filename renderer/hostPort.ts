@@ -21,6 +21,9 @@ export interface Progress {
   readonly cancelled: () => boolean;
 }
 
+/** Cases the page asks the host for at once while reading a workspace (a modelling choice of ours: enough to keep both sides busy). */
+const casesAskedAtOnce = 4;
+
 /** An import of records from a file into one case, as the contract's importDryRun takes it (the file's text read in the page). */
 export type RecordImportRequest = HostRequest<'importDryRun'>;
 /** What an import would add: counts, first rows, every rejected row, the column mapping of a CSV. */
@@ -75,20 +78,26 @@ export function workspaceHostOver(api: HostApi): WorkspaceHost {
     async listCases(progress) {
       const listed = await api.listCases({});
       if (!listed.ok) return listed;
-      const cases: StoredCase[] = [];
       const active = listed.value.filter((it) => !it.archived);
-      for (const [done, summary] of active.entries()) {
-        if (progress?.cancelled()) break;
-        progress?.report(done, active.length);
-        const opened = await api.openCase({ caseId: summary.caseId });
-        if (opened.ok) {
-          revisions.set(summary.caseId, opened.value.revision);
-          cases.push({ id: summary.caseId, json: opened.value.document });
-        } else {
-          cases.push({ id: summary.caseId, json: null });
+      // A few cases asked for at once, so the host reads one while the page takes in another;
+      // kept in the listing's order. A cancel starts no new one; those under way are kept.
+      const read = new Array<StoredCase | undefined>(active.length);
+      let started = 0;
+      let done = 0;
+      progress?.report(0, active.length);
+      const lane = async () => {
+        while (started < active.length && !progress?.cancelled()) {
+          const { caseId } = active[started]!;
+          const index = started++;
+          const opened = await api.openCase({ caseId });
+          if (opened.ok) revisions.set(caseId, opened.value.revision);
+          read[index] = { id: caseId, json: opened.ok ? opened.value.document : null };
+          done += 1;
+          progress?.report(done, active.length);
         }
-      }
-      return ok(cases);
+      };
+      await Promise.all(Array.from({ length: Math.min(casesAskedAtOnce, active.length) }, lane));
+      return ok(read.filter((entry): entry is StoredCase => entry !== undefined));
     },
     async saveCase(id, json) {
       const baseRevision = revisions.get(id);

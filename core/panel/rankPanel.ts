@@ -72,9 +72,10 @@ export interface PanelOptions {
  * the projection accepts (core/ledger/projection.ts) rather than the review's
  * 500, over a horizon of one month rather than 24: a modelling choice of ours
  * that keeps a clinic's workspace quick to rank, and changes nothing the panel
- * shows (tests/core/panel checks its rows against the full review's).
+ * shows (tests/core/panel checks its rows against the full review's). The
+ * workspace's Cases screen computes its summary lines the same way.
  */
-const panelCompute = { samples: 50, horizonMonths: 1 } as const;
+export const summaryComputeOptions = { samples: 50, horizonMonths: 1 } as const;
 
 const severityRank = (severity: Severity) => severities.indexOf(severity);
 
@@ -98,7 +99,7 @@ export function reviewPanelEntry(entry: PanelEntry, options: PanelOptions): Pane
   const caseFile = entry.loaded.value;
   const label = caseFile.patient.label;
   const asOf = options.asOf ?? caseFile.review.reviewDate ?? options.today;
-  const computed = computeCase(caseFile, asOf, panelCompute);
+  const computed = computeCase(caseFile, asOf, summaryComputeOptions);
   if (!computed.ok) return { fileName: entry.fileName, label, issues: computed.issues };
   // The findings with the monitoring calendar their rules read: the case's own overrides, the calendar's default too.
   const evaluated = findingsWithMonitoring(caseFile, computed.value, asOf, caseFile.thresholdOverrides);

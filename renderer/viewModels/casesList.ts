@@ -1,10 +1,11 @@
 import type { IsoDate } from '../../core/dates/isoDate';
+import { computeCase } from '../../core/ledger/computeCase';
 import { parseCase } from '../../core/model/parseCase';
-import { severities } from '../../core/safety';
+import { summaryComputeOptions } from '../../core/panel';
+import { findingsWithMonitoring, severities } from '../../core/safety';
 import type { StoredCase } from '../hostPort';
 import { choiceWords } from '../../core/words';
 import { formatNumber, formatQuantity } from './format';
-import { reviewOf } from './review';
 
 /** One line of the Cases screen. */
 export interface CaseSummaryLine {
@@ -46,14 +47,19 @@ export function caseSummaryLine(stored: StoredCase, today: IsoDate): CaseSummary
   const caseFile = parsed.value;
   const asOf = caseFile.review.reviewDate ?? today;
   const base = { id: stored.id, label: caseFile.patient.label, diagnosis: choiceWords(caseFile.patient.diagnosisGroup) };
-  const outcome = reviewOf(caseFile, asOf, 50);
-  if (!outcome.ok) return { ...base, ...empty, problem: outcome.issues[0]?.message ?? 'The review could not be computed.' };
-  const { results, findings, monitoring } = outcome.review;
+  // As the panel computes a case (core/panel summaryComputeOptions): a line shows no projected month and no
+  // band, and no derivation, so none is worked out; the findings come with the calendar their rules read.
+  const computed = computeCase(caseFile, asOf, summaryComputeOptions);
+  if (!computed.ok) return { ...base, ...empty, problem: computed.issues[0]?.message ?? 'The review could not be computed.' };
+  const evaluated = findingsWithMonitoring(caseFile, computed.value, asOf, caseFile.thresholdOverrides);
+  if (!evaluated.ok) return { ...base, ...empty, problem: evaluated.issues[0]?.message ?? 'The findings could not be evaluated.' };
+  const results = computed.value;
+  const { findings, monitoring } = evaluated.value;
   const worst = findings.reduce<(typeof findings)[number] | null>(
     (best, finding) => (best === null || severities.indexOf(finding.severity) < severities.indexOf(best.severity) ? finding : best),
     null,
   );
-  const next = monitoring?.items[0];
+  const next = monitoring.items[0];
   return {
     ...base,
     regimen: results.currentRegimens.map((regimen) => regimen.label).join(' + ') || 'no chelation on record',
