@@ -16,6 +16,7 @@ import { toolVersion } from './toolVersion';
 import type { SettingsStore } from './settingsStore';
 import { insideFolder } from './workspaceFiles';
 import type { OpenRequests } from './openRequests';
+import { createWorkInProgress } from './workInProgress';
 
 /**
  * What the host services need from the process that runs them; each host
@@ -93,9 +94,11 @@ const savedValue = (opened: OpenedCase) => ok({ caseId: opened.fileName, revisio
  * import (app/host/imports/importCase.ts, via importCalls.ts); the monitoring calendar is
  * written with app/host/icalendar.ts, the review sheet with app/host/sheetPdf.ts
  * (both into the workspace's exports folder, never over an earlier export),
- * settings with settingsStore.ts.
+ * settings with settingsStore.ts. Imports run as steps under the page's work id
+ * (app/host/workInProgress.ts), which workProgress and cancelWork answer about.
  */
 export function createHostServices(environment: HostEnvironment): HostHandlers {
+  const work = createWorkInProgress();
   const store = async <T>(run: (caseStore: CaseStore) => Promise<Result<T>>): Promise<Result<T>> => {
     const folder = environment.workspace.get();
     return folder === null ? noWorkspace() : run(openCaseStore(folder, { now: environment.now }));
@@ -173,8 +176,10 @@ export function createHostServices(environment: HostEnvironment): HostHandlers {
           history: history.value.entries.map((entry) => ({ at: entry.at, description: entry.change })),
         });
       }),
-    importDryRun: (request) => store((caseStore) => importDryRun(caseStore, request)),
-    importCommit: (request) => store((caseStore) => importCommit(caseStore, request)),
+    importDryRun: (request) => store((caseStore) => work.run(request.workId, (ticket) => importDryRun(caseStore, request, ticket))),
+    importCommit: (request) => store((caseStore) => work.run(request.workId, (ticket) => importCommit(caseStore, request, ticket))),
+    workProgress: ({ workId }) => ok(work.progress(workId)),
+    cancelWork: ({ workId }) => ok(work.cancel(workId)),
     exportSheetPdf: ({ caseId, asOfDate, paper }) =>
       store(async (caseStore) => {
         const saved = await savedCase(caseStore, caseId);

@@ -20,6 +20,8 @@ export const hostCallNames = [
   'recoverCase',
   'importDryRun',
   'importCommit',
+  'workProgress',
+  'cancelWork',
   'exportSheetPdf',
   'exportCalendar',
   'readSettings',

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { issueCodes, type Issue, type Result } from '../result';
 import { isoDateSchema } from '../model/fields';
+import { describeValue } from '../model/zodIssues';
 import type { HostCallName } from './callNames';
 import { settingsSchema, paperSizes } from './settings';
 
@@ -76,6 +77,28 @@ const savedCaseSchema = z.strictObject({ caseId: caseIdSchema, revision: revisio
 
 const journalEntrySchema = z.strictObject({ at: z.string(), description: z.string() });
 
+/**
+ * The name the page gives one piece of long work (an import's dry run or commit), so that it can ask the
+ * host how far it got (workProgress) and cancel it (cancelWork) while the call runs: 8 to 64 letters,
+ * digits, _ or - (the page makes 24 hex digits from crypto.getRandomValues; the bounds are a modelling
+ * choice of ours: long enough not to collide by chance, short enough for a log line).
+ */
+export const workIdSchema = z.string().superRefine((value, context) => {
+  if (!/^[A-Za-z0-9_-]{8,64}$/.test(value)) {
+    context.addIssue({ code: 'custom', params: { code: 'invalid_file' }, message: `${describeValue(value)} is not a work id: expected 8 to 64 letters, digits, _ or - (${value.length} characters given).` });
+  }
+});
+
+/** How far a piece of long work got: the step under way in words, and how many of the steps foreseen are done. */
+export const workProgressSchema = z.strictObject({
+  /** The step under way, in the host's words ("Checking 60,000 rows against the case"). */
+  step: z.string().min(1).max(300),
+  /** Steps finished before this one. */
+  done: z.number().int().nonnegative(),
+  /** Steps foreseen, this one included (it grows when a step has to be repeated). */
+  total: z.number().int().positive(),
+});
+
 /** Kinds of import the host reads (CSV of simple transfusions, of red-cell exchanges, of venesections or of results; an HL7 FHIR R4 Bundle). */
 export const importKinds = ['csv-transfusions', 'csv-exchanges', 'csv-venesections', 'csv-results', 'fhir-bundle'] as const;
 
@@ -92,6 +115,8 @@ const importRequestSchema = z.strictObject({
   dateOrder: z.enum(['day-first', 'month-first']).optional(),
   /** For a FHIR Bundle: a local code map (a JSON file of our own format, checked by the host) for Observations LOINC has no code for. */
   codeMap: z.strictObject({ sourceName: z.string().min(1).max(255), sourceText: z.string().max(1_000_000) }).optional(),
+  /** The page's name for this call's work, to follow its progress (workProgress) and cancel it (cancelWork). */
+  workId: workIdSchema.optional(),
 });
 
 const importPreviewSchema = z.strictObject({
@@ -173,6 +198,16 @@ export const hostContract = {
     'Add an import to a case and save it.',
     importRequestSchema.extend({ baseRevision: revisionSchema }),
     savedCaseSchema.extend({ counts: z.record(z.string(), z.number().int().nonnegative()) }),
+  ),
+  workProgress: call(
+    'How far the work the page named (an import under way) has got; null when the host has no such work running.',
+    z.strictObject({ workId: workIdSchema }),
+    workProgressSchema.nullable(),
+  ),
+  cancelWork: call(
+    'Ask the host to stop the work the page named at its next step; `stopping` is false when it has finished already or is past the point where it can stop (a save under way).',
+    z.strictObject({ workId: workIdSchema }),
+    z.strictObject({ stopping: z.boolean() }),
   ),
   exportSheetPdf: call(
     'Write the review sheet of a saved case as PDF; returns the file written.',

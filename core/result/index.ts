@@ -36,6 +36,8 @@ export const issueCodes = [
   'forbidden',
   /** A host service failed unexpectedly; the message names the call, never a stack trace. */
   'host_failed',
+  /** Long work (an import) stopped because the user cancelled it; the message says what was and was not done. */
+  'cancelled',
 ] as const;
 
 export type IssueCode = (typeof issueCodes)[number];

@@ -124,6 +124,9 @@ export function createMemoryHost(seed: Readonly<Record<string, unknown>>, storag
     },
     importDryRun: async () => refusedHere('Importing CSV or FHIR records'),
     importCommit: async () => refusedHere('Importing CSV or FHIR records'),
+    // No long work runs here (imports are refused), so there is never progress to report or work to stop.
+    workProgress: async () => ok(null),
+    cancelWork: async () => ok({ stopping: false }),
     exportSheetPdf: async ({ caseId, asOfDate }) => exportOf('pdf', caseId, asOfDate),
     exportCalendar: async ({ caseId, asOfDate }) => exportOf('ics', caseId, asOfDate),
     readSettings: async () => ok(state.settings),

@@ -4,14 +4,22 @@ import type { CaseStore, OpenedCase } from '../caseStore';
 import { revisionFromToken, revisionToken } from '../revisionToken';
 import { readCodeMap } from './codeMap';
 import { csvColumnMapping, csvFieldsByKind, type CsvKind } from './csvImport';
-import { commitImport, describeEntry, previewImport, previewRowsShown, type ImportChoices, type ImportPreview } from './importCase';
+import { commitImport, describeEntry, previewImportStepwise, previewRowsShown, type ImportChoices, type ImportPreview } from './importCase';
 import type { Rejected } from './importPlan';
+import type { WorkTicket } from '../workInProgress';
 
 /**
  * The host contract's importDryRun and importCommit over the shared import
  * (importCase.ts, the same code as the command line's `import`). The request
  * carries the chosen file's name and text (read in the page); the case is
  * named by its caseId inside the workspace and read through the case store.
+ *
+ * Both run as steps on a work ticket (workInProgress.ts): "Opening <case>",
+ * "Reading <file>", "Checking N rows against the case" (again for each pass
+ * without the rows the case model refused) and, for a commit, "Saving <case>".
+ * Each step is reported before its work, and a cancel is honoured at the next
+ * step: before "Saving" at the latest, so a cancelled commit writes nothing.
+ * Once the save has begun, it is no longer stopped.
  */
 
 type ImportRequest = HostParsedRequest<'importDryRun'>;
@@ -47,8 +55,38 @@ function rejectedRow(row: Rejected): { line: number | null; reason: string } {
   return line ? { line: Number(line[1]), reason: row.reason } : { line: null, reason: `${row.where}: ${row.reason}` };
 }
 
-/** Open the case and preview the import into it; every refusal names the file. */
-async function preview(store: CaseStore, request: ImportRequest): Promise<Result<{ readonly opened: OpenedCase; readonly preview: ImportPreview }>> {
+/** The steps an import foresees: opening, reading, checking, and saving for a commit (a check repeated adds one). */
+const foreseenSteps = { preview: 3, commit: 4 } as const;
+
+/** The steps of one import, counted, on its ticket; each answers whether to go on (false: cancelled). */
+function stepsOn(ticket: WorkTicket, foreseen: number) {
+  let done = 0;
+  let total = foreseen;
+  return async (step: string, repeated = false): Promise<boolean> => {
+    if (repeated) total += 1;
+    await ticket.report(step, done, total);
+    done += 1;
+    return !ticket.cancelled();
+  };
+}
+
+type Step = ReturnType<typeof stepsOn>;
+
+/** The answer of an import the user cancelled: nothing was written. */
+const cancelledImport = (request: ImportRequest, what: 'preview' | 'commit'): Result<never> =>
+  fail(
+    issue(
+      'cancelled',
+      ['workId'],
+      what === 'commit'
+        ? `The import from ${request.sourceName} was cancelled; nothing was added to ${request.caseId}.`
+        : `The preview of the import from ${request.sourceName} was cancelled; nothing was added to ${request.caseId}.`,
+    ),
+  );
+
+/** Open the case and preview the import into it, step by step; every refusal names the file. */
+async function preview(store: CaseStore, request: ImportRequest, step: Step, what: 'preview' | 'commit'): Promise<Result<{ readonly opened: OpenedCase; readonly preview: ImportPreview }>> {
+  if (!(await step(`Opening ${request.caseId}`))) return cancelledImport(request, what);
   const opened = await store.open(request.caseId);
   if (!opened.ok) return fail(issue('invalid_file', ['caseId'], `${request.caseId}: the case cannot be opened; nothing was imported.`), ...opened.issues);
   const csvKind: CsvKind = csvKindOf[request.kind === 'fhir-bundle' ? 'csv-results' : request.kind];
@@ -64,7 +102,8 @@ async function preview(store: CaseStore, request: ImportRequest): Promise<Result
     request.kind === 'fhir-bundle'
       ? { format: 'fhir', ...(codeMap ? { codeMap } : {}) }
       : { format: 'csv', csvKind, ...(mapping.value ? { mapping: mapping.value } : {}), ...(request.dateOrder ? { dateOrder: request.dateOrder } : {}) };
-  const previewed = previewImport({ name: request.sourceName, text: request.sourceText }, opened.value.caseFile, choices);
+  const previewed = await previewImportStepwise({ name: request.sourceName, text: request.sourceText }, opened.value.caseFile, choices, (next) => step(next.step, next.repeated));
+  if (previewed === 'stopped') return cancelledImport(request, what);
   if (!previewed.ok) {
     const named = previewed.issues[0]?.message.startsWith(request.sourceName) ?? false;
     return named ? previewed : fail(issue('invalid_file', ['sourceText'], `${request.sourceName}: nothing was imported.`), ...previewed.issues);
@@ -82,8 +121,8 @@ const cautionWarnings = (found: ImportPreview): Issue[] => found.cautions.map((t
  * importDryRun: what the import would add, every row refused (with its line)
  * and every code not known (listed among the refused, never dropped). Nothing is written.
  */
-export async function importDryRun(store: CaseStore, request: ImportRequest): Promise<Result<HostValue<'importDryRun'>>> {
-  const found = await preview(store, request);
+export async function importDryRun(store: CaseStore, request: ImportRequest, ticket: WorkTicket): Promise<Result<HostValue<'importDryRun'>>> {
+  const found = await preview(store, request, stepsOn(ticket, foreseenSteps.preview), 'preview');
   const csvKind = request.kind === 'fhir-bundle' ? null : csvKindOf[request.kind];
   const mapping = csvKind === null ? ok(undefined) : fieldMapping(request, csvKind);
   const columns = csvKind !== null && mapping.ok ? csvColumnMapping(request.sourceText, csvKind, mapping.value) : null;
@@ -91,7 +130,7 @@ export async function importDryRun(store: CaseStore, request: ImportRequest): Pr
   if (!found.ok) {
     // A CSV whose header row is read but does not map (a required column missing): the columns are
     // answered with the refusal as a whole-file rejection, so the user can map the columns and try again.
-    if (csvMapping === null || found.issues[0]?.path[0] !== 'sourceText') return found;
+    if (csvMapping === null || found.issues[0]?.path[0] !== 'sourceText' || found.issues[0]?.code === 'cancelled') return found;
     return ok({
       counts: { transfusions: 0, results: 0, weights: 0, heights: 0 },
       firstRows: [],
@@ -119,12 +158,14 @@ export async function importDryRun(store: CaseStore, request: ImportRequest): Pr
 /**
  * importCommit: the same preview, saved through the case store with one
  * journal line; refused, with nothing written, when the case changed on disk
- * since `baseRevision` (the preview the user saw would no longer be what is added).
+ * since `baseRevision` (the preview the user saw would no longer be what is added),
+ * and when the user cancelled it before the save began (the 'cancelled' issue).
  */
-export async function importCommit(store: CaseStore, request: HostParsedRequest<'importCommit'>): Promise<Result<HostValue<'importCommit'>>> {
+export async function importCommit(store: CaseStore, request: HostParsedRequest<'importCommit'>, ticket: WorkTicket): Promise<Result<HostValue<'importCommit'>>> {
   const expected = revisionFromToken(request.baseRevision);
   if (!expected.ok) return expected;
-  const found = await preview(store, request);
+  const step = stepsOn(ticket, foreseenSteps.commit);
+  const found = await preview(store, request, step, 'commit');
   if (!found.ok) return found;
   const { opened, preview: previewed } = found.value;
   if (opened.revision.sha256 !== expected.value.sha256) {
@@ -137,6 +178,9 @@ export async function importCommit(store: CaseStore, request: HostParsedRequest<
     // Nothing to add: the file is left as it is (no empty journal line).
     return ok({ caseId: opened.fileName, revision: revisionToken(opened.revision), warnings: [...opened.warnings], counts }, cautionWarnings(previewed));
   }
+  // The last moment a cancel is honoured: after this step the save runs to its end (atomic: all or nothing).
+  if (!(await step(`Saving ${request.caseId}`))) return cancelledImport(request, 'commit');
+  ticket.unstoppable();
   const saved = await commitImport(store, opened, previewed, request.sourceName, expected.value);
   if (!saved.ok) return saved;
   return ok({ caseId: saved.value.fileName, revision: revisionToken(saved.value.revision), warnings: [...saved.value.warnings], counts }, [...cautionWarnings(previewed), ...(saved.warnings ?? [])]);

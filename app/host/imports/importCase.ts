@@ -1,6 +1,7 @@
 import { basename } from 'node:path';
 import type { Case } from '../../../core/model/caseFile';
 import { parseCase } from '../../../core/model/parseCase';
+import { formatAmount } from '../../../core/numbers/formatNumber';
 import { fail, issue, ok, type Issue, type Result } from '../../../core/result';
 import type { CaseStore, DiskRevision, OpenedCase } from '../caseStore';
 import type { CodeMap } from './codeMap';
@@ -23,6 +24,8 @@ import type { ImportPlan, ProposedEntry, Rejected } from './importPlan';
  * 4. a commit saves the merged case through the case store (atomic, one
  *    journal line, refused if the file changed since it was opened).
  * Nothing is written before step 4, and step 4 writes exactly the previewed entries.
+ * Steps 1 and 2 run as `previewSteps`, a generator that names each step before
+ * its work, so the host can report progress and stop between steps.
  */
 
 /** The source of an import: a name for messages and its text. */
@@ -117,14 +120,30 @@ function entryFinder(caseFile: Case, entries: readonly ProposedEntry[]): (proble
   };
 }
 
+/** One step of an import as it begins, in words, for the progress the app shows. */
+export interface ImportStep {
+  /** "Reading tx.csv", "Checking 60,000 rows against the case". */
+  readonly step: string;
+  /** True for a step that repeats an earlier one (a check again without the rows refused), which no caller foresaw. */
+  readonly repeated: boolean;
+}
+
+/** "1 row", "60,000 rows" (grouped with the project's number formatter). */
+const counted = (count: number, one: string, many: string) => `${formatAmount(count, 0)} ${count === 1 ? one : many}`;
+
 /**
  * Check the merged case with the case model; an entry the model refuses is
  * rejected with the model's message (the same as check) and the rest checked again.
+ * Yields a step before each pass.
  */
-function screen(caseFile: Case, plan: ImportPlan): { entries: ProposedEntry[]; rejected: Rejected[]; other: Issue[] } {
+function* screenSteps(caseFile: Case, plan: ImportPlan): Generator<ImportStep, { entries: ProposedEntry[]; rejected: Rejected[]; other: Issue[] }, void> {
   let entries = [...plan.entries];
   const rejected: Rejected[] = [];
+  const [one, many] = plan.format === 'csv' ? ['row', 'rows'] : ['entry', 'entries'];
   for (let pass = 0; pass < 5; pass += 1) {
+    yield pass === 0
+      ? { step: `Checking ${counted(entries.length, one, many)} against the case`, repeated: false }
+      : { step: `Checking ${counted(entries.length, one, many)} against the case again (pass ${pass + 1}, without the ${counted(rejected.length, one, many)} refused)`, repeated: true };
     const parsed = parseCase(merged(caseFile, entries));
     if (parsed.ok) return { entries, rejected, other: [] };
     const refused = new Set<ProposedEntry>();
@@ -159,17 +178,9 @@ function patientCautions(caseFile: Case, patient: ImportPlan['patient']): string
   return cautions;
 }
 
-/**
- * Read a source and say what it would add to a case. Nothing is written.
- *
- * @param source - the file's name (for messages) and text
- * @param caseFile - the case as opened (its units are used; its entries keep their ids)
- * @param choices - format, CSV kind, column mapping, date order, code map; detected or guessed where not given, and said so
- * @returns the preview, or issues when the source cannot be read at all (not JSON, not a Bundle, no header row, a required column missing)
- */
-export function previewImport(source: ImportSource, caseFile: Case, choices: ImportChoices = {}): Result<ImportPreview> {
+/** The source read as a plan of entries (FHIR or CSV, as chosen or detected). */
+function readPlan(source: ImportSource, caseFile: Case, choices: ImportChoices): Result<ImportPlan> {
   const format = choices.format ?? (source.text.trimStart().startsWith('{') ? 'fhir' : 'csv');
-  let plan: Result<ImportPlan>;
   if (format === 'fhir') {
     let json: unknown;
     try {
@@ -177,16 +188,32 @@ export function previewImport(source: ImportSource, caseFile: Case, choices: Imp
     } catch (error) {
       return fail(issue('invalid_file', [], `${source.name} is not valid JSON: ${(error as Error).message}.`));
     }
-    plan = readFhirImport(json, caseFile, choices.codeMap);
-  } else {
-    plan = readCsvImport(source.text, caseFile, {
-      ...(choices.csvKind === undefined ? {} : { kind: choices.csvKind }),
-      ...(choices.mapping === undefined ? {} : { mapping: choices.mapping }),
-      ...(choices.dateOrder === undefined ? {} : { dateOrder: choices.dateOrder }),
-    });
+    return readFhirImport(json, caseFile, choices.codeMap);
   }
+  return readCsvImport(source.text, caseFile, {
+    ...(choices.csvKind === undefined ? {} : { kind: choices.csvKind }),
+    ...(choices.mapping === undefined ? {} : { mapping: choices.mapping }),
+    ...(choices.dateOrder === undefined ? {} : { dateOrder: choices.dateOrder }),
+  });
+}
+
+/**
+ * The preview of an import as steps: each step is yielded, in words, before its work is done
+ * (reading the source; checking the merged case, again for each pass without the entries the
+ * case model refused), and the preview is the generator's return value. `previewImport` runs it
+ * through; `previewImportStepwise` lets a caller report each step and stop between them.
+ *
+ * @param source - the file's name (for messages) and text
+ * @param caseFile - the case as opened
+ * @param choices - as for previewImport
+ * @returns a generator of steps whose return value is previewImport's answer
+ * @example [...previewSteps({ name: 'tx.csv', text }, caseFile)] → [{ step: 'Reading tx.csv', repeated: false }, { step: 'Checking 2 rows against the case', repeated: false }]
+ */
+export function* previewSteps(source: ImportSource, caseFile: Case, choices: ImportChoices = {}): Generator<ImportStep, Result<ImportPreview>, void> {
+  yield { step: `Reading ${source.name}`, repeated: false };
+  const plan = readPlan(source, caseFile, choices);
   if (!plan.ok) return plan;
-  const screened = screen(caseFile, plan.value);
+  const screened = yield* screenSteps(caseFile, plan.value);
   const count = (list: ProposedEntry['list']) => screened.entries.filter((it) => it.list === list).length;
   return ok({
     format: plan.value.format,
@@ -199,6 +226,47 @@ export function previewImport(source: ImportSource, caseFile: Case, choices: Imp
     caseProblems: screened.other,
     merged: merged(caseFile, screened.entries),
   });
+}
+
+/**
+ * Read a source and say what it would add to a case. Nothing is written.
+ *
+ * @param source - the file's name (for messages) and text
+ * @param caseFile - the case as opened (its units are used; its entries keep their ids)
+ * @param choices - format, CSV kind, column mapping, date order, code map; detected or guessed where not given, and said so
+ * @returns the preview, or issues when the source cannot be read at all (not JSON, not a Bundle, no header row, a required column missing)
+ */
+export function previewImport(source: ImportSource, caseFile: Case, choices: ImportChoices = {}): Result<ImportPreview> {
+  const steps = previewSteps(source, caseFile, choices);
+  for (;;) {
+    const next = steps.next();
+    if (next.done) return next.value;
+  }
+}
+
+/**
+ * previewImport one step at a time: `beforeStep` is awaited before each step's work and may
+ * stop the preview there (it answers false), so that a host can report progress, answer the
+ * page between steps and honour a cancel.
+ *
+ * @param source - as for previewImport
+ * @param caseFile - as for previewImport
+ * @param choices - as for previewImport
+ * @param beforeStep - told each step as it begins; true to go on, false to stop
+ * @returns previewImport's answer, or 'stopped' when `beforeStep` stopped it (nothing is written either way)
+ */
+export async function previewImportStepwise(
+  source: ImportSource,
+  caseFile: Case,
+  choices: ImportChoices,
+  beforeStep: (step: ImportStep) => Promise<boolean>,
+): Promise<Result<ImportPreview> | 'stopped'> {
+  const steps = previewSteps(source, caseFile, choices);
+  for (;;) {
+    const next = steps.next();
+    if (next.done) return next.value;
+    if (!(await beforeStep(next.value))) return 'stopped';
+  }
 }
 
 /** How many proposed entries a preview shows in words (the counts cover all): the command line and the app alike. */
