@@ -24,6 +24,60 @@ export interface Progress {
 /** Cases the page asks the host for at once while reading a workspace (a modelling choice of ours: enough to keep both sides busy). */
 const casesAskedAtOnce = 4;
 
+/** How far a piece of the host's work got (workProgress): the step under way in words, steps done of those foreseen. */
+export type WorkProgress = NonNullable<HostValue<'workProgress'>>;
+
+/** A call followed while it runs: the work id it carries, and who is told how far the host got. */
+export interface FollowedWork {
+  readonly workId: string;
+  readonly onProgress: (progress: WorkProgress) => void;
+}
+
+/**
+ * How often the page asks the host how far a followed call got, in milliseconds: a modelling
+ * choice of ours (four times a second reads as live on screen and costs the host a few tiny calls).
+ */
+export const progressPollMs = 250;
+
+/**
+ * A new work id: 24 hex digits (96 bits) from crypto.getRandomValues, so that two pieces of
+ * work, even from two windows, do not share an id by chance (the contract takes 8–64 characters).
+ *
+ * @returns e.g. '3f9a0c1d2e4b5a6978c0d1e2'
+ */
+export function newWorkId(): string {
+  const bytes = globalThis.crypto.getRandomValues(new Uint8Array(12));
+  return Array.from(bytes, (byte) => byte.toString(16).padStart(2, '0')).join('');
+}
+
+/**
+ * Run a host call that carries `followed.workId`, asking the host how far that work got every
+ * `progressPollMs` while the call runs and telling `followed.onProgress` (a poll the host cannot
+ * answer is skipped: the screen keeps the step it showed). Polling stops when the call answers.
+ *
+ * @param api - the host's workProgress call
+ * @param followed - the work id and who is told
+ * @param call - the call itself (it must send the same work id)
+ * @returns the call's answer
+ */
+export async function followWork<T>(api: Pick<HostApi, 'workProgress'>, followed: FollowedWork, call: () => Promise<T>): Promise<T> {
+  let running = true;
+  let timer: ReturnType<typeof setTimeout> | undefined;
+  const poll = async () => {
+    if (!running) return;
+    const answer = await api.workProgress({ workId: followed.workId });
+    if (running && answer.ok && answer.value !== null) followed.onProgress(answer.value);
+    if (running) timer = setTimeout(() => void poll(), progressPollMs);
+  };
+  timer = setTimeout(() => void poll(), progressPollMs);
+  try {
+    return await call();
+  } finally {
+    running = false;
+    clearTimeout(timer);
+  }
+}
+
 /** An import of records from a file into one case, as the contract's importDryRun takes it (the file's text read in the page). */
 export type RecordImportRequest = HostRequest<'importDryRun'>;
 /** What an import would add: counts, first rows, every rejected row, the column mapping of a CSV. */
@@ -36,10 +90,12 @@ export interface WorkspaceHost {
   createCase(json: unknown): Promise<Result<{ readonly id: string }>>;
   /** A whole case file, as text, added to the workspace under a name from its label. */
   importCase(text: string): Promise<Result<{ readonly id: string }>>;
-  /** What an import would add to a case; nothing is written. */
-  previewRecordImport(request: RecordImportRequest): Promise<Result<RecordImportPreview>>;
-  /** Add an import to a case as it was last opened or saved here; refused when the file changed on disk since. */
-  commitRecordImport(request: RecordImportRequest): Promise<Result<{ readonly counts: Readonly<Record<string, number>> }>>;
+  /** What an import would add to a case; nothing is written. With `followed`, the host's steps are reported while it reads. */
+  previewRecordImport(request: RecordImportRequest, followed?: FollowedWork): Promise<Result<RecordImportPreview>>;
+  /** Add an import to a case as it was last opened or saved here; refused when the file changed on disk since, or when cancelled before the host saved. */
+  commitRecordImport(request: RecordImportRequest, followed?: FollowedWork): Promise<Result<{ readonly counts: Readonly<Record<string, number>> }>>;
+  /** Ask the host to stop the followed work of that id at its next step; false when it will not (finished, or a save under way, or no answer). */
+  cancelWork(workId: string): Promise<{ readonly stopping: boolean }>;
   exportSheet(id: string, asOf: string): Promise<Result<{ readonly location: string }>>;
   exportCalendar(id: string, asOf: string): Promise<Result<{ readonly location: string }>>;
   readUnitSystem(): Promise<'si' | 'conventional'>;
@@ -117,14 +173,20 @@ export function workspaceHostOver(api: HostApi): WorkspaceHost {
       }
       return create(json);
     },
-    previewRecordImport: (request) => api.importDryRun(request),
-    async commitRecordImport(request) {
+    previewRecordImport: (request, followed) => (followed ? followWork(api, followed, () => api.importDryRun({ ...request, workId: followed.workId })) : api.importDryRun(request)),
+    async commitRecordImport(request, followed) {
       const baseRevision = revisions.get(request.caseId);
       if (baseRevision === undefined) return fail(issue('host_failed', ['caseId'], `"${request.caseId}" was not opened from this workspace; reopen it.`));
-      const committed = await api.importCommit({ ...request, baseRevision });
+      const committed = followed
+        ? await followWork(api, followed, () => api.importCommit({ ...request, baseRevision, workId: followed.workId }))
+        : await api.importCommit({ ...request, baseRevision });
       if (!committed.ok) return committed;
       revisions.set(request.caseId, committed.value.revision);
       return ok({ counts: committed.value.counts });
+    },
+    async cancelWork(workId) {
+      const answer = await api.cancelWork({ workId });
+      return { stopping: answer.ok && answer.value.stopping };
     },
     async exportSheet(id, asOf) {
       const listedSettings = await api.readSettings({});

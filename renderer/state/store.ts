@@ -4,9 +4,9 @@ import type { MenuCommand } from '../../core/contract/callNames';
 import { importKinds } from '../../core/contract';
 import type { Case } from '../../core/model/caseFile';
 import { formatIssues } from '../../core/result';
-import type { RecordImportPreview, RecordImportRequest, StoredCase, WorkspaceHost } from '../hostPort';
+import { newWorkId, type RecordImportPreview, type RecordImportRequest, type StoredCase, type WorkProgress, type WorkspaceHost } from '../hostPort';
 import { checkDraft, draftFromJson, draftToJson, isDraft, type Draft, type DraftCheck } from '../viewModels/draftCase';
-import { importedText, kindForFile, type DateOrder, type ImportKind } from '../viewModels/recordImport';
+import { importCancelledText, importedText, importStoppingText, importTooLateText, kindForFile, type DateOrder, type ImportKind } from '../viewModels/recordImport';
 import { createKeptDrafts, pageKeptDrafts, type KeptDrafts } from './keptDrafts';
 
 /**
@@ -33,8 +33,17 @@ export interface ImportSession {
   readonly previewWarnings: readonly string[];
   /** Why the host refused the dry run or the commit, in its words. */
   readonly refusal: string | null;
-  /** A dry run or a commit waiting for the host; Cancel abandons its answer. */
-  readonly pending: { readonly what: 'preview' | 'commit'; readonly label: string } | null;
+  /** A dry run or a commit waiting for the host, with the step the host last reported; Cancel asks the host to stop it and stops waiting. */
+  readonly pending: ImportPending | null;
+}
+
+/** An import call under way: what it is, its label until the host reports a step, its work id, and the host's last step. */
+export interface ImportPending {
+  readonly what: 'preview' | 'commit';
+  readonly label: string;
+  /** The id the call carries, with which the page asks for its progress and cancels it. */
+  readonly workId: string;
+  readonly progress: WorkProgress | null;
 }
 
 /** A kept entry put back on screen (a reload or a failed save came between), with a way to discard it. */
@@ -107,8 +116,12 @@ export interface WorkspaceIntents {
   chooseImportFile(fileName: string, fileText: string): void;
   setImportChoices(change: Partial<Pick<ImportSession, 'caseId' | 'kind' | 'columnMapping' | 'dateOrder'>>): void;
   commitImport(): Promise<void>;
-  /** Stop waiting for the dry run or commit under way; its answer is not shown (a commit the host already began may still be written: the case is read again when it answers). */
-  cancelImport(): void;
+  /**
+   * Ask the host to stop the dry run or commit under way (cancelWork, with the call's work id) and stop
+   * waiting for it. The host stops at its next step and saves nothing; a commit whose save had already
+   * begun is written, and the screen says so when the host answers (the case is read again then).
+   */
+  cancelImport(): Promise<void>;
   /** Start the import over: the file and choices are dropped (and their kept draft). */
   clearImport(): void;
   /** Drop the restored entry: the record goes back to the stored case (undo brings the entry back), an import starts over. */
@@ -278,14 +291,23 @@ export function createWorkspaceStore(drafts: KeptDrafts = createKeptDrafts(null)
       const session = get().importSession;
       if (session) set({ importSession: { ...session, ...change } });
     };
+    /** The host's step for the call under way, if it is still the one awaited. */
+    const showProgress = (workId: string, progress: WorkProgress) => {
+      const pending = get().importSession?.pending;
+      if (pending?.workId === workId) setSession({ pending: { ...pending, progress } });
+    };
     /** Ask the host what the import would add, for the choices as they stand now. */
     const runPreview = async () => {
       const { host, importSession } = get();
       const request = importSession && importRequest(importSession);
       if (!host || !request) return;
+      // A dry run of older choices is of no use any more: the host is asked to stop it.
+      const older = importSession.pending;
+      if (older?.what === 'preview') void host.cancelWork(older.workId);
       const ticket = (importTicket += 1);
-      setSession({ pending: { what: 'preview', label: `Reading ${request.sourceName}` }, refusal: null });
-      const previewed = await host.previewRecordImport(request);
+      const workId = newWorkId();
+      setSession({ pending: { what: 'preview', label: `Reading ${request.sourceName}`, workId, progress: null }, refusal: null });
+      const previewed = await host.previewRecordImport(request, { workId, onProgress: (progress) => showProgress(workId, progress) });
       if (ticket !== importTicket) return;
       if (previewed.ok) setSession({ pending: null, preview: previewed.value, previewWarnings: (previewed.warnings ?? []).map((it) => it.message), refusal: null });
       else setSession({ pending: null, preview: null, previewWarnings: [], refusal: formatIssues(previewed.issues) });
@@ -448,18 +470,22 @@ export function createWorkspaceStore(drafts: KeptDrafts = createKeptDrafts(null)
         }
         const ticket = (importTicket += 1);
         const label = (cases.find((entry) => entry.id === request.caseId)?.json as { patient?: { label?: string } } | null)?.patient?.label ?? request.caseId;
-        setSession({ pending: { what: 'commit', label: `Adding the import from ${request.sourceName} to ${label}` }, refusal: null });
-        const committed = await host.commitRecordImport(request);
+        const workId = newWorkId();
+        setSession({ pending: { what: 'commit', label: `Adding the import from ${request.sourceName} to ${label}`, workId, progress: null }, refusal: null });
+        const committed = await host.commitRecordImport(request, { workId, onProgress: (progress) => showProgress(workId, progress) });
         const abandoned = ticket !== importTicket;
+        const cancelled = !committed.ok && committed.issues.some((it) => it.code === 'cancelled');
         // Whatever was shown, the workspace is read again so that the screens show what is on disk.
         await refresh();
         if (committed.ok && request.caseId === get().openId) open(request.caseId);
         if (abandoned) {
-          if (committed.ok) set({ message: `The import you stopped waiting for was added before it could be stopped: ${importedText(committed.value.counts, request.sourceName, label)}` });
+          if (committed.ok) set({ message: `The import you stopped was added before it could be stopped: ${importedText(committed.value.counts, request.sourceName, label)}` });
+          // The host's answer to the Cancel (or why it failed anyway), unless another dry run or commit has begun since.
+          else if (!get().importSession?.pending) setSession({ refusal: cancelled ? importCancelledText(request.sourceName, label) : formatIssues(committed.issues) });
           return;
         }
         if (!committed.ok) {
-          setSession({ pending: null, refusal: formatIssues(committed.issues) });
+          setSession({ pending: null, refusal: cancelled ? importCancelledText(request.sourceName, label) : formatIssues(committed.issues) });
           return;
         }
         drafts.discard('import');
@@ -467,11 +493,15 @@ export function createWorkspaceStore(drafts: KeptDrafts = createKeptDrafts(null)
         if (get().openId !== request.caseId) open(request.caseId);
         set({ screen: 'record' });
       },
-      cancelImport() {
-        const pending = get().importSession?.pending;
-        if (!pending) return;
+      async cancelImport() {
+        const { host, importSession } = get();
+        const pending = importSession?.pending;
+        if (!host || !pending) return;
         importTicket += 1;
-        setSession({ pending: null, refusal: pending.what === 'commit' ? 'No longer waiting for the host. If it had already begun adding the import, the case is read again when it answers.' : null });
+        setSession({ pending: null, refusal: pending.what === 'commit' ? importStoppingText() : null });
+        const { stopping } = await host.cancelWork(pending.workId);
+        // Too late for the commit: its save had begun (or it had finished) when the host was asked.
+        if (pending.what === 'commit' && !stopping && get().importSession?.refusal === importStoppingText()) setSession({ refusal: importTooLateText() });
       },
       clearImport() {
         importTicket += 1;

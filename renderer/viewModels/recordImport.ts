@@ -1,5 +1,6 @@
 import { importKinds } from '../../core/contract';
-import type { RecordImportPreview } from '../hostPort';
+import type { RecordImportPreview, WorkProgress } from '../hostPort';
+import { formatNumber } from './format';
 
 /**
  * The Import screen's words and choices: which kinds of file, how the
@@ -123,4 +124,43 @@ export function importCaseChoices(cases: readonly { readonly id: string; readonl
     const label = (entry.json as { patient?: { label?: unknown } } | null)?.patient?.label;
     return { id: entry.id, label: typeof label === 'string' && label !== '' ? label : entry.id };
   });
+}
+
+/** An import call under way, as the screen needs it (the store's pending import). */
+interface PendingImport {
+  readonly what: 'preview' | 'commit';
+  readonly label: string;
+  readonly progress: WorkProgress | null;
+}
+
+/**
+ * What the screen says while an import runs: the host's step, with how many of the steps
+ * foreseen it is ("Checking 60,000 rows against the case (step 3 of 4)"; the host groups
+ * its counts, and so does this with the same formatter), or the call's own label until the host reports.
+ */
+export function importStepText(pending: PendingImport): string {
+  const { progress } = pending;
+  if (!progress) return `${pending.label}…`;
+  return `${progress.step} (step ${formatNumber(progress.done + 1, 0)} of ${formatNumber(progress.total, 0)})`;
+}
+
+/** The progress bar of an import under way: its accessible name, and steps done of those foreseen (none yet: an indeterminate bar). */
+export function importProgressBar(pending: PendingImport): { readonly label: string; readonly value: number | null; readonly max: number | null } {
+  const label = pending.what === 'commit' ? 'Progress of adding the import' : 'Progress of reading the file';
+  return pending.progress ? { label, value: pending.progress.done, max: pending.progress.total } : { label, value: null, max: null };
+}
+
+/** Said as soon as Cancel is pressed during a commit, until the host answers. */
+export function importStoppingText(): string {
+  return 'Stopping: the host was asked to stop before it saves anything. The case is read again when it answers.';
+}
+
+/** Said when the host answered a Cancel that it could no longer stop (the save had begun, or was done). */
+export function importTooLateText(): string {
+  return 'Too late to stop: the host had already begun saving the import, and a save is never cut off halfway. The case is read again when it answers, and the screens show what was saved.';
+}
+
+/** After a commit the host stopped: "Import stopped: nothing from tx.csv was added to TH-0417; the case is as it was." */
+export function importCancelledText(sourceName: string, caseLabel: string): string {
+  return `Import stopped: nothing from ${sourceName} was added to ${caseLabel}; the case is as it was.`;
 }

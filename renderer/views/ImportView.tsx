@@ -1,12 +1,14 @@
 import { useWorkspace, workspaceStore } from '../state/store';
-import { dateOrderChoices, importCaseChoices, importKindChoices, importKindLabels, importPreviewView, withColumnField, type DateOrder } from '../viewModels/recordImport';
+import { dateOrderChoices, importCaseChoices, importKindChoices, importKindLabels, importPreviewView, importProgressBar, importStepText, withColumnField, type DateOrder } from '../viewModels/recordImport';
 
 /**
  * Records from a file (a CSV export of transfusions or of results, or an HL7
  * FHIR R4 Bundle) into one case: the file is read in the page and sent to the
  * host's import (a dry run first); the screen shows how the columns are read
  * (editable), what would be added, every refused row with its line and
- * reason, and adds it to the case only when asked.
+ * reason, and adds it to the case only when asked. While the host reads or
+ * adds the file, its step shows with a progress bar, and Cancel asks the host
+ * to stop (it stops before saving anything).
  */
 export function ImportView() {
   const session = useWorkspace((state) => state.importSession);
@@ -18,6 +20,7 @@ export function ImportView() {
   const view = session.preview ? importPreviewView(session.preview, session.previewWarnings) : null;
   const isCsv = session.kind !== 'fhir-bundle';
   const mapping = session.preview?.csvMapping;
+  const bar = session.pending ? importProgressBar(session.pending) : null;
   return (
     <div className="import-screen">
       <p className="hint">The file is read here and checked by the same import as the command line; nothing is added to the case until you choose to add it.</p>
@@ -62,9 +65,11 @@ export function ImportView() {
         ) : null}
       </form>
 
-      {session.pending ? (
-        <div className="busy" role="status">
-          {session.pending.label}… <button type="button" onClick={cancelImport}>Cancel</button>
+      {session.pending && bar ? (
+        <div className="busy import-progress" role="status">
+          <progress aria-label={bar.label} {...(bar.value === null || bar.max === null ? {} : { value: bar.value, max: bar.max })} />
+          <span className="import-step">{importStepText(session.pending)}</span>
+          <button type="button" onClick={() => void cancelImport()}>Cancel</button>
         </div>
       ) : null}
       {session.refusal ? <p className="field-errors" role="alert">{session.refusal}</p> : null}

@@ -1,13 +1,25 @@
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { describe, expect, it } from 'vitest';
+import { afterEach, describe, expect, it, vi } from 'vitest';
 import { createHostDispatch } from '../../app/host/hostDispatch';
 import { createHostServices } from '../../app/host/hostServices';
+import type { HostApi } from '../../core/contract';
 import { parseCase } from '../../core/model/parseCase';
+import { ok } from '../../core/result';
 import { createHostClient } from '../../renderer/host';
-import { workspaceHostOver, type RecordImportPreview, type WorkspaceHost } from '../../renderer/hostPort';
+import { followWork, newWorkId, progressPollMs, workspaceHostOver, type RecordImportPreview, type WorkspaceHost } from '../../renderer/hostPort';
 import { createWorkspaceStore } from '../../renderer/state/store';
-import { importPreviewView, importedText, kindForFile, withColumnField } from '../../renderer/viewModels/recordImport';
+import {
+  importCancelledText,
+  importPreviewView,
+  importProgressBar,
+  importStepText,
+  importStoppingText,
+  importTooLateText,
+  importedText,
+  kindForFile,
+  withColumnField,
+} from '../../renderer/viewModels/recordImport';
 import { demoEnvironment } from '../app/host/hostFixtures';
 
 // The Import screen's store and view-model over the real host services (the
@@ -23,7 +35,7 @@ function workspace() {
   const environment = demoEnvironment();
   const dispatch = createHostDispatch(createHostServices(environment));
   const client = createHostClient({ call: (name, request) => dispatch(name, request), onMenuCommand: () => () => undefined });
-  return { environment, host: workspaceHostOver(client) };
+  return { environment, client, host: workspaceHostOver(client) };
 }
 
 const settle = () => new Promise((resolve) => setTimeout(resolve, 20));
@@ -110,14 +122,19 @@ describe('the Import screen (store and view-model over the host import)', () => 
     expect(store.getState().draft!.tables.transfusions[0]!.cells.unitHaematocrit).toBe('60');
   });
 
-  it('a slow dry run shows as pending and Cancel abandons its answer', async () => {
+  it('a slow dry run shows as pending and Cancel asks the host to stop it (by its work id) and abandons its answer', async () => {
     const { host } = workspace();
     let release: () => void = () => undefined;
+    const cancelled: string[] = [];
     const slow: WorkspaceHost = {
       ...host,
-      previewRecordImport: async (request) => {
+      previewRecordImport: async (request, followed) => {
         await new Promise<void>((resolve) => (release = resolve));
-        return host.previewRecordImport(request);
+        return host.previewRecordImport(request, followed);
+      },
+      cancelWork: async (workId) => {
+        cancelled.push(workId);
+        return host.cancelWork(workId);
       },
     };
     const store = createWorkspaceStore();
@@ -125,8 +142,13 @@ describe('the Import screen (store and view-model over the host import)', () => 
     store.getState().openImport('th-0417.json');
     store.getState().chooseImportFile('unit-export.csv', transfusionsCsv);
     await settle();
-    expect(store.getState().importSession?.pending).toEqual({ what: 'preview', label: 'Reading unit-export.csv' });
-    store.getState().cancelImport();
+    const pending = store.getState().importSession?.pending;
+    expect(pending).toEqual({ what: 'preview', label: 'Reading unit-export.csv', workId: expect.stringMatching(/^[0-9a-f]{24}$/), progress: null });
+    // Before the host reports a step, the screen says what the page asked for, with an indeterminate bar.
+    expect(importStepText(pending!)).toBe('Reading unit-export.csv…');
+    expect(importProgressBar(pending!)).toEqual({ label: 'Progress of reading the file', value: null, max: null });
+    await store.getState().cancelImport();
+    expect(cancelled).toEqual([pending!.workId]);
     expect(store.getState().importSession?.pending).toBeNull();
     release();
     await settle();
@@ -135,7 +157,132 @@ describe('the Import screen (store and view-model over the host import)', () => 
   });
 });
 
+/**
+ * The page's host over the real host services, with the commit held until `release` and every
+ * call that names a work id recorded in order; `progress` stands in for the host's answer to a
+ * poll while the commit is held (the real host has not begun it, so it would answer null).
+ */
+function heldCommit(client: HostApi, answers: { progress: NonNullable<Awaited<ReturnType<HostApi['workProgress']>>>; cancel?: ReturnType<HostApi['cancelWork']> }) {
+  const calls: { name: string; workId: string | undefined }[] = [];
+  let release: () => void = () => undefined;
+  const held = new Promise<void>((resolve) => (release = resolve));
+  const api: HostApi = {
+    ...client,
+    importCommit: async (request) => {
+      calls.push({ name: 'importCommit', workId: request.workId });
+      await held;
+      return client.importCommit(request);
+    },
+    workProgress: async (request) => {
+      calls.push({ name: 'workProgress', workId: request.workId });
+      return answers.progress;
+    },
+    cancelWork: async (request) => {
+      calls.push({ name: 'cancelWork', workId: request.workId });
+      return answers.cancel ?? client.cancelWork(request);
+    },
+  };
+  return { host: workspaceHostOver(api), calls, release: () => release() };
+}
+
+describe('an import\'s progress and Cancel on the Import screen', () => {
+  it('polls the host while the commit runs and cancels it with the same work id; the host then adds nothing', async () => {
+    const { client, environment } = workspace();
+    const casePath = join(environment.folder, 'th-0417.json');
+    const progress = ok({ step: 'Checking 60,000 rows against the case', done: 2, total: 4 });
+    const { host, calls, release } = heldCommit(client, { progress });
+    const store = createWorkspaceStore();
+    await store.getState().connect(host, 'test');
+    store.getState().openCase('th-0417.json');
+    store.getState().openImport();
+    store.getState().chooseImportFile('unit-export.csv', transfusionsCsv);
+    await until(() => store.getState().importSession?.preview !== null);
+    const before = readFileSync(casePath, 'utf8');
+    const committing = store.getState().commitImport();
+    await until(() => store.getState().importSession?.pending?.progress != null);
+    const pending = store.getState().importSession!.pending!;
+    expect(pending.progress).toEqual({ step: 'Checking 60,000 rows against the case', done: 2, total: 4 });
+    // The host's step as the screen shows it: its own words, then which step of those foreseen (done + 1 of total).
+    expect(importStepText(pending)).toBe('Checking 60,000 rows against the case (step 3 of 4)');
+    expect(importProgressBar(pending)).toEqual({ label: 'Progress of adding the import', value: 2, max: 4 });
+
+    await store.getState().cancelImport();
+    expect(store.getState().importSession?.pending).toBeNull();
+    expect(store.getState().importSession?.refusal).toBe(importStoppingText());
+    release();
+    await committing;
+
+    // One work id from the commit on: the call carries it, every poll asks for it, the cancel names it.
+    const fromCommit = calls.slice(calls.findIndex((it) => it.name === 'importCommit'));
+    const workId = fromCommit[0]!.workId;
+    expect(workId).toBe(pending.workId);
+    expect(workId).toMatch(/^[0-9a-f]{24}$/);
+    expect(fromCommit.filter((it) => it.name === 'workProgress').length).toBeGreaterThan(0);
+    expect(fromCommit.filter((it) => it.name === 'cancelWork')).toEqual([{ name: 'cancelWork', workId }]);
+    expect(fromCommit.every((it) => it.workId === workId)).toBe(true);
+    // The real host got the cancel before the commit (held here) reached it: it stopped at its first step.
+    expect(store.getState().importSession?.refusal).toBe(importCancelledText('unit-export.csv', 'TH-0417'));
+    expect(readFileSync(casePath, 'utf8')).toBe(before);
+    // No poll after the answer.
+    const polls = calls.length;
+    await new Promise((resolve) => setTimeout(resolve, progressPollMs * 2));
+    expect(calls.length).toBe(polls);
+  });
+
+  it('says when Cancel came too late (the host was saving), and that the import was added', async () => {
+    const { client, environment } = workspace();
+    const { host, release } = heldCommit(client, { progress: ok({ step: 'Saving th-0417.json', done: 3, total: 4 }), cancel: Promise.resolve(ok({ stopping: false })) });
+    const store = createWorkspaceStore();
+    await store.getState().connect(host, 'test');
+    store.getState().openImport('th-0417.json');
+    store.getState().chooseImportFile('unit-export.csv', transfusionsCsv);
+    await until(() => store.getState().importSession?.preview !== null);
+    const committing = store.getState().commitImport();
+    await until(() => store.getState().importSession?.pending?.progress != null);
+    await store.getState().cancelImport();
+    expect(store.getState().importSession?.refusal).toBe(importTooLateText());
+    release();
+    await committing;
+    expect(store.getState().message).toBe('The import you stopped was added before it could be stopped: Added 2 transfusions from unit-export.csv to TH-0417.');
+    const onDisk = parseCase(JSON.parse(readFileSync(join(environment.folder, 'th-0417.json'), 'utf8')));
+    expect(onDisk.ok && onDisk.value.transfusions.filter((it) => it.id.startsWith('imp-')).length).toBe(2);
+  });
+});
+
+describe('following the host\'s work', () => {
+  afterEach(() => vi.useRealTimers());
+
+  it('asks for the progress every 250 ms while the call runs, and never after it answered', async () => {
+    vi.useFakeTimers();
+    const asked: string[] = [];
+    const seen: unknown[] = [];
+    const api = { workProgress: async ({ workId }: { workId: string }) => (asked.push(workId), ok({ step: `step ${asked.length}`, done: asked.length - 1, total: 9 })) };
+    let answer: (value: string) => void = () => undefined;
+    const followed = followWork(api, { workId: 'work-id-0001', onProgress: (progress) => seen.push(progress.step) }, () => new Promise<string>((resolve) => (answer = resolve)));
+    await vi.advanceTimersByTimeAsync(progressPollMs - 1);
+    expect(asked).toEqual([]);
+    await vi.advanceTimersByTimeAsync(1 + progressPollMs * 2);
+    expect(asked).toEqual(['work-id-0001', 'work-id-0001', 'work-id-0001']);
+    expect(seen).toEqual(['step 1', 'step 2', 'step 3']);
+    answer('done');
+    expect(await followed).toBe('done');
+    await vi.advanceTimersByTimeAsync(progressPollMs * 4);
+    expect(asked).toHaveLength(3);
+  });
+
+  it('makes work ids of 24 hex digits that the contract accepts, a new one each time', () => {
+    const ids = Array.from({ length: 500 }, newWorkId);
+    for (const id of ids) expect(id).toMatch(/^[0-9a-f]{24}$/);
+    expect(new Set(ids).size).toBe(ids.length);
+  });
+});
+
 describe('the import view-model', () => {
+  it('groups the counts of a step in thousands as the screens write numbers', () => {
+    const pending = { what: 'preview', label: 'Reading big.csv', progress: { step: 'Reading big.csv', done: 1233, total: 60000 } } as const;
+    expect(importStepText(pending)).toBe('Reading big.csv (step 1,234 of 60,000)');
+  });
+
   const mapping: NonNullable<RecordImportPreview['csvMapping']> = {
     columns: [{ column: 'a', field: 'date' }, { column: 'b', field: 'value' }, { column: 'c', field: null }],
     fields: ['date', 'test', 'value', 'unit'],
