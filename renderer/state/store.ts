@@ -33,6 +33,8 @@ export interface ImportSession {
   readonly previewWarnings: readonly string[];
   /** Why the host refused the dry run or the commit, in its words. */
   readonly refusal: string | null;
+  /** What became of a Cancel (stopping, stopped, too late to stop), in words; not a refusal. */
+  readonly notice: string | null;
   /** A dry run or a commit waiting for the host, with the step the host last reported; Cancel asks the host to stop it and stops waiting. */
   readonly pending: ImportPending | null;
 }
@@ -168,6 +170,7 @@ const emptyImport = (caseId: string | null): ImportSession => ({
   preview: null,
   previewWarnings: [],
   refusal: null,
+  notice: null,
   pending: null,
 });
 
@@ -306,14 +309,14 @@ export function createWorkspaceStore(drafts: KeptDrafts = createKeptDrafts(null)
       if (older?.what === 'preview') void host.cancelWork(older.workId);
       const ticket = (importTicket += 1);
       const workId = newWorkId();
-      setSession({ pending: { what: 'preview', label: `Reading ${request.sourceName}`, workId, progress: null }, refusal: null });
+      setSession({ pending: { what: 'preview', label: `Reading ${request.sourceName}`, workId, progress: null }, refusal: null, notice: null });
       const previewed = await host.previewRecordImport(request, { workId, onProgress: (progress) => showProgress(workId, progress) });
       if (ticket !== importTicket) return;
       if (previewed.ok) setSession({ pending: null, preview: previewed.value, previewWarnings: (previewed.warnings ?? []).map((it) => it.message), refusal: null });
       else setSession({ pending: null, preview: null, previewWarnings: [], refusal: formatIssues(previewed.issues) });
     };
     const changeImport = (change: Partial<ImportSession>) => {
-      setSession({ ...change, preview: null, refusal: null });
+      setSession({ ...change, preview: null, refusal: null, notice: null });
       keepImport();
       void runPreview();
     };
@@ -471,7 +474,7 @@ export function createWorkspaceStore(drafts: KeptDrafts = createKeptDrafts(null)
         const ticket = (importTicket += 1);
         const label = (cases.find((entry) => entry.id === request.caseId)?.json as { patient?: { label?: string } } | null)?.patient?.label ?? request.caseId;
         const workId = newWorkId();
-        setSession({ pending: { what: 'commit', label: `Adding the import from ${request.sourceName} to ${label}`, workId, progress: null }, refusal: null });
+        setSession({ pending: { what: 'commit', label: `Adding the import from ${request.sourceName} to ${label}`, workId, progress: null }, refusal: null, notice: null });
         const committed = await host.commitRecordImport(request, { workId, onProgress: (progress) => showProgress(workId, progress) });
         const abandoned = ticket !== importTicket;
         const cancelled = !committed.ok && committed.issues.some((it) => it.code === 'cancelled');
@@ -481,11 +484,11 @@ export function createWorkspaceStore(drafts: KeptDrafts = createKeptDrafts(null)
         if (abandoned) {
           if (committed.ok) set({ message: `The import you stopped was added before it could be stopped: ${importedText(committed.value.counts, request.sourceName, label)}` });
           // The host's answer to the Cancel (or why it failed anyway), unless another dry run or commit has begun since.
-          else if (!get().importSession?.pending) setSession({ refusal: cancelled ? importCancelledText(request.sourceName, label) : formatIssues(committed.issues) });
+          else if (!get().importSession?.pending) setSession(cancelled ? { notice: importCancelledText(request.sourceName, label) } : { notice: null, refusal: formatIssues(committed.issues) });
           return;
         }
         if (!committed.ok) {
-          setSession({ pending: null, refusal: cancelled ? importCancelledText(request.sourceName, label) : formatIssues(committed.issues) });
+          setSession(cancelled ? { pending: null, notice: importCancelledText(request.sourceName, label) } : { pending: null, refusal: formatIssues(committed.issues) });
           return;
         }
         drafts.discard('import');
@@ -498,10 +501,10 @@ export function createWorkspaceStore(drafts: KeptDrafts = createKeptDrafts(null)
         const pending = importSession?.pending;
         if (!host || !pending) return;
         importTicket += 1;
-        setSession({ pending: null, refusal: pending.what === 'commit' ? importStoppingText() : null });
+        setSession({ pending: null, notice: pending.what === 'commit' ? importStoppingText() : null });
         const { stopping } = await host.cancelWork(pending.workId);
         // Too late for the commit: its save had begun (or it had finished) when the host was asked.
-        if (pending.what === 'commit' && !stopping && get().importSession?.refusal === importStoppingText()) setSession({ refusal: importTooLateText() });
+        if (pending.what === 'commit' && !stopping && get().importSession?.notice === importStoppingText()) setSession({ notice: importTooLateText() });
       },
       clearImport() {
         importTicket += 1;

@@ -68,7 +68,8 @@ export function withColumnField(mapping: CsvMapping, column: string, field: stri
   return next;
 }
 
-const plural = (count: number, one: string, many: string) => `${count} ${count === 1 ? one : many}`;
+/** "1 transfusion", "60,000 transfusions" (grouped as the screens write numbers). */
+const plural = (count: number, one: string, many: string) => `${formatNumber(count, 0)} ${count === 1 ? one : many}`;
 const listWords: Readonly<Record<string, readonly [string, string]>> = {
   transfusions: ['transfusion', 'transfusions'],
   results: ['result', 'results'],

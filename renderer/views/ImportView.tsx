@@ -73,6 +73,7 @@ export function ImportView() {
         </div>
       ) : null}
       {session.refusal ? <p className="field-errors" role="alert">{session.refusal}</p> : null}
+      {session.notice ? <p className="import-notice" role="status">{session.notice}</p> : null}
 
       {view ? (
         <>

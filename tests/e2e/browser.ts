@@ -1,8 +1,9 @@
-import { spawnSync } from 'node:child_process';
-import { mkdirSync, mkdtempSync } from 'node:fs';
+import { spawn, spawnSync } from 'node:child_process';
+import { copyFileSync, mkdirSync, mkdtempSync, readFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { build } from 'esbuild';
 import { chromium, type Browser, type Page } from 'playwright-core';
 import { serveFolder } from './staticServer';
 
@@ -39,6 +40,47 @@ export async function startWorkspace(): Promise<{ readonly url: string; readonly
       await browser.close();
       await server.close();
     },
+  };
+}
+
+/**
+ * The preview server over a fresh copy of the demo workspace, in a process of its own, as the
+ * host runs apart from the page in the desktop app (Electron's main process). A host in the
+ * test's own process would share its one thread with Playwright's client: while the host did an
+ * import's synchronous steps, the test could neither see the page's progress nor press Cancel.
+ * The entry (previewProcess.ts) is bundled with esbuild, its packages left to node_modules.
+ *
+ * @param rendererFolder - the built renderer (buildRenderer)
+ * @returns the page's address, the workspace folder, and a stop that ends the process
+ */
+export async function startPreviewProcess(rendererFolder: string): Promise<{ readonly url: string; readonly workspaceFolder: string; readonly stop: () => Promise<void> }> {
+  const scratch = mkdtempSync(join(tmpdir(), 'chelation-ledger-preview-process-'));
+  const workspaceFolder = join(scratch, 'workspace');
+  mkdirSync(workspaceFolder);
+  for (const name of ['th-0417.json', 'th-0093.json']) copyFileSync(join(repoRoot, 'assets', 'demo', name), join(workspaceFolder, name));
+  const pkg = JSON.parse(readFileSync(join(repoRoot, 'package.json'), 'utf8')) as { dependencies?: Record<string, string> };
+  const bundle = join(scratch, 'preview.cjs');
+  await build({ entryPoints: [join(repoRoot, 'tests', 'e2e', 'previewProcess.ts')], outfile: bundle, bundle: true, platform: 'node', target: 'node20', format: 'cjs', external: Object.keys(pkg.dependencies ?? {}), logLevel: 'warning' });
+  const child = spawn(process.execPath, [bundle, rendererFolder, workspaceFolder, join(scratch, 'config')], { cwd: repoRoot, env: { ...process.env, NODE_PATH: join(repoRoot, 'node_modules') }, stdio: ['ignore', 'pipe', 'pipe'] });
+  const url = await new Promise<string>((resolvePromise, reject) => {
+    let out = '';
+    let err = '';
+    child.stdout.on('data', (chunk: Buffer) => {
+      out += chunk.toString('utf8');
+      if (out.includes('\n')) resolvePromise(out.split('\n')[0]!);
+    });
+    child.stderr.on('data', (chunk: Buffer) => (err += chunk.toString('utf8')));
+    child.on('exit', (code) => reject(new Error(`the preview process ended (${code}) before it printed its address: ${err}`)));
+  });
+  return {
+    url,
+    workspaceFolder,
+    stop: () =>
+      new Promise<void>((resolvePromise) => {
+        if (child.exitCode !== null) return resolvePromise();
+        child.once('exit', () => resolvePromise());
+        child.kill();
+      }),
   };
 }
 

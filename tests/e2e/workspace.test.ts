@@ -6,7 +6,7 @@ import { AxeBuilder } from '@axe-core/playwright';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { memoryHostStorageKey } from '../../renderer/fakeHost/memoryHost';
-import { artifactsDir, CountedUser, repoRoot, startWorkspace } from './browser';
+import { artifactsDir, CountedUser, repoRoot, startPreviewProcess, startWorkspace } from './browser';
 
 const demo = JSON.parse(readFileSync(`${repoRoot}assets/demo/th-0417.json`, 'utf8')) as {
   transfusions: { date: string }[];
@@ -345,6 +345,64 @@ describe('importing records through the preview server (app/preview) into the de
       expect(errors).toEqual([]);
     } finally {
       await close();
+    }
+  }, 180_000);
+});
+
+describe('a long import through the preview server, run as a process of its own: the host\'s steps on screen, and Cancel', { retry: 2 }, () => {
+  // An invented export of our own: 120,000 simple transfusions of 300 mL (haematocrit 0.6, one unit) on
+  // the first 28 days of January to October 2026, every value within the case model's plausible ranges,
+  // so every row reaches the case model's check. About 2.5 MB: half the contract's 5 MB limit.
+  const longCsv = `Date given,Volume (mL),Hct,Units\n${Array.from({ length: 120_000 }, (_, index) => `2026-${String(1 + (index % 10)).padStart(2, '0')}-${String(1 + (index % 28)).padStart(2, '0')},300,0.6,1`).join('\n')}\n`;
+
+  it('shows the host\'s step with a progress bar while the file is read and checked, and Cancel stops the commit before anything is saved', async () => {
+    const preview = await startPreviewProcess(workspace.rendererFolder);
+    const context = await browser.newContext({ viewport: { width: 1400, height: 900 } });
+    const page = await context.newPage();
+    const errors: string[] = [];
+    page.on('pageerror', (error) => errors.push(error.message));
+    try {
+      const { readdirSync } = await import('node:fs');
+      const { join } = await import('node:path');
+      const disk = () => ({ file: readFileSync(join(preview.workspaceFolder, 'th-0417.json'), 'utf8'), names: readdirSync(preview.workspaceFolder).sort() });
+      await page.goto(preview.url);
+      await page.locator('button[aria-label="Open TH-0417"]').click();
+      await page.click('button:has-text("Import records from a file")');
+      await expect.poll(() => page.locator('h1').textContent()).toBe('Import');
+      // Every text the step line shows, recorded in the page as it changes.
+      await page.evaluate(() => {
+        const shown: string[] = [];
+        (window as unknown as { shownSteps: string[] }).shownSteps = shown;
+        new MutationObserver(() => {
+          const text = document.querySelector('.import-step')?.textContent;
+          if (text && shown[shown.length - 1] !== text) shown.push(text);
+        }).observe(document.body, { subtree: true, childList: true, characterData: true });
+      });
+      const before = disk();
+      await page.setInputFiles('input[type="file"]', { name: 'long-export.csv', mimeType: 'text/csv', buffer: Buffer.from(longCsv) });
+      // The host's own words while it checks the long file: it counted the rows once it had read the file.
+      const checking = page.locator('.import-progress', { hasText: 'Checking 120,000 rows against the case (step 3 of 3)' });
+      await checking.waitFor({ timeout: 60_000 });
+      expect(await checking.locator('progress[aria-label="Progress of reading the file"]').getAttribute('value')).toBe('2');
+      await page.screenshot({ path: `${artifactsDir}import-progress.png` });
+      await expect.poll(() => page.locator('.import-adds').textContent(), { timeout: 60_000 }).toBe('Would add 120,000 transfusions.');
+      // The page's own label until the host reported a step.
+      expect((await page.evaluate(() => (window as unknown as { shownSteps: string[] }).shownSteps))[0]).toBe('Reading long-export.csv…');
+
+      await page.click('button:has-text("Add to TH-0417")');
+      // A step the host reported for the commit before its save (four steps foreseen: opening, reading, checking, saving).
+      await page.locator('.import-progress', { hasText: /^(Opening|Reading|Checking) .*\(step [1-3] of 4\)/ }).waitFor({ timeout: 60_000 });
+      expect(await page.locator('progress[aria-label="Progress of adding the import"]').count()).toBe(1);
+      await page.click('.import-progress button:has-text("Cancel")');
+      await expect.poll(() => page.locator('.import-notice').textContent(), { timeout: 60_000 }).toBe('Import stopped: nothing from long-export.csv was added to TH-0417; the case is as it was.');
+      await page.screenshot({ path: `${artifactsDir}import-stopped.png`, fullPage: true });
+      // Read from disk, not through the host: the case file and the folder (no journal, no temporary file) as before.
+      expect(disk()).toEqual(before);
+      expect(await page.locator('.caution').first().textContent()).toContain('for review by the prescriber');
+      expect(errors).toEqual([]);
+    } finally {
+      await context.close();
+      await preview.stop();
     }
   }, 180_000);
 });

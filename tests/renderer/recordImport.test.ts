@@ -208,7 +208,7 @@ describe('an import\'s progress and Cancel on the Import screen', () => {
 
     await store.getState().cancelImport();
     expect(store.getState().importSession?.pending).toBeNull();
-    expect(store.getState().importSession?.refusal).toBe(importStoppingText());
+    expect(store.getState().importSession?.notice).toBe(importStoppingText());
     release();
     await committing;
 
@@ -221,7 +221,8 @@ describe('an import\'s progress and Cancel on the Import screen', () => {
     expect(fromCommit.filter((it) => it.name === 'cancelWork')).toEqual([{ name: 'cancelWork', workId }]);
     expect(fromCommit.every((it) => it.workId === workId)).toBe(true);
     // The real host got the cancel before the commit (held here) reached it: it stopped at its first step.
-    expect(store.getState().importSession?.refusal).toBe(importCancelledText('unit-export.csv', 'TH-0417'));
+    expect(store.getState().importSession?.notice).toBe(importCancelledText('unit-export.csv', 'TH-0417'));
+    expect(store.getState().importSession?.refusal).toBeNull();
     expect(readFileSync(casePath, 'utf8')).toBe(before);
     // No poll after the answer.
     const polls = calls.length;
@@ -240,7 +241,7 @@ describe('an import\'s progress and Cancel on the Import screen', () => {
     const committing = store.getState().commitImport();
     await until(() => store.getState().importSession?.pending?.progress != null);
     await store.getState().cancelImport();
-    expect(store.getState().importSession?.refusal).toBe(importTooLateText());
+    expect(store.getState().importSession?.notice).toBe(importTooLateText());
     release();
     await committing;
     expect(store.getState().message).toBe('The import you stopped was added before it could be stopped: Added 2 transfusions from unit-export.csv to TH-0417.');
@@ -281,6 +282,10 @@ describe('the import view-model', () => {
   it('groups the counts of a step in thousands as the screens write numbers', () => {
     const pending = { what: 'preview', label: 'Reading big.csv', progress: { step: 'Reading big.csv', done: 1233, total: 60000 } } as const;
     expect(importStepText(pending)).toBe('Reading big.csv (step 1,234 of 60,000)');
+    const preview: RecordImportPreview = { counts: { transfusions: 60000, results: 1 }, firstRows: [], rejected: Array.from({ length: 1200 }, (_, index) => ({ line: index + 2, reason: 'r' })) };
+    expect(importPreviewView(preview).addsText).toBe('Would add 60,000 transfusions, 1 result.');
+    expect(importPreviewView(preview).rejectedText).toBe('1,200 rows or entries are refused and would not be added:');
+    expect(importedText({ transfusions: 60000 }, 'x.csv', 'TH-0417')).toBe('Added 60,000 transfusions from x.csv to TH-0417.');
   });
 
   const mapping: NonNullable<RecordImportPreview['csvMapping']> = {
