@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
-import { caseIdSchema, defaultSettings, hostCallNames, hostContract, hostResultSchema, settingsSchema } from '../../../core/contract';
+import { caseIdSchema, defaultSettings, hostCallNames, hostContract, hostResultSchema, settingsSchema, workIdSchema } from '../../../core/contract';
 import { issueCodes } from '../../../core/result';
 
-// Outside references: the call list is the one issue 14 of this project's tracker sets for the
+// Outside references: the call list is the one issues 14 and 15 (progress and cancel) of this project's tracker set for the
 // host contract; the path-traversal names are the classic forms listed by OWASP's "Path
 // Traversal" attack page (../, absolute paths, backslashes, encoded dots) and RFC 3986 §5.2.4
 // (dot-segment removal), which any file name the renderer sends must not be able to use.
@@ -18,7 +18,7 @@ describe('host contract', () => {
   });
 
   it('has every call the design asks for: cases, workspace, import, exports, settings, version', () => {
-    for (const required of ['listCases', 'openCase', 'createCase', 'saveCase', 'saveCaseAs', 'renameCase', 'archiveCase', 'recoverCase', 'chooseWorkspace', 'importDryRun', 'importCommit', 'exportSheetPdf', 'exportCalendar', 'readSettings', 'writeSettings', 'appInfo']) {
+    for (const required of ['listCases', 'openCase', 'createCase', 'saveCase', 'saveCaseAs', 'renameCase', 'archiveCase', 'recoverCase', 'chooseWorkspace', 'importDryRun', 'importCommit', 'workProgress', 'cancelWork', 'exportSheetPdf', 'exportCalendar', 'readSettings', 'writeSettings', 'appInfo']) {
       expect(hostCallNames).toContain(required);
     }
   });
@@ -47,6 +47,26 @@ describe('case ids', () => {
     for (const name of ['../th-0417.json', '..\\th-0417.json', 'sub/th-0417.json', '/etc/passwd.json', 'C:\\cases\\a.json', '%2e%2e%2fa.json', '.hidden.json', 'a..json', 'case.txt', 'case.json/..', '', 'a'.repeat(200) + '.json', 'th\u00000417.json']) {
       expect(caseIdSchema.safeParse(name).success, JSON.stringify(name)).toBe(false);
     }
+  });
+});
+
+describe('work ids', () => {
+  it('accepts 8 to 64 letters, digits, _ or - (the page makes 24 hex digits), and nothing else', () => {
+    for (const id of ['3f9a0c1d2e4b5a6978c0d1e2', 'a'.repeat(8), 'Z'.repeat(64), 'import_run-01']) expect(workIdSchema.safeParse(id).success, id).toBe(true);
+    // Each side of both bounds, and the path-traversal and separator forms the case ids refuse too.
+    for (const id of ['a'.repeat(7), 'a'.repeat(65), '', '../../etc/x', 'with space 1', 'tab\there12', 'ünïcödé-id', '%2e%2e%2fabcd']) expect(workIdSchema.safeParse(id).success, JSON.stringify(id)).toBe(false);
+  });
+
+  it('is what the progress and cancel calls take, and an import may carry', () => {
+    expect(hostContract.workProgress.request.safeParse({ workId: 'a'.repeat(24) }).success).toBe(true);
+    expect(hostContract.cancelWork.request.safeParse({ workId: 'a'.repeat(24), more: 1 }).success).toBe(false);
+    const request = { caseId: 'th-0417.json', kind: 'csv-results', sourceName: 'lab.csv', sourceText: 'date\n' };
+    expect(hostContract.importDryRun.request.safeParse(request).success).toBe(true);
+    expect(hostContract.importDryRun.request.safeParse({ ...request, workId: 'a'.repeat(24) }).success).toBe(true);
+    expect(hostContract.importCommit.request.safeParse({ ...request, baseRevision: 'r', workId: 'short' }).success).toBe(false);
+    expect(hostContract.workProgress.response.safeParse(null).success).toBe(true);
+    expect(hostContract.workProgress.response.safeParse({ step: 'Reading lab.csv', done: 1, total: 4 }).success).toBe(true);
+    expect(hostContract.workProgress.response.safeParse({ step: 'Reading lab.csv', done: -1, total: 4 }).success).toBe(false);
   });
 });
 
