@@ -96,8 +96,10 @@ export interface WorkspaceHost {
   commitRecordImport(request: RecordImportRequest, followed?: FollowedWork): Promise<Result<{ readonly counts: Readonly<Record<string, number>> }>>;
   /** Ask the host to stop the followed work of that id at its next step; false when it will not (finished, or a save under way, or no answer). */
   cancelWork(workId: string): Promise<{ readonly stopping: boolean }>;
-  exportSheet(id: string, asOf: string): Promise<Result<{ readonly location: string }>>;
-  exportCalendar(id: string, asOf: string): Promise<Result<{ readonly location: string }>>;
+  /** Write the review sheet of the saved case; with `followed`, the host's steps are reported and it can be cancelled before the file is written. */
+  exportSheet(id: string, asOf: string, followed?: FollowedWork): Promise<Result<{ readonly location: string }>>;
+  /** Write the monitoring calendar of the saved case; `followed` as for exportSheet. */
+  exportCalendar(id: string, asOf: string, followed?: FollowedWork): Promise<Result<{ readonly location: string }>>;
   readUnitSystem(): Promise<'si' | 'conventional'>;
   writeUnitSystem(system: 'si' | 'conventional'): Promise<void>;
   appVersion(): Promise<string>;
@@ -188,13 +190,15 @@ export function workspaceHostOver(api: HostApi): WorkspaceHost {
       const answer = await api.cancelWork({ workId });
       return { stopping: answer.ok && answer.value.stopping };
     },
-    async exportSheet(id, asOf) {
+    async exportSheet(id, asOf, followed) {
       const listedSettings = await api.readSettings({});
-      const written = await api.exportSheetPdf({ caseId: id, asOfDate: asOf, paper: listedSettings.ok ? listedSettings.value.paper : 'a4' });
+      const request = { caseId: id, asOfDate: asOf, paper: listedSettings.ok ? listedSettings.value.paper : ('a4' as const) };
+      const written = followed ? await followWork(api, followed, () => api.exportSheetPdf({ ...request, workId: followed.workId })) : await api.exportSheetPdf(request);
       return written.ok ? ok({ location: written.value.path }) : written;
     },
-    async exportCalendar(id, asOf) {
-      const written = await api.exportCalendar({ caseId: id, asOfDate: asOf });
+    async exportCalendar(id, asOf, followed) {
+      const request = { caseId: id, asOfDate: asOf };
+      const written = followed ? await followWork(api, followed, () => api.exportCalendar({ ...request, workId: followed.workId })) : await api.exportCalendar(request);
       return written.ok ? ok({ location: written.value.path }) : written;
     },
     async readUnitSystem() {

@@ -1,17 +1,10 @@
-import { mkdirSync } from 'node:fs';
 import { join } from 'node:path';
 import type { HostHandlers, HostValue } from '../../core/contract';
-import type { Case } from '../../core/model/caseFile';
-import { computeCase } from '../../core/ledger/computeCase';
-import { monitoringCalendar } from '../../core/monitoring';
-import { buildSheet } from '../../core/report/buildSheet';
-import { evaluateFindings } from '../../core/safety';
 import { fail, issue, ok, type Result } from '../../core/result';
 import { openCaseStore, type CaseStore, type OpenedCase } from './caseStore';
+import { exportCalendar, exportSheetPdf } from './exportCalls';
 import { importCommit, importDryRun } from './imports/importCalls';
 import { revisionFromToken, revisionToken } from './revisionToken';
-import { monitoringIcs } from './icalendar';
-import { writeFileAtomic } from './atomicWrite';
 import { toolVersion } from './toolVersion';
 import type { SettingsStore } from './settingsStore';
 import { insideFolder } from './workspaceFiles';
@@ -52,39 +45,6 @@ async function summaryFromStore(caseStore: CaseStore, caseId: string): Promise<S
   return summaryOf(caseId, await caseStore.open(caseId));
 }
 
-/** Write into the exports folder under a free name: `stem.ext`, else `stem-2.ext`, `stem-3.ext`… (atomically, never over an earlier export). */
-async function writeFresh(folder: string, stem: string, extension: string, data: string | Uint8Array): Promise<Result<string>> {
-  try {
-    mkdirSync(folder, { recursive: true });
-  } catch (error) {
-    return fail(issue('write_failed', ['output'], `Cannot make the exports folder ${folder}: ${(error as Error).message}.`));
-  }
-  for (let attempt = 1; attempt < 100; attempt += 1) {
-    const path = join(folder, `${stem}${attempt === 1 ? '' : `-${attempt}`}.${extension}`);
-    const written = await writeFileAtomic(path, data, { overwrite: false });
-    if (written.ok) return ok(path);
-    if (written.issues[0]?.code !== 'already_exists') return fail(...written.issues);
-  }
-  return fail(issue('already_exists', ['output'], `The exports folder ${folder} already holds 99 files named ${stem}; nothing was written.`));
-}
-
-/**
- * A case as saved in the workspace, read through the case store (exports are made from the file, not from
- * unsaved edits), with the SHA-256 of the bytes that were read (the sheet prints it; no second read of the file).
- */
-async function savedCase(caseStore: CaseStore, caseId: string): Promise<Result<{ readonly caseFile: Case; readonly sha256: string }>> {
-  const path = insideFolder(caseStore.folder, caseId);
-  if (!path.ok) return path;
-  const opened = await caseStore.open(caseId);
-  return opened.ok ? ok({ caseFile: opened.value.caseFile, sha256: opened.value.revision.sha256 }) : opened;
-}
-
-/** An export of a case into the workspace's exports folder, named `<case>-<what>.<extension>`. */
-async function writeExport(folder: string, caseId: string, what: string, extension: string, data: string | Uint8Array): Promise<Result<{ readonly path: string }>> {
-  const written = await writeFresh(join(folder, 'exports'), `${caseId.replace(/\.json$/, '')}-${what}`, extension, data);
-  return written.ok ? ok({ path: written.value }) : written;
-}
-
 const savedValue = (opened: OpenedCase) => ok({ caseId: opened.fileName, revision: revisionToken(opened.revision), warnings: [...opened.warnings] });
 
 /**
@@ -94,8 +54,8 @@ const savedValue = (opened: OpenedCase) => ok({ caseId: opened.fileName, revisio
  * import (app/host/imports/importCase.ts, via importCalls.ts); the monitoring calendar is
  * written with app/host/icalendar.ts, the review sheet with app/host/sheetPdf.ts
  * (both into the workspace's exports folder, never over an earlier export),
- * settings with settingsStore.ts. Imports run as steps under the page's work id
- * (app/host/workInProgress.ts), which workProgress and cancelWork answer about.
+ * settings with settingsStore.ts. Imports and exports (exportCalls.ts) run as steps under the
+ * page's work id (app/host/workInProgress.ts), which workProgress and cancelWork answer about.
  */
 export function createHostServices(environment: HostEnvironment): HostHandlers {
   const work = createWorkInProgress();
@@ -180,29 +140,8 @@ export function createHostServices(environment: HostEnvironment): HostHandlers {
     importCommit: (request) => store((caseStore) => work.run(request.workId, (ticket) => importCommit(caseStore, request, ticket))),
     workProgress: ({ workId }) => ok(work.progress(workId)),
     cancelWork: ({ workId }) => ok(work.cancel(workId)),
-    exportSheetPdf: ({ caseId, asOfDate, paper }) =>
-      store(async (caseStore) => {
-        const saved = await savedCase(caseStore, caseId);
-        if (!saved.ok) return saved;
-        const { caseFile, sha256 } = saved.value;
-        const computed = computeCase(caseFile, asOfDate);
-        if (!computed.ok) return computed;
-        // The local protocol's thresholds recorded in the case apply to every review of it (as on the command line).
-        const findings = evaluateFindings(caseFile, computed.value, asOfDate, caseFile.thresholdOverrides);
-        if (!findings.ok) return findings;
-        const sheet = buildSheet({ caseFile, results: computed.value, findings: findings.value, caseFileSha256: sha256, toolVersion, preparedBy: null });
-        // The PDF library loads only when a sheet is written (app/host/sheetPdf.ts owns it).
-        const bytes = await (await import('./sheetPdf')).writeSheetPdf(sheet, { paper });
-        return writeExport(caseStore.folder, caseId, `sheet-${asOfDate}`, 'pdf', bytes);
-      }),
-    exportCalendar: ({ caseId, asOfDate }) =>
-      store(async (caseStore) => {
-        const saved = await savedCase(caseStore, caseId);
-        if (!saved.ok) return saved;
-        const calendar = monitoringCalendar(saved.value.caseFile, asOfDate);
-        if (!calendar.ok) return calendar;
-        return writeExport(caseStore.folder, caseId, `monitoring-${asOfDate}`, 'ics', monitoringIcs(calendar.value, environment.now()));
-      }),
+    exportSheetPdf: (request) => store((caseStore) => work.run(request.workId, (ticket) => exportSheetPdf(caseStore, request, ticket, toolVersion))),
+    exportCalendar: (request) => store((caseStore) => work.run(request.workId, (ticket) => exportCalendar(caseStore, request, ticket, environment.now()))),
     readSettings: () => environment.settings.read(),
     writeSettings: (settings) => environment.settings.write(settings),
     takeOpenRequest: () => {

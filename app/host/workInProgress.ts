@@ -126,3 +126,22 @@ export function createWorkInProgress(): WorkInProgress {
     },
   };
 }
+
+/**
+ * The steps of one piece of work, counted on its ticket: each call reports the step that begins
+ * (with the steps done of those foreseen) and answers whether to go on (false: cancelled).
+ * `repeated` adds a step not foreseen (an import's check run again).
+ *
+ * @param ticket - the work's ticket
+ * @param foreseen - steps expected at the start
+ */
+export function countedSteps(ticket: WorkTicket, foreseen: number): (step: string, repeated?: boolean) => Promise<boolean> {
+  let done = 0;
+  let total = foreseen;
+  return async (step, repeated = false) => {
+    if (repeated) total += 1;
+    await ticket.report(step, done, total);
+    done += 1;
+    return !ticket.cancelled();
+  };
+}

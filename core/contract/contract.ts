@@ -211,12 +211,12 @@ export const hostContract = {
   ),
   exportSheetPdf: call(
     'Write the review sheet of a saved case as PDF; returns the file written.',
-    z.strictObject({ caseId: caseIdSchema, asOfDate: isoDateSchema, paper: z.enum(paperSizes) }),
+    z.strictObject({ caseId: caseIdSchema, asOfDate: isoDateSchema, paper: z.enum(paperSizes), workId: workIdSchema.optional() }),
     writtenFileSchema,
   ),
   exportCalendar: call(
     'Write the monitoring due for a saved case as an iCalendar file; returns the file written.',
-    z.strictObject({ caseId: caseIdSchema, asOfDate: isoDateSchema }),
+    z.strictObject({ caseId: caseIdSchema, asOfDate: isoDateSchema, workId: workIdSchema.optional() }),
     writtenFileSchema,
   ),
   readSettings: call('The user\'s settings (defaults where none are stored).', emptyRequest, settingsSchema),

@@ -7,6 +7,7 @@ import { formatIssues } from '../../core/result';
 import { newWorkId, type RecordImportPreview, type RecordImportRequest, type StoredCase, type WorkProgress, type WorkspaceHost } from '../hostPort';
 import { checkDraft, draftFromJson, draftToJson, isDraft, type Draft, type DraftCheck } from '../viewModels/draftCase';
 import { importCancelledText, importedText, importStoppingText, importTooLateText, kindForFile, type DateOrder, type ImportKind } from '../viewModels/recordImport';
+import { exportBusy, exportOutcomeText, exportStoppingStep, type BusyWork } from '../viewModels/busy';
 import { createKeptDrafts, pageKeptDrafts, type KeptDrafts } from './keptDrafts';
 
 /**
@@ -81,7 +82,7 @@ export interface WorkspaceState {
   readonly lastExport: string | null;
   readonly aboutOpen: boolean;
   /** Long work under way (reading a workspace, writing an export), with how far it got; null when idle. */
-  readonly busy: { readonly label: string; readonly done: number; readonly total: number | null } | null;
+  readonly busy: BusyWork | null;
   /** A case file the operating system asked to open while this case had unsaved changes: it opens once they are saved or undone. */
   readonly openWaiting: boolean;
   /** The workspace folder the host reads, where it has one (null for the in-page store). */
@@ -320,15 +321,26 @@ export function createWorkspaceStore(drafts: KeptDrafts = createKeptDrafts(null)
       keepImport();
       void runPreview();
     };
+    /** An export followed on the host (its steps on the busy line); Cancel asks the host to stop before the file is written. */
     const exportWith = async (kind: 'sheet' | 'calendar', asOf: string) => {
       const { host, openId } = get();
       if (!host || !openId) return;
-      begin(kind === 'sheet' ? 'Writing the review sheet' : 'Writing the monitoring calendar');
-      const written = kind === 'sheet' ? await host.exportSheet(openId, asOf) : await host.exportCalendar(openId, asOf);
-      const wasCancelled = cancelled;
+      const what = kind === 'sheet' ? 'review sheet' : 'monitoring calendar';
+      const label = `Writing the ${what}`;
+      const workId = newWorkId();
+      cancelled = false;
+      set({ busy: { label, done: 0, total: null, workId } });
+      const followed = {
+        workId,
+        // A step reported after Cancel was pressed does not hide "Stopping".
+        onProgress: (progress: WorkProgress) => {
+          if (get().busy?.workId === workId && !cancelled) set({ busy: exportBusy(label, workId, progress) });
+        },
+      };
+      const written = kind === 'sheet' ? await host.exportSheet(openId, asOf, followed) : await host.exportCalendar(openId, asOf, followed);
       set({ busy: null });
-      if (wasCancelled) set({ message: `No longer waiting for the ${kind}; the host may still write it${written.ok ? ` (it reported ${written.value.location})` : ''}.` });
-      else if (written.ok) set({ lastExport: `${kind === 'sheet' ? 'Review sheet' : 'Monitoring calendar'} written to ${written.value.location}` });
+      if (written.ok) set({ lastExport: exportOutcomeText(what, { location: written.value.location, cancelAsked: cancelled }) });
+      else if (written.issues.some((it) => it.code === 'cancelled')) set({ lastExport: exportOutcomeText(what, 'stopped') });
       else set({ message: `The ${kind} was not written: ${formatIssues(written.issues)}` });
     };
     return {
@@ -403,6 +415,12 @@ export function createWorkspaceStore(drafts: KeptDrafts = createKeptDrafts(null)
       },
       cancelBusy() {
         cancelled = true;
+        const { host, busy } = get();
+        // Work the host follows (an export) is asked to stop; the answer it then gives says whether it did.
+        if (host && busy?.workId !== undefined) {
+          set({ busy: { ...busy, step: exportStoppingStep } });
+          void host.cancelWork(busy.workId);
+        }
       },
       async openRequested() {
         const { host, openId, saveState } = get();

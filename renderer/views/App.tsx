@@ -12,6 +12,7 @@ import { SheetView } from './SheetView';
 import { AboutDialog } from './AboutDialog';
 import { cautionText } from './cautionText';
 import { RestoredNotice } from './RestoredNotice';
+import { busyBar, busyText } from '../viewModels/busy';
 
 const screenTitles: Readonly<Record<Screen, string>> = {
   cases: 'Cases',
@@ -126,10 +127,10 @@ export function App() {
 function BusyLine() {
   const busy = useWorkspace((state) => state.busy);
   if (!busy) return null;
+  const bar = busyBar(busy);
   return (
     <div className="busy" role="status">
-      {busy.label}
-      {busy.total === null ? '…' : <> <progress max={busy.total} value={busy.done} aria-label={busy.label} /> {busy.done} of {busy.total}</>}{' '}
+      {bar.max === null ? <progress aria-label={bar.label} /> : <progress max={bar.max} value={bar.value ?? 0} aria-label={bar.label} />} {busyText(busy)}{' '}
       <button type="button" onClick={() => workspaceStore.getState().cancelBusy()}>Cancel</button>
     </div>
   );

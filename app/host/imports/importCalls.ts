@@ -6,7 +6,7 @@ import { readCodeMap } from './codeMap';
 import { csvColumnMapping, csvFieldsByKind, type CsvKind } from './csvImport';
 import { commitImport, describeEntry, previewImportStepwise, previewRowsShown, type ImportChoices, type ImportPreview } from './importCase';
 import type { Rejected } from './importPlan';
-import type { WorkTicket } from '../workInProgress';
+import { countedSteps, type WorkTicket } from '../workInProgress';
 
 /**
  * The host contract's importDryRun and importCommit over the shared import
@@ -58,19 +58,7 @@ function rejectedRow(row: Rejected): { line: number | null; reason: string } {
 /** The steps an import foresees: opening, reading, checking, and saving for a commit (a check repeated adds one). */
 const foreseenSteps = { preview: 3, commit: 4 } as const;
 
-/** The steps of one import, counted, on its ticket; each answers whether to go on (false: cancelled). */
-function stepsOn(ticket: WorkTicket, foreseen: number) {
-  let done = 0;
-  let total = foreseen;
-  return async (step: string, repeated = false): Promise<boolean> => {
-    if (repeated) total += 1;
-    await ticket.report(step, done, total);
-    done += 1;
-    return !ticket.cancelled();
-  };
-}
-
-type Step = ReturnType<typeof stepsOn>;
+type Step = ReturnType<typeof countedSteps>;
 
 /** The answer of an import the user cancelled: nothing was written. */
 const cancelledImport = (request: ImportRequest, what: 'preview' | 'commit'): Result<never> =>
@@ -122,7 +110,7 @@ const cautionWarnings = (found: ImportPreview): Issue[] => found.cautions.map((t
  * and every code not known (listed among the refused, never dropped). Nothing is written.
  */
 export async function importDryRun(store: CaseStore, request: ImportRequest, ticket: WorkTicket): Promise<Result<HostValue<'importDryRun'>>> {
-  const found = await preview(store, request, stepsOn(ticket, foreseenSteps.preview), 'preview');
+  const found = await preview(store, request, countedSteps(ticket, foreseenSteps.preview), 'preview');
   const csvKind = request.kind === 'fhir-bundle' ? null : csvKindOf[request.kind];
   const mapping = csvKind === null ? ok(undefined) : fieldMapping(request, csvKind);
   const columns = csvKind !== null && mapping.ok ? csvColumnMapping(request.sourceText, csvKind, mapping.value) : null;
@@ -164,7 +152,7 @@ export async function importDryRun(store: CaseStore, request: ImportRequest, tic
 export async function importCommit(store: CaseStore, request: HostParsedRequest<'importCommit'>, ticket: WorkTicket): Promise<Result<HostValue<'importCommit'>>> {
   const expected = revisionFromToken(request.baseRevision);
   if (!expected.ok) return expected;
-  const step = stepsOn(ticket, foreseenSteps.commit);
+  const step = countedSteps(ticket, foreseenSteps.commit);
   const found = await preview(store, request, step, 'commit');
   if (!found.ok) return found;
   const { opened, preview: previewed } = found.value;

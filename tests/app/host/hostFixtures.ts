@@ -2,6 +2,7 @@ import { copyFileSync, mkdtempSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
+import type { HostDispatch } from '../../../app/host/hostDispatch';
 import type { HostEnvironment } from '../../../app/host/hostServices';
 import { createSettingsStore } from '../../../app/host/settingsStore';
 
@@ -27,4 +28,24 @@ export function demoEnvironment(overrides: Partial<HostEnvironment> = {}): HostE
     now: () => new Date(Date.UTC(2026, 10, 20, 9, 0, 0)),
     ...overrides,
   };
+}
+
+export type Progress = { step: string; done: number; total: number } | null;
+
+/** Every distinct progress the host answered while `call` ran, asked for between the host's turns (setImmediate). */
+export async function watch(dispatch: HostDispatch, workId: string, call: Promise<unknown>, onProgress?: (seen: Progress) => void): Promise<{ answer: unknown; seen: Progress[] }> {
+  let finished = false;
+  const answer = call.finally(() => (finished = true));
+  const seen: Progress[] = [];
+  while (!finished) {
+    await new Promise((resolve) => setImmediate(resolve));
+    const polled = await dispatch('workProgress', { workId });
+    if (!polled.ok) throw new Error(JSON.stringify(polled));
+    const progress = polled.value as Progress;
+    if (progress && JSON.stringify(progress) !== JSON.stringify(seen[seen.length - 1])) {
+      seen.push(progress);
+      onProgress?.(progress);
+    }
+  }
+  return { answer: await answer, seen };
 }

@@ -1,9 +1,9 @@
 import { readdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { createHostDispatch, type HostDispatch } from '../../../app/host/hostDispatch';
+import { createHostDispatch } from '../../../app/host/hostDispatch';
 import { createHostServices } from '../../../app/host/hostServices';
-import { demoEnvironment } from './hostFixtures';
+import { demoEnvironment, watch } from './hostFixtures';
 
 // The progress and the cancel of an import through the host contract (workProgress, cancelWork),
 // called through the one dispatcher both transports use, on copies of the demo cases. Outside
@@ -32,26 +32,6 @@ function setUp() {
     return (opened.value as { revision: string }).revision;
   };
   return { dispatch, disk, revisionOf };
-}
-
-type Progress = { step: string; done: number; total: number } | null;
-
-/** Every distinct progress the host answered while `call` ran, asked for between the host's turns (setImmediate). */
-async function watch(dispatch: HostDispatch, workId: string, call: Promise<unknown>, onProgress?: (seen: Progress) => void): Promise<{ answer: unknown; seen: Progress[] }> {
-  let finished = false;
-  const answer = call.finally(() => (finished = true));
-  const seen: Progress[] = [];
-  while (!finished) {
-    await new Promise((resolve) => setImmediate(resolve));
-    const polled = await dispatch('workProgress', { workId });
-    if (!polled.ok) throw new Error(JSON.stringify(polled));
-    const progress = polled.value as Progress;
-    if (progress && JSON.stringify(progress) !== JSON.stringify(seen[seen.length - 1])) {
-      seen.push(progress);
-      onProgress?.(progress);
-    }
-  }
-  return { answer: await answer, seen };
 }
 
 describe('an import reports its steps under the page\'s work id', () => {
