@@ -12,6 +12,8 @@ export function SheetView() {
   const lastExport = useWorkspace((state) => state.lastExport);
   const saveState = useWorkspace((state) => state.saveState);
   const version = useWorkspace((state) => state.version);
+  // One export at a time: while one runs (the busy line above shows it), the buttons wait.
+  const exporting = useWorkspace((state) => state.busy !== null);
   if (!outcome || !caseFile) return <p>Open a case first.</p>;
   if (!outcome.ok) return <ReviewProblem issues={outcome.issues} />;
   const sheet = sheetOf(caseFile, outcome.review, version);
@@ -19,8 +21,8 @@ export function SheetView() {
   return (
     <>
       <div className="toolbar">
-        <button type="button" className="primary" disabled={saveState !== 'saved'} onClick={() => exportSheet(asOf)}>Export the sheet as PDF</button>
-        <button type="button" disabled={saveState !== 'saved'} onClick={() => exportCalendar(asOf)}>Export the monitoring calendar</button>
+        <button type="button" className="primary" disabled={saveState !== 'saved' || exporting} onClick={() => exportSheet(asOf)}>Export the sheet as PDF</button>
+        <button type="button" disabled={saveState !== 'saved' || exporting} onClick={() => exportCalendar(asOf)}>Export the monitoring calendar</button>
         <span role="status">{lastExport ?? (saveState === 'saved' ? '' : 'Exports wait until the record is saved.')}</span>
       </div>
       <article className="sheet-preview" aria-label="Review sheet preview">

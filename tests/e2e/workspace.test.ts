@@ -407,6 +407,57 @@ describe('a long import through the preview server, run as a process of its own:
   }, 180_000);
 });
 
+describe('an export through the preview server, run as a process of its own: the host\'s steps on screen, and Cancel', { retry: 2 }, () => {
+  it('shows the sheet\'s steps with a bar, and after Cancel says what became of the file, as the exports folder shows', async () => {
+    const preview = await startPreviewProcess(workspace.rendererFolder);
+    const context = await browser.newContext({ viewport: { width: 1400, height: 900 } });
+    const page = await context.newPage();
+    const errors: string[] = [];
+    page.on('pageerror', (error) => errors.push(error.message));
+    try {
+      const { existsSync, readdirSync } = await import('node:fs');
+      const { join } = await import('node:path');
+      const exported = () => (existsSync(join(preview.workspaceFolder, 'exports')) ? readdirSync(join(preview.workspaceFolder, 'exports')) : []);
+      await page.goto(preview.url);
+      await page.locator('button[aria-label="Open TH-0417"]').click();
+      await page.getByRole('navigation', { name: 'Screens' }).getByRole('button', { name: 'Sheet' }).click();
+      // Every text the busy line shows, recorded in the page as it changes (a step may show for a moment only).
+      await page.evaluate(() => {
+        const shown: string[] = [];
+        (window as unknown as { shownBusy: string[] }).shownBusy = shown;
+        new MutationObserver(() => {
+          const text = document.querySelector('.busy')?.textContent?.trim();
+          if (text && shown[shown.length - 1] !== text) shown.push(text);
+        }).observe(document.body, { subtree: true, childList: true, characterData: true });
+      });
+      const status = page.locator('.toolbar [role="status"]');
+      await page.click('button:has-text("Export the sheet as PDF")');
+      await expect.poll(() => status.textContent(), { timeout: 60_000 }).toMatch(/^Review sheet written to .*th-0417-sheet-2026-11-20\.pdf$/);
+      const shown = await page.evaluate(() => (window as unknown as { shownBusy: string[] }).shownBusy);
+      // The page's own label first, then a step the host reported (four foreseen: opening, reviewing, laying out, writing).
+      expect(shown[0]).toBe('Writing the review sheet… Cancel');
+      expect(shown.some((text) => /^Writing the review sheet: .+ \(step [1-4] of 4\) Cancel$/.test(text)), shown.join(' | ')).toBe(true);
+      expect(exported()).toEqual(['th-0417-sheet-2026-11-20.pdf']);
+
+      // Again, and Cancel as soon as the busy line shows: the host is asked to stop before it writes the file.
+      await page.click('button:has-text("Export the sheet as PDF")');
+      await page.locator('.busy progress[aria-label="Writing the review sheet"]').waitFor();
+      await page.screenshot({ path: `${artifactsDir}export-progress.png` });
+      await page.locator('.busy button:has-text("Cancel")').click();
+      const outcome = page.locator('.toolbar [role="status"]', { hasText: /Export stopped|Too late to stop/ });
+      await outcome.waitFor({ timeout: 60_000 });
+      // The screen's words and the folder agree: stopped before the writing, no new file; too late, the second file is there.
+      const text = (await outcome.textContent()) ?? '';
+      expect(exported().sort()).toEqual(text.startsWith('Export stopped') ? ['th-0417-sheet-2026-11-20.pdf'] : ['th-0417-sheet-2026-11-20-2.pdf', 'th-0417-sheet-2026-11-20.pdf']);
+      await page.screenshot({ path: `${artifactsDir}export-stopped.png` });
+      expect(errors).toEqual([]);
+    } finally {
+      await context.close();
+      await preview.stop();
+    }
+  }, 180_000);
+});
+
 describe('kept drafts', { retry: 2 }, () => {
   it('keeps a new case being typed and a record entry core refuses across a reload, says so, and discards on request', async () => {
     const { context, page, errors } = await openPage({ 'th-0417.json': demo });
