@@ -44,6 +44,21 @@ afterAll(async () => {
   await workspace?.stop();
 });
 
+/** A page on the preview server run as a process of its own (startPreviewProcess), with the page's errors; both closed after `use`. */
+async function onPreviewProcess(use: (page: Page, preview: Awaited<ReturnType<typeof startPreviewProcess>>, errors: string[]) => Promise<void>): Promise<void> {
+  const preview = await startPreviewProcess(workspace.rendererFolder);
+  const context = await browser.newContext({ viewport: { width: 1400, height: 900 } });
+  const page = await context.newPage();
+  const errors: string[] = [];
+  page.on('pageerror', (error) => errors.push(error.message));
+  try {
+    await use(page, preview, errors);
+  } finally {
+    await context.close();
+    await preview.stop();
+  }
+}
+
 async function openPage(seed?: Record<string, unknown>, options: { bypassCSP?: boolean } = {}): Promise<{ context: BrowserContext; page: Page; errors: string[] }> {
   const context = await browser.newContext({ viewport: { width: 1400, height: 900 }, bypassCSP: options.bypassCSP ?? false });
   if (seed) {
@@ -356,12 +371,7 @@ describe('a long import through the preview server, run as a process of its own:
   const longCsv = `Date given,Volume (mL),Hct,Units\n${Array.from({ length: 120_000 }, (_, index) => `2026-${String(1 + (index % 10)).padStart(2, '0')}-${String(1 + (index % 28)).padStart(2, '0')},300,0.6,1`).join('\n')}\n`;
 
   it('shows the host\'s step with a progress bar while the file is read and checked, and Cancel stops the commit before anything is saved', async () => {
-    const preview = await startPreviewProcess(workspace.rendererFolder);
-    const context = await browser.newContext({ viewport: { width: 1400, height: 900 } });
-    const page = await context.newPage();
-    const errors: string[] = [];
-    page.on('pageerror', (error) => errors.push(error.message));
-    try {
+    await onPreviewProcess(async (page, preview, errors) => {
       const { readdirSync } = await import('node:fs');
       const { join } = await import('node:path');
       const disk = () => ({ file: readFileSync(join(preview.workspaceFolder, 'th-0417.json'), 'utf8'), names: readdirSync(preview.workspaceFolder).sort() });
@@ -400,21 +410,13 @@ describe('a long import through the preview server, run as a process of its own:
       expect(disk()).toEqual(before);
       expect(await page.locator('.caution').first().textContent()).toContain('for review by the prescriber');
       expect(errors).toEqual([]);
-    } finally {
-      await context.close();
-      await preview.stop();
-    }
+    });
   }, 180_000);
 });
 
 describe('an export through the preview server, run as a process of its own: the host\'s steps on screen, and Cancel', { retry: 2 }, () => {
   it('shows the sheet\'s steps with a bar, and after Cancel says what became of the file, as the exports folder shows', async () => {
-    const preview = await startPreviewProcess(workspace.rendererFolder);
-    const context = await browser.newContext({ viewport: { width: 1400, height: 900 } });
-    const page = await context.newPage();
-    const errors: string[] = [];
-    page.on('pageerror', (error) => errors.push(error.message));
-    try {
+    await onPreviewProcess(async (page, preview, errors) => {
       const { existsSync, readdirSync } = await import('node:fs');
       const { join } = await import('node:path');
       const exported = () => (existsSync(join(preview.workspaceFolder, 'exports')) ? readdirSync(join(preview.workspaceFolder, 'exports')) : []);
@@ -451,10 +453,7 @@ describe('an export through the preview server, run as a process of its own: the
       expect(exported().sort()).toEqual(text.startsWith('Export stopped') ? ['th-0417-sheet-2026-11-20.pdf'] : ['th-0417-sheet-2026-11-20-2.pdf', 'th-0417-sheet-2026-11-20.pdf']);
       await page.screenshot({ path: `${artifactsDir}export-stopped.png` });
       expect(errors).toEqual([]);
-    } finally {
-      await context.close();
-      await preview.stop();
-    }
+    });
   }, 180_000);
 });
 
