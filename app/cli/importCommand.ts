@@ -128,7 +128,9 @@ export async function importCommand(args: ParsedArgs, io: CliIo & StoreIo & Text
   const { rejected, entries } = preview;
   const lines: string[] = [`Import from ${file} into ${into} (${caseFile.patient.label}):`, ...preview.understood.map((it) => `  ${it}`)];
   const { counts } = preview;
-  lines.push(`${args.switches.has('--dry-run') ? 'Would add' : 'Adding'}: ${counts.transfusions} transfusion(s), ${counts.results} result(s), ${counts.weights} weight(s), ${counts.heights} height(s).`);
+  // Red-cell exchanges and venesections named only when the file holds some (they share the transfusion list).
+  const bloodRemoved = [...(counts.exchanges > 0 ? [`${counts.exchanges} red-cell exchange(s)`] : []), ...(counts.venesections > 0 ? [`${counts.venesections} venesection(s)`] : [])];
+  lines.push(`${args.switches.has('--dry-run') ? 'Would add' : 'Adding'}: ${[`${counts.transfusions} transfusion(s)`, ...bloodRemoved, `${counts.results} result(s)`, `${counts.weights} weight(s)`, `${counts.heights} height(s)`].join(', ')}.`);
   for (const entry of entries.slice(0, previewRowsShown)) lines.push(`  ${entry.where}: ${describeEntry(entry)}`);
   if (entries.length > previewRowsShown) lines.push(`  … and ${entries.length - previewRowsShown} more`);
   if (rejected.length > 0) {

@@ -72,6 +72,8 @@ export function withColumnField(mapping: CsvMapping, column: string, field: stri
 const plural = (count: number, one: string, many: string) => `${formatNumber(count, 0)} ${count === 1 ? one : many}`;
 const listWords: Readonly<Record<string, readonly [string, string]>> = {
   transfusions: ['transfusion', 'transfusions'],
+  exchanges: ['red-cell exchange', 'red-cell exchanges'],
+  venesections: ['venesection', 'venesections'],
   results: ['result', 'results'],
   weights: ['weight', 'weights'],
   heights: ['height', 'heights'],

@@ -284,6 +284,9 @@ describe('the import view-model', () => {
     expect(importStepText(pending)).toBe('Reading big.csv (step 1,234 of 60,000)');
     const preview: RecordImportPreview = { counts: { transfusions: 60000, results: 1 }, firstRows: [], rejected: Array.from({ length: 1200 }, (_, index) => ({ line: index + 2, reason: 'r' })) };
     expect(importPreviewView(preview).addsText).toBe('Would add 60,000 transfusions, 1 result.');
+    // Exchanges and venesections are named as what they are (the host counts the transfusion list by kind).
+    expect(importPreviewView({ ...preview, counts: { transfusions: 0, exchanges: 2, venesections: 1, results: 0, weights: 0, heights: 0 } }).addsText).toBe('Would add 2 red-cell exchanges, 1 venesection.');
+    expect(importedText({ exchanges: 1 }, 'rcx.csv', 'SC-0781')).toBe('Added 1 red-cell exchange from rcx.csv to SC-0781.');
     expect(importPreviewView(preview).rejectedText).toBe('1,200 rows or entries are refused and would not be added:');
     expect(importedText({ transfusions: 60000 }, 'x.csv', 'TH-0417')).toBe('Added 60,000 transfusions from x.csv to TH-0417.');
   });

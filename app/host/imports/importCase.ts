@@ -47,7 +47,25 @@ export interface ImportChoices {
   readonly codeMap?: CodeMap;
 }
 
-export type ImportCounts = Readonly<Record<ProposedEntry['list'], number>>;
+/**
+ * What an import would add, by record kind: the transfusion list's entries by their kind (simple
+ * transfusions, red-cell exchanges, venesections: the record keeps all three in one list, but a reader
+ * counts them apart), the other lists whole.
+ */
+export type ImportCounts = Readonly<Record<'transfusions' | 'exchanges' | 'venesections' | Exclude<ProposedEntry['list'], 'transfusions'>, number>>;
+
+/** The count an entry adds to: its list, or for the transfusion list its kind. */
+function countedAs(entry: ProposedEntry): keyof ImportCounts {
+  if (entry.list !== 'transfusions') return entry.list;
+  return entry.entry['kind'] === 'exchange' ? 'exchanges' : entry.entry['kind'] === 'venesection' ? 'venesections' : 'transfusions';
+}
+
+/** Every kind's count, none left out (a kind not in the import counts 0). */
+export function importCounts(entries: readonly ProposedEntry[]): ImportCounts {
+  const counts = { transfusions: 0, exchanges: 0, venesections: 0, results: 0, weights: 0, heights: 0 };
+  for (const entry of entries) counts[countedAs(entry)] += 1;
+  return counts;
+}
 
 /** What an import would add to a case, before anything is written. */
 export interface ImportPreview {
@@ -214,12 +232,11 @@ export function* previewSteps(source: ImportSource, caseFile: Case, choices: Imp
   const plan = readPlan(source, caseFile, choices);
   if (!plan.ok) return plan;
   const screened = yield* screenSteps(caseFile, plan.value);
-  const count = (list: ProposedEntry['list']) => screened.entries.filter((it) => it.list === list).length;
   return ok({
     format: plan.value.format,
     understood: plan.value.understood,
     entries: screened.entries,
-    counts: { transfusions: count('transfusions'), results: count('results'), weights: count('weights'), heights: count('heights') },
+    counts: importCounts(screened.entries),
     rejected: [...plan.value.rejected, ...screened.rejected],
     unknownCodes: plan.value.unknownCodes,
     cautions: patientCautions(caseFile, plan.value.patient),

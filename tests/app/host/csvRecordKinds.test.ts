@@ -109,7 +109,7 @@ describe('CSV import of venesections', () => {
     expect(preview.value.rejected[0]!.reason).toBe('column "Hct": patient haematocrit 41 looks like a percentage; write the column header with (%) or enter it as a fraction');
     // 4500 mL is beyond what one venesection can remove (the case model's possible range; the same message as check).
     expect(preview.value.rejected[1]!.reason).toMatch(/^column "Volume removed": transfusions\[\d+\]\.volumeRemoved\.value 4500 mL is not possible/);
-    expect(preview.value.counts.transfusions).toBe(2);
+    expect(preview.value.counts).toMatchObject({ venesections: 2, transfusions: 0, exchanges: 0 });
   });
 });
 
@@ -124,6 +124,8 @@ describe('import command with exchanges and venesections', () => {
     expect(run.code, run.err).toBe(0);
     expect(run.out).toContain('line 2: 2026-09-07 automated exchange 2100 mL in (unit haematocrit 0.58), 2300 mL out, patient haematocrit 0.27');
     expect(run.out).toContain('line 5: column "Method": method "semi-automatic" is neither manual nor automated (apheresis)');
+    // Counted as what they are: the three rows are exchanges, not transfusions (they share the record's list).
+    expect(run.out).toContain('Adding: 0 transfusion(s), 3 red-cell exchange(s), 0 result(s), 0 weight(s), 0 height(s).');
     const saved = JSON.parse(readFileSync(casePath, 'utf8'));
     expect(saved.transfusions.filter((it: { kind: string }) => it.kind === 'exchange')).toHaveLength(3);
     const journal = readFileSync(join(folder, 'th-0417.journal.jsonl'), 'utf8').trim().split('\n');

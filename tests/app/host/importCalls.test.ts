@@ -47,7 +47,7 @@ describe('importDryRun through the host contract', () => {
     expect(answer.ok, JSON.stringify(answer)).toBe(true);
     if (!answer.ok) return;
     const value = answer.value as { counts: Record<string, number>; firstRows: string[]; rejected: { line: number | null; reason: string }[]; understood: string[] };
-    expect(value.counts).toEqual({ transfusions: 2, results: 0, weights: 0, heights: 0 });
+    expect(value.counts).toEqual({ transfusions: 2, exchanges: 0, venesections: 0, results: 0, weights: 0, heights: 0 });
     expect(value.firstRows).toEqual(['line 2: 2026-11-24 transfusion 560 mL, unit haematocrit 0.6', 'line 4: 2026-11-26 transfusion 540 mL, unit haematocrit 0.58']);
     expect(value.understood).toContain('volume ← column "volume (L)" (guessed)');
     // The file, its journal and the folder are byte for byte as before.
@@ -100,7 +100,8 @@ describe('importDryRun through the host contract', () => {
     if (!exchanges.ok) return;
     const exchangePreview = exchanges.value as { counts: Record<string, number>; firstRows: string[] };
     expect(exchangePreview.firstRows[0]).toBe('line 2: 2026-11-20 automated exchange 2100 mL in (unit haematocrit not given, the product default applies), 2300 mL out, patient haematocrit 0.27');
-    expect(exchangePreview.counts['transfusions']).toBe(2);
+    // Counted by kind (the contract's counts are by record kind): two exchanges, no simple transfusion.
+    expect(exchangePreview.counts).toMatchObject({ exchanges: 2, transfusions: 0, venesections: 0 });
     const venesections = await dispatch('importDryRun', { caseId, kind: 'csv-venesections', sourceName: 'v.csv', sourceText: 'date,volume removed,hct\n2026-11-20,450,0.41\n' });
     expect(venesections.ok && (venesections.value as { firstRows: string[] }).firstRows).toEqual(['line 2: 2026-11-20 venesection 450 mL, patient haematocrit 0.41']);
     const wrongField = await dispatch('importDryRun', { caseId, kind: 'csv-venesections', sourceName: 'v.csv', sourceText: 'a,b\n', columnMapping: { a: 'volumeIn' } });
