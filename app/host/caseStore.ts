@@ -8,6 +8,7 @@ import { boundedMap } from './boundedMap';
 import { caseJsonFromText } from './caseFiles';
 import { decodeTextBytes } from './textFiles';
 import { appendJournal, contentHash, journalEntries, journalNameFor, readJournal, type JournalEntry, type JournalLine } from './caseJournal';
+import { exportsFolderName } from './workspaceFiles';
 
 /**
  * What a case file looked like on disk when it was read or written: the
@@ -359,6 +360,8 @@ export function openCaseStore(folder: string, options: CaseStoreOptions = {}): C
     let names: string[];
     try {
       await sweepTemporaryFiles(folder, now().getTime(), fs);
+      // An export cut off as it was written leaves its temporary file in the exports folder (exportCalls.ts).
+      await sweepTemporaryFiles(join(folder, exportsFolderName), now().getTime(), fs);
       names = await nodeFs.readdir(folder);
     } catch (error) {
       return fail(issue('invalid_file', [], `Cannot list the workspace folder ${folder}: ${describeFsError(error)}.`));

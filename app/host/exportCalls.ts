@@ -11,7 +11,7 @@ import { writeFileAtomic } from './atomicWrite';
 import type { CaseStore } from './caseStore';
 import { monitoringIcs } from './icalendar';
 import { countedSteps, type WorkTicket } from './workInProgress';
-import { insideFolder } from './workspaceFiles';
+import { exportsFolderName, insideFolder } from './workspaceFiles';
 
 /**
  * The host contract's exports of a saved case into the workspace's exports
@@ -89,7 +89,7 @@ export async function exportSheetPdf(caseStore: CaseStore, request: HostParsedRe
   const stem = exportStem(caseId, `sheet-${asOfDate}`);
   if (!(await step(`Writing ${stem}.pdf`))) return cancelledExport('review sheet', caseId);
   ticket.unstoppable();
-  const written = await writeFresh(join(caseStore.folder, 'exports'), stem, 'pdf', bytes);
+  const written = await writeFresh(join(caseStore.folder, exportsFolderName), stem, 'pdf', bytes);
   return written.ok ? ok({ path: written.value }) : written;
 }
 
@@ -113,6 +113,6 @@ export async function exportCalendar(caseStore: CaseStore, request: HostParsedRe
   const stem = exportStem(caseId, `monitoring-${asOfDate}`);
   if (!(await step(`Writing ${stem}.ics`))) return cancelledExport('monitoring calendar', caseId);
   ticket.unstoppable();
-  const written = await writeFresh(join(caseStore.folder, 'exports'), stem, 'ics', monitoringIcs(calendar.value, now));
+  const written = await writeFresh(join(caseStore.folder, exportsFolderName), stem, 'ics', monitoringIcs(calendar.value, now));
   return written.ok ? ok({ path: written.value }) : written;
 }

@@ -22,3 +22,6 @@ export function insideFolder(folder: string, fileName: string): Result<string> {
   }
   return ok(target);
 }
+
+/** The folder inside a workspace that exports (review sheets, monitoring calendars) are written to. */
+export const exportsFolderName = 'exports';

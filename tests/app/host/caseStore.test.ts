@@ -1,4 +1,4 @@
-import { appendFileSync, existsSync, mkdtempSync, readdirSync, readFileSync, rmSync, utimesSync, writeFileSync } from 'node:fs';
+import { appendFileSync, existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, utimesSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
@@ -317,6 +317,19 @@ describe('case store: temporary files left by an interrupted save', () => {
     expect(left).toEqual([files.notOurs, files.recent, files.upperHex, 'a.journal.jsonl', 'a.json', files.notOursEither].sort());
     // The case itself is untouched.
     expect(value(await store.open('a.json')).caseFile.patient.label).toBe('TH-0417');
+  });
+
+  it('sweeps the exports folder the same way (an export cut off as it was written), and leaves the exports', async () => {
+    value(await store.create('a.json', demo(), 'created'));
+    const exports = join(folder, 'exports');
+    mkdirSync(exports);
+    const files = { old: '.a-sheet-2026-11-20.pdf.0123456789ab.tmp', recent: '.a-sheet-2026-11-20.pdf.ba9876543210.tmp', written: 'a-sheet-2026-11-20.pdf' };
+    for (const name of Object.values(files)) writeFileSync(join(exports, name), '%PDF-');
+    utimesSync(join(exports, files.old), at(tenMinutesMs + 1000), at(tenMinutesMs + 1000));
+    utimesSync(join(exports, files.recent), at(tenMinutesMs - 1000), at(tenMinutesMs - 1000));
+    utimesSync(join(exports, files.written), at(3 * tenMinutesMs), at(3 * tenMinutesMs));
+    value(await store.list());
+    expect(readdirSync(exports).sort()).toEqual([files.recent, files.written].sort());
   });
 
   it('leaves a temporary file it cannot remove (a read-only share) and still lists the cases', async () => {
