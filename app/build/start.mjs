@@ -15,6 +15,10 @@ const pkg = JSON.parse(readFileSync(join(root, 'package.json'), 'utf8'));
 const args = process.argv.slice(2);
 const previewOnly = args[0] === '--preview';
 const rest = previewOnly ? args.slice(1) : args;
+// npm runs scripts in the project folder and names the folder it was called from in INIT_CWD: a case
+// file given as `npm start -- ../cases/ab-0001.json` is read from there, as the user meant it. The app
+// and the preview find their own files from where they are installed, not from the working folder.
+const callerFolder = process.env.INIT_CWD ?? process.cwd();
 
 /** The Electron binary installed with the electron package, or null when it was never downloaded. */
 export function electronBinary(projectRoot = root) {
@@ -40,9 +44,9 @@ if (import.meta.url === `file://${process.argv[1]}`) {
   }
   const electron = previewOnly ? null : electronBinary();
   if (electron) {
-    run(spawn(electron, [root, ...rest], { cwd: root, stdio: 'inherit' }));
+    run(spawn(electron, [root, ...rest], { cwd: callerFolder, stdio: 'inherit' }));
   } else {
     if (!previewOnly) console.log("Electron's binary is not installed on this machine (it could not be downloaded), so the app opens in your browser instead:");
-    run(spawn(process.execPath, [join(root, 'dist', 'cli.cjs'), 'preview', ...rest], { cwd: root, stdio: 'inherit' }));
+    run(spawn(process.execPath, [join(root, 'dist', 'cli.cjs'), 'preview', ...rest], { cwd: callerFolder, stdio: 'inherit' }));
   }
 }
