@@ -22,7 +22,7 @@ import { generatedCaseJson, generatedCaseWithPeriods, generatedReviewDate } from
 import { evaluateFindings } from '../core/safety';
 import { monitoringCalendar } from '../core/monitoring';
 import { measure, scalingExponent, type Timing } from './harness';
-import { bundleGzipBytes, ironCourseNavigationMs } from './rendererBench';
+import { bundleGzipBytes, casesListedMs, ironCourseNavigationMs } from './rendererBench';
 import { panelRun, writeWorkspace } from './workspaceBench';
 import { barePdf, chartSvgsOf, demoSheet, pdfPageCount, plainLinesOf, writeSheetPdf } from './sheetBench';
 
@@ -234,6 +234,16 @@ async function rendererFigures(): Promise<void> {
   console.log(`  page load to Cases: median ${median(timings.loadMs).toFixed(0)} ms; Iron course: median ${median(timings.navigationMs).toFixed(0)} ms (${timings.navigationMs.map((ms) => ms.toFixed(0)).join(', ')})`);
   row('renderer: navigation to the iron course, interactive', median(timings.navigationMs), 'ms', 500, 'click on the screen button to summary painted, median of 7 fresh pages');
   row('renderer: page load to the Cases screen', median(timings.loadMs), 'ms', null);
+  // A clinic's workspace on the Cases screen: no target in the issue; reported so the figure is seen.
+  const folder = mkdtempSync(join(tmpdir(), 'chelation-cases-'));
+  try {
+    writeWorkspace(root, folder, 300);
+    const listed = await casesListedMs(root, folder, 'WS-0300', 3);
+    console.log(`  Cases screen, 300 generated cases: ${listed.map((ms) => ms.toFixed(0)).join(', ')} ms`);
+    row('renderer: Cases screen listing 300 generated cases', median(listed), 'ms', null, 'page load to every summary line shown, median of 3 fresh pages (preview server)');
+  } finally {
+    rmSync(folder, { recursive: true, force: true });
+  }
 }
 
 async function main(): Promise<void> {

@@ -69,3 +69,32 @@ export async function ironCourseNavigationMs(projectFolder: string, runs: number
   }
   return { loadMs, navigationMs };
 }
+
+/**
+ * Milliseconds from loading the page to the Cases screen listing every case of a workspace folder
+ * (each case read from the host and its summary line computed in the page), for each of `runs` fresh
+ * pages, through the real preview server started on that folder.
+ */
+export async function casesListedMs(projectFolder: string, workspace: string, lastLabel: string, runs: number): Promise<number[]> {
+  const configFolder = mkdtempSync(join(tmpdir(), 'chelation-bench-'));
+  const preview = await runPreview({ appName: 'chelation-ledger', appVersion: 'bench', appFolder: projectFolder, configFolder, workspace });
+  if (!preview.ok) throw new Error(preview.issues.map((it) => it.message).join('; '));
+  const browser = await chromium.launch({ executablePath: '/usr/bin/chromium', args: chromiumArgs });
+  const listedMs: number[] = [];
+  try {
+    for (let run = 0; run < runs; run += 1) {
+      const page = await browser.newPage();
+      const started = performance.now();
+      await page.goto(preview.value.url);
+      // The list is shown once every case is read and summarised: its last line's open button.
+      await page.getByRole('button', { name: `Open ${lastLabel}` }).waitFor({ state: 'visible', timeout: 300_000 });
+      listedMs.push(performance.now() - started);
+      await page.close();
+    }
+  } finally {
+    await browser.close();
+    await preview.value.close();
+    rmSync(configFolder, { recursive: true, force: true });
+  }
+  return listedMs;
+}
