@@ -46,8 +46,56 @@ export async function measure(name: string, run: () => unknown, options: Measure
     times.push(performance.now() - before);
   }
   if (sink === Symbol.for('never')) console.log('');
+  return summarise(name, times);
+}
+
+/** Median and 10th–90th percentile of some times (sorts them in place). */
+function summarise(name: string, times: number[]): Timing {
   times.sort((left, right) => left - right);
   return { name, runs: times.length, medianMs: quantileOfSorted(times, 0.5), p10Ms: quantileOfSorted(times, 0.1), p90Ms: quantileOfSorted(times, 0.9) };
+}
+
+export interface PairedTiming {
+  readonly baseline: Timing;
+  readonly subject: Timing;
+  /** subject ÷ baseline of each pair: median and 10th–90th percentile. */
+  readonly ratio: { readonly runs: number; readonly median: number; readonly p10: number; readonly p90: number };
+}
+
+/**
+ * Time `baseline` and `subject` interleaved (baseline, subject, baseline, subject … after
+ * the warm-up of both), so drift on a shared machine falls on both alike; summarises each
+ * and the ratio subject ÷ baseline of every pair. Counts and time limits as in `measure`,
+ * counted in pairs and over both.
+ */
+export async function measurePaired(names: { readonly baseline: string; readonly subject: string }, baseline: () => unknown, subject: () => unknown, options: MeasureOptions = {}): Promise<PairedTiming> {
+  const { warmupRuns = 3, minRuns = 10, minTimeMs = 1500, maxRuns = 500 } = options;
+  let sink: unknown;
+  for (let index = 0; index < warmupRuns; index += 1) {
+    sink = await baseline();
+    sink = await subject();
+  }
+  const baselineTimes: number[] = [];
+  const subjectTimes: number[] = [];
+  const ratios: number[] = [];
+  const started = performance.now();
+  while (ratios.length < maxRuns && (ratios.length < minRuns || performance.now() - started < minTimeMs)) {
+    const first = performance.now();
+    sink = await baseline();
+    const second = performance.now();
+    sink = await subject();
+    const third = performance.now();
+    baselineTimes.push(second - first);
+    subjectTimes.push(third - second);
+    ratios.push((third - second) / (second - first));
+  }
+  if (sink === Symbol.for('never')) console.log('');
+  const ratio = summarise('ratio', ratios);
+  return {
+    baseline: summarise(names.baseline, baselineTimes),
+    subject: summarise(names.subject, subjectTimes),
+    ratio: { runs: ratio.runs, median: ratio.medianMs, p10: ratio.p10Ms, p90: ratio.p90Ms },
+  };
 }
 
 /** Least-squares slope of log(cost) against log(size): 1 is linear, 2 quadratic. */

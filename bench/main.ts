@@ -21,7 +21,7 @@ import { baselineKernel, type KernelInput } from './baselineKernel';
 import { generatedCaseJson, generatedCaseWithPeriods, generatedReviewDate } from './generatedCase';
 import { evaluateFindings } from '../core/safety';
 import { monitoringCalendar } from '../core/monitoring';
-import { measure, scalingExponent, type Timing } from './harness';
+import { measure, measurePaired, scalingExponent, type Timing } from './harness';
 import { bundleGzipBytes, casesListedMs, ironCourseNavigationMs } from './rendererBench';
 import { panelRun, writeWorkspace } from './workspaceBench';
 import { barePdf, chartSvgsOf, demoSheet, pdfPageCount, plainLinesOf, writeSheetPdf } from './sheetBench';
@@ -196,13 +196,20 @@ async function sheetFigures(): Promise<void> {
   const padding = Math.max(0, pages - pdfPageCount(await barePdf(svgs, lines, 0, creationDate)));
   const bare = await barePdf(svgs, lines, padding, creationDate);
   console.log(`  ours: ${pages} pages, ${svgs.length} charts, ${(ours.length / 1024).toFixed(0)} KiB; baseline: ${pdfPageCount(bare)} pages, ${lines.length} lines of text`);
-  const options = { minRuns: 8, minTimeMs: 2000, warmupRuns: 2 };
-  const baseline = await measure('bare pdfmake', () => barePdf(svgs, lines, padding, creationDate), options);
-  const writer = await measure('our sheet writer (build + write)', () => writeSheetPdf(demoSheet(root), { paper: 'a4' }), options);
+  // Interleaved (bare, ours, bare, ours …) so drift on a shared machine falls on both alike; the ratio is the median of the pairs'.
+  const paired = await measurePaired(
+    { baseline: 'bare pdfmake', subject: 'our sheet writer (build + write)' },
+    () => barePdf(svgs, lines, padding, creationDate),
+    () => writeSheetPdf(demoSheet(root), { paper: 'a4' }),
+    { minRuns: 12, minTimeMs: 4000, warmupRuns: 2 },
+  );
+  const { baseline, subject: writer, ratio } = paired;
   print(baseline);
   print(writer);
-  row('sheet: demo sheet, warm', writer.medianMs / 1000, 's', 0.5, `${pages} pages, ${svgs.length} charts; includes building the sheet from the case`);
-  row('sheet: ratio to bare pdfmake', writer.medianMs / baseline.medianMs, '×', 1.5, `bare pdfmake median ${baseline.medianMs.toFixed(0)} ms for ${pdfPageCount(bare)} pages`);
+  const ratioSpread = `p10 ${ratio.p10.toFixed(2)}, p90 ${ratio.p90.toFixed(2)}`;
+  console.log(`  ratio of each pair: median ${ratio.median.toFixed(2)} × (${ratioSpread}; ${ratio.runs} pairs)`);
+  row('sheet: demo sheet, warm', writer.medianMs / 1000, 's', 0.5, `${pages} pages, ${svgs.length} charts; includes building the sheet from the case; p10 ${(writer.p10Ms / 1000).toFixed(3)}, p90 ${(writer.p90Ms / 1000).toFixed(3)} s`);
+  row('sheet: ratio to bare pdfmake', ratio.median, '×', 1.5, `median of ${ratio.runs} interleaved pairs (${ratioSpread}); bare pdfmake median ${baseline.medianMs.toFixed(0)} ms for ${pdfPageCount(bare)} pages`);
 }
 
 async function workspaceFigures(): Promise<void> {
