@@ -64,9 +64,9 @@ function paragraph(block: Extract<SheetBlock, { kind: 'paragraph' }>): Content {
   }
 }
 
-function table(block: Extract<SheetBlock, { kind: 'table' }>): Content {
+function table(block: Extract<SheetBlock, { kind: 'table' }>): Content[] {
   const caption: Content = { text: printable(block.caption), bold: true, fontSize: 8.5, margin: [0, 6, 0, 3] };
-  if (block.rows.length === 0) return { stack: [caption, { text: printable(block.emptyText), italics: true, fontSize: 7.5, margin: [0, 0, 0, 6] }], unbreakable: true };
+  if (block.rows.length === 0) return [{ stack: [caption, { text: printable(block.emptyText), italics: true, fontSize: 7.5, margin: [0, 0, 0, 6] }], unbreakable: true }];
   const headerRow: TableCell[] = block.columns.map((column) => ({ text: printable(column.title), bold: true, alignment: column.align, fillColor: grey }));
   const cell = (text: string, index: number, bold = false): TableCell => ({ text: printable(text), alignment: block.columns[index]?.align ?? 'left', bold, noWrap: block.columns[index]?.noWrap ?? false });
   const body: TableCell[][] = [headerRow, ...block.rows.map((row) => row.map((text, index) => cell(text, index)))];
@@ -74,20 +74,21 @@ function table(block: Extract<SheetBlock, { kind: 'table' }>): Content {
   const widths = block.columns.some((column) => column.width === '*')
     ? block.columns.map((column) => (column.width === '*' ? '*' : 'auto'))
     : block.columns.map(() => '*');
-  return {
-    stack: [
-      caption,
-      { table: { headerRows: 1, widths, body }, layout: 'lightHorizontalLines', fontSize: 7.5 },
-      ...(block.note ? [{ text: printable(block.note), fontSize: 7, italics: true, margin: [0, 2, 0, 0] } as Content] : []),
-    ],
-    margin: [0, 0, 0, 6],
-  };
+  // Caption, table and note side by side in the section rather than in a stack of their own
+  // (the block's 6 pt below on its last part): the same layout, with one level fewer for
+  // pdfmake's style look-ups of every cell to walk.
+  return [
+    caption,
+    { table: { headerRows: 1, widths, body }, layout: 'lightHorizontalLines', fontSize: 7.5, margin: [0, 0, 0, block.note ? 0 : 6] },
+    ...(block.note ? [{ text: printable(block.note), fontSize: 7, italics: true, margin: [0, 2, 0, 6] } as Content] : []),
+  ];
 }
 
-function findings(block: Extract<SheetBlock, { kind: 'findings' }>): Content {
-  if (block.items.length === 0) return { text: printable(block.emptyText), italics: true, margin: [0, 0, 0, 6] };
-  return {
-    stack: block.items.map((item) => ({
+function findings(block: Extract<SheetBlock, { kind: 'findings' }>): Content[] {
+  if (block.items.length === 0) return [{ text: printable(block.emptyText), italics: true, margin: [0, 0, 0, 6] }];
+  // Each finding in the section itself (the block's 6 pt below on the last one), as for tables.
+  return block.items.map(
+    (item, index): Content => ({
       table: {
         widths: [62, '*'],
         body: [
@@ -103,37 +104,37 @@ function findings(block: Extract<SheetBlock, { kind: 'findings' }>): Content {
         ],
       },
       layout: { hLineWidth: () => 0.5, vLineWidth: (index: number) => (index === 0 ? (item.severity === 'URGENT' ? 3 : 1) : 0), hLineColor: () => ink, vLineColor: () => ink, paddingLeft: () => 4 },
-      margin: [0, 0, 0, 3],
+      margin: [0, 0, 0, index === block.items.length - 1 ? 3 + 6 : 3],
       unbreakable: true,
-    })),
-    margin: [0, 0, 0, 6],
-  } as Content;
+    }),
+  );
 }
 
-function block(item: SheetBlock): Content {
+function block(item: SheetBlock): Content[] {
   switch (item.kind) {
     case 'paragraph':
-      return paragraph(item);
+      return [paragraph(item)];
     case 'facts':
-      return {
+      return [{
         table: { widths: [150, '*'], body: item.rows.map((row) => [{ text: printable(row.label), bold: true }, { text: printable(row.value) }]) },
         layout: 'noBorders',
         margin: [0, 4, 0, 4],
-      };
+      }];
     case 'table':
       return table(item);
     case 'chart':
-      return { stack: [{ svg: printable(item.chart.svg), width: item.chart.width }, { text: printable(item.caption), fontSize: 7.5, italics: true, margin: [0, 2, 0, 10] }], unbreakable: true };
+      return [{ stack: [{ svg: printable(item.chart.svg), width: item.chart.width }, { text: printable(item.caption), fontSize: 7.5, italics: true, margin: [0, 2, 0, 10] }], unbreakable: true }];
     case 'findings':
       return findings(item);
   }
 }
 
-function section(part: SheetSection, index: number): Content {
-  return {
-    stack: [{ text: part.title, fontSize: 12, bold: true, margin: [0, index === 0 ? 0 : 6, 0, 4] }, ...part.blocks.map(block)],
-    ...(part.startsOnNewPage ? { pageBreak: 'before' as const } : {}),
-  };
+/** A section's title and blocks, straight into the content (no stack of its own, as for tables). */
+function section(part: SheetSection, index: number): Content[] {
+  return [
+    { text: part.title, fontSize: 12, bold: true, margin: [0, index === 0 ? 0 : 6, 0, 4], ...(part.startsOnNewPage ? { pageBreak: 'before' as const } : {}) },
+    ...part.blocks.flatMap(block),
+  ];
 }
 
 function signOff(sheet: Sheet): Content {
@@ -220,7 +221,7 @@ export function sheetDocument(sheet: Sheet, options: SheetPdfOptions): TDocument
         layout: 'noBorders',
         margin: [0, 0, 0, 6],
       },
-      ...sheet.sections.map(section),
+      ...sheet.sections.flatMap(section),
       signOff(sheet),
     ],
   };
