@@ -1,3 +1,4 @@
+import { execFileSync } from 'node:child_process';
 import { createHash } from 'node:crypto';
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
@@ -57,6 +58,27 @@ describe('review sheet PDF (app/host/sheetPdf via the sheet command)', () => {
     });
     const letterPages = Number(pdfInfo(letterPath).Pages);
     for (let page = 1; page <= letterPages; page += 1) expect(pdfText(letterPath, page)).toContain(normalisedCaution);
+  });
+
+  it('breaks the caution in its box where the words run out of room, as pdfmake wraps a paragraph', () => {
+    // The writer hands pdfmake the caution already cut into lines; poppler's word boxes show the cut
+    // is the greedy one: the first line fits inside the box, and the next word would not have.
+    for (const path of [a4Path, letterPath]) {
+      const pageWidthPt = Number(/^([\d.]+) x/.exec(pdfInfo(path)['Page size']!)![1]);
+      // Page margins 40 pt, the box's borders 1.2 pt and padding 4 pt on each side (sheetPdf's layout).
+      const innerWidthPt = pageWidthPt - 2 * (40 + 1.2 + 4);
+      const xml = execFileSync('pdftotext', ['-bbox-layout', '-f', '1', '-l', '1', path, '-'], { encoding: 'utf8' });
+      const lines = [...xml.matchAll(/<line[^>]*>([\s\S]*?)<\/line>/g)].map((line) =>
+        [...line[1]!.matchAll(/<word xMin="([\d.]+)"[^>]*xMax="([\d.]+)"[^>]*>([^<]*)<\/word>/g)].map((word) => ({ xMin: Number(word[1]), xMax: Number(word[2]), text: word[3]! })),
+      );
+      const first = lines.findIndex((words) => words[0]?.text === 'Decision');
+      const [top, bottom] = [lines[first]!, lines[first + 1]!];
+      expect([...top, ...bottom].map((word) => word.text).join(' ')).toBe(normalisedCaution);
+      const topWidth = top[top.length - 1]!.xMax - top[0]!.xMin;
+      const spaceWidth = top[1]!.xMin - top[0]!.xMax;
+      expect(topWidth).toBeLessThanOrEqual(innerWidthPt);
+      expect(topWidth + spaceWidth + (bottom[0]!.xMax - bottom[0]!.xMin)).toBeGreaterThan(innerWidthPt);
+    }
   });
 
   it('prints the SHA-256 of the case file it was made from (as sha256sum would)', () => {
