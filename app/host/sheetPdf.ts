@@ -9,19 +9,25 @@
  * the review date at 00:00 UTC, never the clock, so the same sheet gives the
  * same bytes. pdfmake may read only the four Roboto files and no URL.
  *
- * pdfmake measures, lays out and draws a wrapping text word by word; text that surely fits
- * its line (measured here with fontkit as pdfkit measures it) is handed over as one
- * unbroken piece, and the caution as its lines, so the 15 headers and footers and the
- * one-line captions cost a piece a line. The pages look the same to the pixel.
+ * pdfmake measures, lays out and draws a wrapping text word by word (a PDF text object
+ * each). This module cuts the text into the lines pdfmake would make (pdfmake's own word
+ * breaker, fontkit widths as pdfkit measures them, pdfmake's line and column rules restated
+ * in app/host/sheetLines) and hands each line over as one unbroken piece, and a table its
+ * column widths as pdfmake would size them; where a decision is too close to call the text
+ * or table is left to pdfmake. The pages are the same to the pixel, at a fraction of the work.
  */
 import { openSync, type Font } from 'fontkit';
 import pdfmake from 'pdfmake';
 import robotoFonts from 'pdfmake/fonts/Roboto.js';
 import type { Content, TableCell, TDocumentDefinitions } from 'pdfmake/interfaces';
+import * as textBreakerModule from 'pdfmake/js/TextBreaker.js';
 import type { Sheet, SheetBlock, SheetPaper, SheetSection } from '../../core/report/sheet';
+import { columnWidths, unwrappedLines, wrapPieces, widthRange, type ColumnSizing, type Piece } from './sheetLines';
 
 export interface SheetPdfOptions {
   readonly paper: SheetPaper;
+  /** false: every line left to pdfmake to find (the tests compare the two; the pages are the same). */
+  readonly cutLines?: boolean;
 }
 
 const fontFiles = new Set(Object.values(robotoFonts.Roboto));
@@ -77,60 +83,89 @@ function textWidthPt(text: string, face: Face, sizePt: number): number {
   return ems * sizePt;
 }
 
-/**
- * The width pdfmake gives a line of `text`: its words' widths (each with its trailing
- * spaces, as pdfmake cuts them) less the trailing spaces of the last.
- */
-function lineWidthPt(text: string, face: Face, sizePt: number): number {
-  const trailing = /[ \t]+$/.exec(text)?.[0];
-  return textWidthPt(text, face, sizePt) - (trailing ? textWidthPt(trailing, face, sizePt) : 0);
-}
+type Breaks = { readonly text: string; readonly lineEnd?: boolean }[];
+/** pdfmake's own word breaker (Unicode line breaking), so the pieces are the ones it would measure. */
+type TextBreakerClass = new () => { getBreaks(text: string, styles: null): Breaks };
+// A CommonJS module: Node hands over its exports object, a bundler may hand over the class.
+const textBreakerExport = (textBreakerModule as { default: TextBreakerClass | { default: TextBreakerClass } }).default;
+const textBreaker = new (typeof textBreakerExport === 'function' ? textBreakerExport : textBreakerExport.default)();
 
-/**
- * How far inside or outside the line a measured width must be before this module decides
- * for pdfmake where a line ends, pt. A modelling choice of ours: the widths are pdfmake's
- * own arithmetic on the same fontkit advances, so they differ from its only by rounding
- * (far below this); a text closer to the edge than this is left for pdfmake to break.
- */
-const lineDecisionMarginPt = 0.05;
+/** Pieces already cut, by face and text, with their widths in ems. */
+const emPieces = new Map<string, { text: string; ems: number; leadingEms: number; trailingEms: number; lineEnd: boolean }[]>();
 
-/**
- * A text that surely fits on one line of `widthPt` as one unbroken piece. pdfmake measures,
- * lays out and draws every word of a wrapping text on its own (a PDF text object each);
- * a text it need not wrap is the same line drawn in one, with every glyph where it was.
- * A text that might wrap stays as it is.
- */
-function oneLine(text: string, face: Face, sizePt: number, widthPt: number): { text: string; noWrap?: true } {
-  return !text.includes('\n') && lineWidthPt(text, face, sizePt) <= widthPt - lineDecisionMarginPt ? { text, noWrap: true } : { text };
-}
-
-/**
- * The lines pdfmake would break `text` into at `widthPt`, each as one unbroken piece (see
- * `oneLine`), or the text as it is where a line end is within the decision margin or the
- * text could break anywhere but after a space (pdfmake follows the Unicode line-breaking
- * rules; for letters, digits and . , ; : only a space is a break).
- */
-function brokenLines(text: string, face: Face, sizePt: number, widthPt: number): { text: string } | { stack: Content[] } {
-  if (!/^[A-Za-z0-9 .,;:]+$/.test(text)) return { text };
-  const words = text.split(/(?<= )(?=[^ ])/);
-  const lines: string[] = [];
-  let line = '';
-  for (const word of words) {
-    if (line !== '') {
-      const width = lineWidthPt(`${line}${word}`, face, sizePt);
-      if (Math.abs(width - widthPt) <= lineDecisionMarginPt) return { text };
-      if (width < widthPt) {
-        line += word;
-        continue;
-      }
-      lines.push(line);
-    }
-    // A word wider than the line pdfmake would cut inside the word.
-    if (lineWidthPt(word, face, sizePt) > widthPt - lineDecisionMarginPt) return { text };
-    line = word;
+/** A text's pieces between break opportunities, measured as pdfmake measures them (TextInlines.measure). */
+function piecesOf(text: string, face: Face, sizePt: number): Piece[] {
+  const key = `${face}\u0000${text}`;
+  let pieces = emPieces.get(key);
+  if (pieces === undefined) {
+    pieces = textBreaker.getBreaks(text, null).map((piece) => {
+      const leading = /^\s+/.exec(piece.text)?.[0];
+      const trailing = /\s+$/.exec(piece.text)?.[0];
+      return { text: piece.text, ems: textWidthPt(piece.text, face, 1), leadingEms: leading ? textWidthPt(leading, face, 1) : 0, trailingEms: trailing ? textWidthPt(trailing, face, 1) : 0, lineEnd: piece.lineEnd === true };
+    });
+    if (emPieces.size > 20_000) emPieces.clear();
+    emPieces.set(key, pieces);
   }
-  lines.push(line);
-  return { stack: lines.map((part) => ({ text: part, noWrap: true })) };
+  return pieces.map((piece) => ({ text: piece.text, widthPt: piece.ems * sizePt, leadingCutPt: piece.leadingEms * sizePt, trailingCutPt: piece.trailingEms * sizePt, lineEnd: piece.lineEnd }));
+}
+
+/** Whether the document being built has its lines cut here (SheetPdfOptions.cutLines), set for the length of sheetDocument. */
+let cutting = true;
+
+type Fitted = { text: string; noWrap?: true } | { stack: { text: string; noWrap: true }[] };
+const asLines = (lines: readonly string[]): Fitted =>
+  lines.length === 1 ? { text: lines[0]!, noWrap: true } : { stack: lines.map((line) => ({ text: line, noWrap: true as const })) };
+
+/**
+ * A text as the lines pdfmake would break it into at `widthPt`, each one unbroken piece (one
+ * line: the text itself, unbroken), or the text as it is where app/host/sheetLines leaves the
+ * decision to pdfmake. The page looks the same either way.
+ */
+function fitted(text: string, face: Face, sizePt: number, widthPt: number): Fitted {
+  if (!cutting) return { text };
+  const lines = wrapPieces(piecesOf(text, face, sizePt), widthPt);
+  return lines === null || lines.includes('') ? { text } : asLines(lines);
+}
+
+interface CellText {
+  readonly text: string;
+  readonly face: Face;
+  readonly sizePt: number;
+  readonly noWrap: boolean;
+}
+
+/**
+ * A table's column widths as pdfmake would size them and its cells cut into lines at those
+ * widths (a no-wrap cell stays one piece), or null to leave the table to pdfmake.
+ *
+ * @param widths - pdfmake's column widths: 'auto', '*' or points
+ * @param offsetsPt - the table's paddings and vertical rules across, as pdfmake adds them
+ * @param roomPt - the width the table is laid out in
+ */
+function fittedTable(widths: readonly ('auto' | '*' | number)[], cells: readonly (readonly CellText[])[], offsetsPt: number, roomPt: number): { widths: number[]; cells: Fitted[][] } | null {
+  if (!cutting) return null;
+  const pieces = cells.map((row) => row.map((cell) => piecesOf(cell.text, cell.face, cell.sizePt)));
+  const sizing = widths.map((width, column): ColumnSizing => {
+    if (typeof width === 'number') return { kind: 'fixed', widthPt: width };
+    const ranges = cells.map((row, index) => widthRange(pieces[index]![column]!, row[column]!.noWrap));
+    return { kind: width === '*' ? 'star' : 'auto', minPt: Math.max(0, ...ranges.map((range) => range.minPt)), maxPt: Math.max(0, ...ranges.map((range) => range.maxPt)) };
+  });
+  const sized = columnWidths(sizing, roomPt - offsetsPt);
+  if (sized === null) return null;
+  const fittedCells: Fitted[][] = [];
+  for (const [rowIndex, row] of cells.entries()) {
+    const fittedRow: Fitted[] = [];
+    for (const [column, cell] of row.entries()) {
+      if (cell.noWrap) fittedRow.push({ text: cell.text, noWrap: true });
+      else {
+        const lines = sized.widest[column] ? unwrappedLines(pieces[rowIndex]![column]!) : wrapPieces(pieces[rowIndex]![column]!, sized.widthsPt[column]!, sized.auto[column]);
+        if (lines === null || lines.includes('')) return null;
+        fittedRow.push(asLines(lines));
+      }
+    }
+    fittedCells.push(fittedRow);
+  }
+  return { widths: sized.widthsPt, cells: fittedCells };
 }
 
 /** The footer's "page N of M" column, pt (a layout choice of ours). */
@@ -147,50 +182,69 @@ function paragraph(block: Extract<SheetBlock, { kind: 'paragraph' }>, widthPt: n
   const text = printable(block.text);
   switch (block.style) {
     case 'caution':
-      return { ...oneLine(text, 'bold', 8.5, widthPt), bold: true, margin: [0, 2, 0, 4] };
+      return { ...fitted(text, 'bold', 8.5, widthPt), bold: true, margin: [0, 2, 0, 4] };
     case 'note':
-      return { ...oneLine(text, 'italics', 7.5, widthPt), fontSize: 7.5, italics: true, margin: [0, 2, 0, 6] };
+      return { ...fitted(text, 'italics', 7.5, widthPt), fontSize: 7.5, italics: true, margin: [0, 2, 0, 6] };
     case 'small':
-      return { ...oneLine(text, 'normal', 7, widthPt - 8), fontSize: 7, color: '#333333', margin: [8, 0, 0, 5] };
+      return { ...fitted(text, 'normal', 7, widthPt - 8), fontSize: 7, color: '#333333', margin: [8, 0, 0, 5] };
     case 'body':
-      return { ...oneLine(text, 'normal', 8.5, widthPt), margin: [0, 2, 0, 3] };
+      return { ...fitted(text, 'normal', 8.5, widthPt), margin: [0, 2, 0, 3] };
   }
 }
 
 function table(block: Extract<SheetBlock, { kind: 'table' }>, widthPt: number): Content[] {
-  const caption: Content = { ...oneLine(printable(block.caption), 'bold', 8.5, widthPt), bold: true, fontSize: 8.5, margin: [0, 6, 0, 3] };
+  const caption: Content = { ...fitted(printable(block.caption), 'bold', 8.5, widthPt), bold: true, fontSize: 8.5, margin: [0, 6, 0, 3] };
   if (block.rows.length === 0) return [{ stack: [caption, { text: printable(block.emptyText), italics: true, fontSize: 7.5, margin: [0, 0, 0, 6] }], unbreakable: true }];
-  const headerRow: TableCell[] = block.columns.map((column) => ({ text: printable(column.title), bold: true, alignment: column.align, fillColor: grey }));
-  const cell = (text: string, index: number, bold = false): TableCell => ({ text: printable(text), alignment: block.columns[index]?.align ?? 'left', bold, noWrap: block.columns[index]?.noWrap ?? false });
-  const body: TableCell[][] = [headerRow, ...block.rows.map((row) => row.map((text, index) => cell(text, index)))];
-  if (block.totals) body.push(block.totals.map((text, index) => cell(text, index, true)));
-  const widths = block.columns.some((column) => column.width === '*')
-    ? block.columns.map((column) => (column.width === '*' ? '*' : 'auto'))
-    : block.columns.map(() => '*');
+  const texts: CellText[][] = [
+    block.columns.map((column) => ({ text: printable(column.title), face: 'bold', sizePt: 7.5, noWrap: false })),
+    ...[...block.rows, ...(block.totals ? [block.totals] : [])].map((row, rowIndex) =>
+      row.map((text, index): CellText => ({ text: printable(text), face: rowIndex === block.rows.length ? 'bold' : 'normal', sizePt: 7.5, noWrap: block.columns[index]?.noWrap ?? false })),
+    ),
+  ];
+  const specWidths = block.columns.some((column) => column.width === '*')
+    ? block.columns.map((column) => (column.width === '*' ? ('*' as const) : ('auto' as const)))
+    : block.columns.map(() => '*' as const);
+  // Sized and cut here where pdfmake's sizing is restated exactly (app/host/sheetLines); pdfmake's
+  // 'lightHorizontalLines' puts 8 pt of padding either side of each inner column boundary.
+  const sized = fittedTable(specWidths, texts, 16 * (block.columns.length - 1), widthPt);
+  const body: TableCell[][] = texts.map((row, rowIndex) =>
+    row.map((cell, index) => ({
+      alignment: block.columns[index]?.align ?? 'left',
+      bold: cell.face === 'bold',
+      ...(rowIndex === 0 ? { fillColor: grey } : {}),
+      ...(sized ? sized.cells[rowIndex]![index]! : { text: cell.text, noWrap: cell.noWrap }),
+    })),
+  );
+  const widths = sized?.widths ?? specWidths;
   // Caption, table and note side by side in the section rather than in a stack of their own
   // (the block's 6 pt below on its last part): the same layout, with one level fewer for
   // pdfmake's style look-ups of every cell to walk.
   return [
     caption,
     { table: { headerRows: 1, widths, body }, layout: 'lightHorizontalLines', fontSize: 7.5, margin: [0, 0, 0, block.note ? 0 : 6] },
-    ...(block.note ? [{ ...oneLine(printable(block.note), 'italics', 7, widthPt), fontSize: 7, italics: true, margin: [0, 2, 0, 6] } as Content] : []),
+    ...(block.note ? [{ ...fitted(printable(block.note), 'italics', 7, widthPt), fontSize: 7, italics: true, margin: [0, 2, 0, 6] } as Content] : []),
   ];
 }
 
-function findings(block: Extract<SheetBlock, { kind: 'findings' }>): Content[] {
+/** The findings' severity column, pt (a layout choice of ours). */
+const severityWidthPt = 62;
+
+function findings(block: Extract<SheetBlock, { kind: 'findings' }>, widthPt: number): Content[] {
   if (block.items.length === 0) return [{ text: printable(block.emptyText), italics: true, margin: [0, 0, 0, 6] }];
+  // The text column: the room less the severity column, the left rule (3 pt for URGENT, else 1) and 4 pt of padding at each side of both cells.
+  const textWidthFor = (severity: string) => widthPt - severityWidthPt - (severity === 'URGENT' ? 3 : 1) - 16;
   // Each finding in the section itself (the block's 6 pt below on the last one), as for tables.
   return block.items.map(
     (item, index): Content => ({
       table: {
-        widths: [62, '*'],
+        widths: [severityWidthPt, '*'],
         body: [
           [
             { text: item.severity, bold: true, fontSize: 8 },
             {
               stack: [
-                { text: printable(item.text) },
-                { text: printable(`Sources: ${item.sources.join('; ')}${item.sourceUncertain ? ' — includes a value from memory or an unsure source' : ''}`), fontSize: 7, color: '#333333', margin: [0, 1, 0, 0] },
+                fitted(printable(item.text), 'normal', 8.5, textWidthFor(item.severity)),
+                { ...fitted(printable(`Sources: ${item.sources.join('; ')}${item.sourceUncertain ? ' — includes a value from memory or an unsure source' : ''}`), 'normal', 7, textWidthFor(item.severity)), fontSize: 7, color: '#333333', margin: [0, 1, 0, 0] },
               ],
             },
           ],
@@ -217,8 +271,8 @@ function block(item: SheetBlock, widthPt: number): Content[] {
         table: {
           widths: [factLabelWidthPt, '*'],
           body: item.rows.map((row) => [
-            { ...oneLine(printable(row.label), 'bold', 8.5, factLabelWidthPt), bold: true },
-            oneLine(printable(row.value), 'normal', 8.5, widthPt - factLabelWidthPt - noBordersGapPt),
+            { ...fitted(printable(row.label), 'bold', 8.5, factLabelWidthPt), bold: true },
+            fitted(printable(row.value), 'normal', 8.5, widthPt - factLabelWidthPt - noBordersGapPt),
           ]),
         },
         layout: 'noBorders',
@@ -227,16 +281,16 @@ function block(item: SheetBlock, widthPt: number): Content[] {
     case 'table':
       return table(item, widthPt);
     case 'chart':
-      return [{ stack: [{ svg: printable(item.chart.svg), width: item.chart.width }, { ...oneLine(printable(item.caption), 'italics', 7.5, widthPt), fontSize: 7.5, italics: true, margin: [0, 2, 0, 10] }], unbreakable: true }];
+      return [{ stack: [{ svg: printable(item.chart.svg), width: item.chart.width }, { ...fitted(printable(item.caption), 'italics', 7.5, widthPt), fontSize: 7.5, italics: true, margin: [0, 2, 0, 10] }], unbreakable: true }];
     case 'findings':
-      return findings(item);
+      return findings(item, widthPt);
   }
 }
 
 /** A section's title and blocks, straight into the content (no stack of its own, as for tables). */
 function section(part: SheetSection, index: number, widthPt: number): Content[] {
   return [
-    { ...oneLine(part.title, 'bold', 12, widthPt), fontSize: 12, bold: true, margin: [0, index === 0 ? 0 : 6, 0, 4], ...(part.startsOnNewPage ? { pageBreak: 'before' as const } : {}) },
+    { ...fitted(part.title, 'bold', 12, widthPt), fontSize: 12, bold: true, margin: [0, index === 0 ? 0 : 6, 0, 4], ...(part.startsOnNewPage ? { pageBreak: 'before' as const } : {}) },
     ...part.blocks.flatMap((item) => block(item, widthPt)),
   ];
 }
@@ -272,15 +326,25 @@ function signOff(sheet: Sheet): Content {
  * @param options - paper size
  */
 export function sheetDocument(sheet: Sheet, options: SheetPdfOptions): TDocumentDefinitions {
+  cutting = options.cutLines ?? true;
+  try {
+    return documentOf(sheet, options);
+  } finally {
+    cutting = true;
+  }
+}
+
+function documentOf(sheet: Sheet, options: SheetPdfOptions): TDocumentDefinitions {
   const { header } = sheet;
+  const cut = cutting;
   const [year, month, day] = header.reviewDate.split('-').map(Number) as [number, number, number];
   const widthPt = pageWidthPt[options.paper] - 2 * sideMarginPt;
   // Written once for all pages: each page's header and footer are these, in one piece per line where they surely fit.
-  const title = oneLine(printable(`${header.title} — ${header.caseLabel}`), 'bold', 10, widthPt / 2);
-  const dateLine = oneLine(printable(`${(header.dateLabel ?? 'Review date').toLowerCase()} ${header.reviewDate} · prepared by ${header.preparedBy ?? 'not stated'}`), 'normal', 8, widthPt / 2);
+  const title = fitted(printable(`${header.title} — ${header.caseLabel}`), 'bold', 10, widthPt / 2);
+  const dateLine = fitted(printable(`${(header.dateLabel ?? 'Review date').toLowerCase()} ${header.reviewDate} · prepared by ${header.preparedBy ?? 'not stated'}`), 'normal', 8, widthPt / 2);
   // Inside the caution's box: its 1.2 pt borders and pdfmake's default 4 pt padding either side.
-  const caution = brokenLines(sheet.caution, 'bold', 7.5, widthPt - 2 * (1.2 + 4));
-  const hashLine = oneLine(`${header.toolVersion} · ${header.hashLabel ?? 'case file SHA-256'} ${header.caseFileSha256}`, 'normal', 6.5, widthPt - pageNumberWidthPt);
+  const caution = fitted(sheet.caution, 'bold', 7.5, widthPt - 2 * (1.2 + 4));
+  const hashLine = fitted(`${header.toolVersion} · ${header.hashLabel ?? 'case file SHA-256'} ${header.caseFileSha256}`, 'normal', 6.5, widthPt - pageNumberWidthPt);
   return {
     pageSize: options.paper === 'a4' ? 'A4' : 'LETTER',
     pageMargins: [40, 74, 40, 44],
@@ -314,7 +378,7 @@ export function sheetDocument(sheet: Sheet, options: SheetPdfOptions): TDocument
       margin: [40, 14, 40, 0],
       columns: [
         { ...hashLine, fontSize: 6.5, color: '#333333' },
-        { ...oneLine(`page ${currentPage} of ${pageCount}`, 'normal', 8, pageNumberWidthPt), alignment: 'right', fontSize: 8, width: pageNumberWidthPt },
+        { ...(cut ? fitted(`page ${currentPage} of ${pageCount}`, 'normal', 8, pageNumberWidthPt) : { text: `page ${currentPage} of ${pageCount}` }), alignment: 'right', fontSize: 8, width: pageNumberWidthPt },
       ],
     }),
     content: [

@@ -81,6 +81,25 @@ describe('review sheet PDF (app/host/sheetPdf via the sheet command)', () => {
     }
   });
 
+  it('puts every word where pdfmake puts it when it finds every line itself', async () => {
+    // The writer hands pdfmake most lines already cut (app/host/sheetLines restates pdfmake's
+    // rules); poppler's word boxes of the same sheet with every line left to pdfmake are the reference.
+    const wordBoxes = (bytes: Buffer) =>
+      [...execFileSync('pdftotext', ['-bbox', savePdf(bytes), '-'], { encoding: 'utf8' }).matchAll(/<(page|word)[^>]*?(?:xMin="([\d.]+)" yMin="([\d.]+)")?[^>]*>([^<]*)/g)].map(
+        (match) => (match[1] === 'page' ? 'page' : `${match[4]} ${Number(match[2]).toFixed(2)} ${Number(match[3]).toFixed(2)}`),
+      );
+    for (const name of ['th-0417', 'th-0093'] as const) {
+      const sheet = buildSheet(demoSheetInput(name));
+      for (const paper of ['a4', 'letter'] as const) {
+        const [cut, found] = [await writeSheetPdf(sheet, { paper }), await writeSheetPdf(sheet, { paper, cutLines: false })];
+        expect(cut.equals(found), `${name} ${paper}: the lines are cut`).toBe(false);
+        const [cutWords, foundWords] = [wordBoxes(cut), wordBoxes(found)];
+        expect(cutWords.length, `${name} ${paper}`).toBeGreaterThan(1000);
+        expect(cutWords, `${name} ${paper}`).toEqual(foundWords);
+      }
+    }
+  }, 120_000);
+
   it('prints the SHA-256 of the case file it was made from (as sha256sum would)', () => {
     const digest = createHash('sha256').update(readFileSync(demo)).digest('hex');
     expect(text).toContain(digest);
