@@ -37,8 +37,10 @@ export const lineDecisionMarginPt = 0.001;
  * or pdfmake would cut a piece (a word wider than the room left). `piecesFit`: the room is at
  * least as wide as any piece without spaces at its ends, by construction (an auto column is
  * never narrower than its widest such piece), so such a piece starting a line is never cut.
+ * `measure`: a text's width as pdfmake measures it, for the one cut restated (a word whose
+ * trailing space alone overhangs the line).
  */
-export function wrapPieces(pieces: readonly Piece[], widthPt: number, piecesFit = false): string[] | null {
+export function wrapPieces(pieces: readonly Piece[], widthPt: number, piecesFit = false, measure?: (text: string) => number): string[] | null {
   const lines: string[] = [];
   let text = '';
   let inlineWidths = 0;
@@ -51,7 +53,22 @@ export function wrapPieces(pieces: readonly Piece[], widthPt: number, piecesFit 
       if (Math.abs(fitting - widthPt) <= lineDecisionMarginPt) return null;
       if (fitting < widthPt) {
         // pdfmake cuts a piece wider than the room left, trailing spaces counted.
-        if (piece.widthPt >= widthPt - (inlineWidths - leadingCut - lastTrailingCut) - lineDecisionMarginPt && piece.text.length > 1) return null;
+        const room = widthPt - (inlineWidths - leadingCut - lastTrailingCut);
+        if (piece.widthPt >= room - lineDecisionMarginPt && piece.text.length > 1) {
+          // Only its one trailing space overhangs (after a piece without one, as "mg/" then "g "):
+          // pdfmake cuts the space off, then puts it back on the same line as a piece of its own.
+          const word = piece.text.slice(0, -1);
+          const wordWidth = measure && / $/.test(piece.text) && !/\s/.test(word) && piece.leadingCutPt === 0 ? measure(word) : Number.NaN;
+          if (!(wordWidth <= room - lineDecisionMarginPt && piece.widthPt > room + lineDecisionMarginPt && inlineWidths + wordWidth - leadingCut <= widthPt - lineDecisionMarginPt)) return null;
+          text += piece.text;
+          inlineWidths += wordWidth + piece.trailingCutPt;
+          lastTrailingCut = piece.trailingCutPt;
+          if (piece.lineEnd) {
+            lines.push(text);
+            open = false;
+          }
+          continue;
+        }
         text += piece.text;
         inlineWidths += piece.widthPt;
         lastTrailingCut = piece.trailingCutPt;

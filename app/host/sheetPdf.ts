@@ -123,7 +123,7 @@ const asLines = (lines: readonly string[]): Fitted =>
  */
 function fitted(text: string, face: Face, sizePt: number, widthPt: number): Fitted {
   if (!cutting) return { text };
-  const lines = wrapPieces(piecesOf(text, face, sizePt), widthPt);
+  const lines = wrapPieces(piecesOf(text, face, sizePt), widthPt, false, (part) => textWidthPt(part, face, sizePt));
   return lines === null || lines.includes('') ? { text } : asLines(lines);
 }
 
@@ -158,7 +158,7 @@ function fittedTable(widths: readonly ('auto' | '*' | number)[], cells: readonly
     for (const [column, cell] of row.entries()) {
       if (cell.noWrap) fittedRow.push({ text: cell.text, noWrap: true });
       else {
-        const lines = sized.widest[column] ? unwrappedLines(pieces[rowIndex]![column]!) : wrapPieces(pieces[rowIndex]![column]!, sized.widthsPt[column]!, sized.auto[column]);
+        const lines = sized.widest[column] ? unwrappedLines(pieces[rowIndex]![column]!) : wrapPieces(pieces[rowIndex]![column]!, sized.widthsPt[column]!, sized.auto[column], (text) => textWidthPt(text, cell.face, cell.sizePt));
         if (lines === null || lines.includes('')) return null;
         fittedRow.push(asLines(lines));
       }
