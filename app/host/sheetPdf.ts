@@ -63,25 +63,30 @@ export function printable(text: string): string {
 type Face = 'normal' | 'bold' | 'italics';
 const faces = new Map<Face, Font>();
 const faceFont = (face: Face): Font => faces.get(face) ?? faces.set(face, openSync(robotoFonts.Roboto[face]) as Font).get(face)!;
-/** Widths already measured, in ems, by face and text (the same words recur on every page and sheet). */
+/** Widths already measured, in ems, by face and space-ended chunk (the same words recur on every page and sheet). */
 const emWidths = new Map<string, number>();
 
 /**
- * The width of `text` in points as pdfkit measures it for pdfmake: the text cut after each
- * space, each piece shaped on its own by fontkit (kerning included), the advances summed.
+ * The width of `text` in ems as pdfkit measures it for pdfmake: the text cut after each
+ * space, each chunk shaped on its own by fontkit (kerning included), the advances summed.
  */
-function textWidthPt(text: string, face: Face, sizePt: number): number {
-  const key = `${face}\u0000${text}`;
-  let ems = emWidths.get(key);
-  if (ems === undefined) {
-    const font = faceFont(face);
-    ems = 0;
-    for (const piece of text.split(/(?<=[ \t])/)) ems += font.layout(piece).advanceWidth / font.unitsPerEm;
-    if (emWidths.size > 20_000) emWidths.clear();
-    emWidths.set(key, ems);
+function textEms(text: string, face: Face): number {
+  let ems = 0;
+  for (const chunk of text.split(/(?<=[ \t])/)) {
+    const key = `${face}\u0000${chunk}`;
+    let chunkEms = emWidths.get(key);
+    if (chunkEms === undefined) {
+      const font = faceFont(face);
+      chunkEms = font.layout(chunk).advanceWidth / font.unitsPerEm;
+      if (emWidths.size > 50_000) emWidths.clear();
+      emWidths.set(key, chunkEms);
+    }
+    ems += chunkEms;
   }
-  return ems * sizePt;
+  return ems;
 }
+
+const textWidthPt = (text: string, face: Face, sizePt: number): number => textEms(text, face) * sizePt;
 
 type Breaks = { readonly text: string; readonly lineEnd?: boolean }[];
 /** pdfmake's own word breaker (Unicode line breaking), so the pieces are the ones it would measure. */
@@ -93,15 +98,18 @@ const textBreaker = new (typeof textBreakerExport === 'function' ? textBreakerEx
 /** Pieces already cut, by face and text, with their widths in ems. */
 const emPieces = new Map<string, { text: string; ems: number; leadingEms: number; trailingEms: number; lineEnd: boolean }[]>();
 
-/** A text's pieces between break opportunities, measured as pdfmake measures them (TextInlines.measure). */
-function piecesOf(text: string, face: Face, sizePt: number): Piece[] {
-  const key = `${face}\u0000${text}`;
+/**
+ * A text's pieces between break opportunities (a no-wrap text is one piece), measured as
+ * pdfmake measures them (TextInlines.measure).
+ */
+function piecesOf(text: string, face: Face, sizePt: number, noWrap = false): Piece[] {
+  const key = `${face}\u0000${noWrap ? 'n' : 'w'}${text}`;
   let pieces = emPieces.get(key);
   if (pieces === undefined) {
-    pieces = textBreaker.getBreaks(text, null).map((piece) => {
+    pieces = (noWrap ? [{ text }] : textBreaker.getBreaks(text, null)).map((piece) => {
       const leading = /^\s+/.exec(piece.text)?.[0];
       const trailing = /\s+$/.exec(piece.text)?.[0];
-      return { text: piece.text, ems: textWidthPt(piece.text, face, 1), leadingEms: leading ? textWidthPt(leading, face, 1) : 0, trailingEms: trailing ? textWidthPt(trailing, face, 1) : 0, lineEnd: piece.lineEnd === true };
+      return { text: piece.text, ems: textEms(piece.text, face), leadingEms: leading ? textEms(leading, face) : 0, trailingEms: trailing ? textEms(trailing, face) : 0, lineEnd: piece.lineEnd === true };
     });
     if (emPieces.size > 20_000) emPieces.clear();
     emPieces.set(key, pieces);
@@ -117,6 +125,26 @@ const asLines = (lines: readonly string[]): Fitted =>
   lines.length === 1 ? { text: lines[0]!, noWrap: true } : { stack: lines.map((line) => ({ text: line, noWrap: true as const })) };
 
 /**
+ * Whether each line, drawn as one piece, is as wide as its pieces drawn one by one: pdfkit
+ * shapes a line between spaces only, so a kerning pair across a break that is not a space
+ * ("T-" and "V", say) would move the glyphs after it; such a text is left to pdfmake.
+ */
+function sameAsPieces(lines: readonly string[], face: Face): boolean {
+  return lines.every((line) => {
+    const key = `${face}\u0000${line}`;
+    let same = linesSameAsPieces.get(key);
+    if (same === undefined) {
+      const pieces = textBreaker.getBreaks(line, null);
+      same = pieces.every((piece, index) => /[ \t]$/.test(piece.text) || index === pieces.length - 1) || Math.abs(textEms(line, face) - pieces.reduce((sum, piece) => sum + textEms(piece.text, face), 0)) < 1e-9;
+      if (linesSameAsPieces.size > 20_000) linesSameAsPieces.clear();
+      linesSameAsPieces.set(key, same);
+    }
+    return same;
+  });
+}
+const linesSameAsPieces = new Map<string, boolean>();
+
+/**
  * A text as the lines pdfmake would break it into at `widthPt`, each one unbroken piece (one
  * line: the text itself, unbroken), or the text as it is where app/host/sheetLines leaves the
  * decision to pdfmake. The page looks the same either way.
@@ -124,7 +152,7 @@ const asLines = (lines: readonly string[]): Fitted =>
 function fitted(text: string, face: Face, sizePt: number, widthPt: number): Fitted {
   if (!cutting) return { text };
   const lines = wrapPieces(piecesOf(text, face, sizePt), widthPt, false, (part) => textWidthPt(part, face, sizePt));
-  return lines === null || lines.includes('') ? { text } : asLines(lines);
+  return lines === null || lines.includes('') || !sameAsPieces(lines, face) ? { text } : asLines(lines);
 }
 
 interface CellText {
@@ -144,7 +172,7 @@ interface CellText {
  */
 function fittedTable(widths: readonly ('auto' | '*' | number)[], cells: readonly (readonly CellText[])[], offsetsPt: number, roomPt: number): { widths: number[]; cells: Fitted[][] } | null {
   if (!cutting) return null;
-  const pieces = cells.map((row) => row.map((cell) => piecesOf(cell.text, cell.face, cell.sizePt)));
+  const pieces = cells.map((row) => row.map((cell) => piecesOf(cell.text, cell.face, cell.sizePt, cell.noWrap)));
   const sizing = widths.map((width, column): ColumnSizing => {
     if (typeof width === 'number') return { kind: 'fixed', widthPt: width };
     const ranges = cells.map((row, index) => widthRange(pieces[index]![column]!, row[column]!.noWrap));
@@ -159,7 +187,7 @@ function fittedTable(widths: readonly ('auto' | '*' | number)[], cells: readonly
       if (cell.noWrap) fittedRow.push({ text: cell.text, noWrap: true });
       else {
         const lines = sized.widest[column] ? unwrappedLines(pieces[rowIndex]![column]!) : wrapPieces(pieces[rowIndex]![column]!, sized.widthsPt[column]!, sized.auto[column], (text) => textWidthPt(text, cell.face, cell.sizePt));
-        if (lines === null || lines.includes('')) return null;
+        if (lines === null || lines.includes('') || !sameAsPieces(lines, cell.face)) return null;
         fittedRow.push(asLines(lines));
       }
     }
