@@ -54,23 +54,17 @@ export function wrapPieces(pieces: readonly Piece[], widthPt: number, piecesFit 
       if (fitting < widthPt) {
         // pdfmake cuts a piece wider than the room left, trailing spaces counted.
         const room = widthPt - (inlineWidths - leadingCut - lastTrailingCut);
+        let addedWidth = piece.widthPt;
         if (piece.widthPt >= room - lineDecisionMarginPt && piece.text.length > 1) {
           // Only its one trailing space overhangs (after a piece without one, as "mg/" then "g "):
           // pdfmake cuts the space off, then puts it back on the same line as a piece of its own.
           const word = piece.text.slice(0, -1);
           const wordWidth = measure && / $/.test(piece.text) && !/\s/.test(word) && piece.leadingCutPt === 0 ? measure(word) : Number.NaN;
           if (!(wordWidth <= room - lineDecisionMarginPt && piece.widthPt > room + lineDecisionMarginPt && inlineWidths + wordWidth - leadingCut <= widthPt - lineDecisionMarginPt)) return null;
-          text += piece.text;
-          inlineWidths += wordWidth + piece.trailingCutPt;
-          lastTrailingCut = piece.trailingCutPt;
-          if (piece.lineEnd) {
-            lines.push(text);
-            open = false;
-          }
-          continue;
+          addedWidth = wordWidth + piece.trailingCutPt;
         }
         text += piece.text;
-        inlineWidths += piece.widthPt;
+        inlineWidths += addedWidth;
         lastTrailingCut = piece.trailingCutPt;
         if (piece.lineEnd) {
           lines.push(text);
