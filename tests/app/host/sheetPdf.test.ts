@@ -32,6 +32,12 @@ const text = pages.join(' ');
 const fmt = (value: number, decimals: number) => formatNumber(value, decimals);
 const normalisedCaution = sheetCaution.replace(/\s+/g, ' ');
 
+/** Every word of a PDF with where poppler puts it (pdftotext -bbox), and each page's start. */
+const wordBoxes = (bytes: Buffer) =>
+  [...execFileSync('pdftotext', ['-bbox', savePdf(bytes), '-'], { encoding: 'utf8' }).matchAll(/<(page|word)[^>]*?(?:xMin="([\d.]+)" yMin="([\d.]+)")?[^>]*>([^<]*)/g)].map(
+    (match) => (match[1] === 'page' ? 'page' : `${match[4]} ${Number(match[2]).toFixed(2)} ${Number(match[3]).toFixed(2)}`),
+  );
+
 describe('review sheet PDF (app/host/sheetPdf via the sheet command)', () => {
   it('is written by the command on A4 and Letter, with its metadata', () => {
     for (const run of made) expect(run.code, run.err).toBe(0);
@@ -84,10 +90,6 @@ describe('review sheet PDF (app/host/sheetPdf via the sheet command)', () => {
   it('puts every word where pdfmake puts it when it finds every line itself', async () => {
     // The writer hands pdfmake most lines already cut (app/host/sheetLines restates pdfmake's
     // rules); poppler's word boxes of the same sheet with every line left to pdfmake are the reference.
-    const wordBoxes = (bytes: Buffer) =>
-      [...execFileSync('pdftotext', ['-bbox', savePdf(bytes), '-'], { encoding: 'utf8' }).matchAll(/<(page|word)[^>]*?(?:xMin="([\d.]+)" yMin="([\d.]+)")?[^>]*>([^<]*)/g)].map(
-        (match) => (match[1] === 'page' ? 'page' : `${match[4]} ${Number(match[2]).toFixed(2)} ${Number(match[3]).toFixed(2)}`),
-      );
     for (const name of ['th-0417', 'th-0093'] as const) {
       const sheet = buildSheet(demoSheetInput(name));
       for (const paper of ['a4', 'letter'] as const) {
@@ -99,6 +101,55 @@ describe('review sheet PDF (app/host/sheetPdf via the sheet command)', () => {
       }
     }
   }, 120_000);
+
+  it('puts every word where pdfmake puts it on sheets of drawn text: kerning pairs, slashes, hyphens, long words, symbols', async () => {
+    // As the test above, on the demo's sheet with its texts replaced by words drawn (seeded) from a
+    // list chosen to stress the line cutting: kerning pairs within and across hyphens and slashes
+    // (AV, To, T-V, W/A), units as the sheets write them, words longer than any column (pdfmake cuts
+    // them), runs of spaces, and symbols the embedded font has (µ, ≥, ×, ⁹, —). Six sheets here; 30 passed
+    // when this was written.
+    const words = ['AV', 'To', 'T-V', 'W/A', 'LTA', 'Wa', 'mg/kg/d', 'µmol/L', '≥', '×10⁹/L', '—', 'semi-automatic', 'deferasirox', 'deferoxamine', 'deferiprone',
+      'ferritin', '2,900', '11.4', '0.05', '(US label §5.2)', 'haematocrit', 'supercalifragilisticexpialidociousandthensomemoreletters', 'a', 'I', 'of', 'the', 'LIC', 'T2*', 'mg/g{dry}', 'x'];
+    let seed = 20261203;
+    const draw = (count: number) => {
+      const parts: string[] = [];
+      for (let k = 0; k < count; k += 1) {
+        seed = (seed * 1103515245 + 12345) % 2147483648;
+        parts.push(words[seed % words.length]!);
+        if (seed % 11 === 0) parts.push('');
+      }
+      return parts.join(' ');
+    };
+    const demoSheet = buildSheet(demoSheetInput('th-0417'));
+    for (let sample = 0; sample < 6; sample += 1) {
+      const drawn: typeof demoSheet = {
+        ...demoSheet,
+        sections: demoSheet.sections.map((section) => ({
+          ...section,
+          blocks: section.blocks.map((block) => {
+            switch (block.kind) {
+              case 'paragraph':
+                return { ...block, text: draw(3 + (seed % 40)) };
+              case 'facts':
+                return { ...block, rows: block.rows.map((row) => ({ label: draw(1 + (seed % 3)), value: draw(1 + (seed % 25)) })) };
+              case 'table':
+                return { ...block, rows: block.rows.map((cells) => cells.map(() => draw(1 + (seed % 6)))) };
+              case 'findings':
+                return { ...block, items: block.items.map((item) => ({ ...item, text: draw(5 + (seed % 50)) })) };
+              default:
+                return block;
+            }
+          }),
+        })),
+      };
+      const paper = sample % 2 === 0 ? 'a4' : 'letter';
+      const [cut, found] = [await writeSheetPdf(drawn, { paper }), await writeSheetPdf(drawn, { paper, cutLines: false })];
+      expect(cut.equals(found), `sample ${sample}: the lines are cut`).toBe(false);
+      const [cutWords, foundWords] = [wordBoxes(cut), wordBoxes(found)];
+      expect(cutWords.length, `sample ${sample}`).toBeGreaterThan(1000);
+      expect(cutWords, `sample ${sample} (${paper})`).toEqual(foundWords);
+    }
+  }, 180_000);
 
   it('prints the SHA-256 of the case file it was made from (as sha256sum would)', () => {
     const digest = createHash('sha256').update(readFileSync(demo)).digest('hex');
