@@ -9,7 +9,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { performance } from 'node:perf_hooks';
 import { gzipSync } from 'node:zlib';
-import { chromium } from 'playwright-core';
+import { chromium, type Browser } from 'playwright-core';
 import { runPreview } from '../app/preview/runPreview';
 
 export const chromiumArgs = ['--headless', '--no-sandbox', '--disable-gpu', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'];
@@ -35,19 +35,33 @@ export function bundleGzipBytes(folder: string): { readonly gzipBytes: number; r
   return { gzipBytes, rawBytes, files };
 }
 
-/** Milliseconds from clicking the screen's button to the iron course summary being visible, for each of `runs` fresh page loads. */
-export async function ironCourseNavigationMs(projectFolder: string, runs: number): Promise<{ readonly loadMs: number[]; readonly navigationMs: number[] }> {
+/**
+ * Run `use` with the real preview server (on `workspace`, or the demo workspace) and Debian's
+ * Chromium, both closed afterwards with the scratch settings folder.
+ */
+async function withPreviewBrowser<T>(projectFolder: string, workspace: string | undefined, use: (url: string, browser: Browser) => Promise<T>): Promise<T> {
   const configFolder = mkdtempSync(join(tmpdir(), 'chelation-bench-'));
-  const preview = await runPreview({ appName: 'chelation-ledger', appVersion: 'bench', appFolder: projectFolder, configFolder });
+  const preview = await runPreview({ appName: 'chelation-ledger', appVersion: 'bench', appFolder: projectFolder, configFolder, ...(workspace === undefined ? {} : { workspace }) });
   if (!preview.ok) throw new Error(preview.issues.map((it) => it.message).join('; '));
   const browser = await chromium.launch({ executablePath: '/usr/bin/chromium', args: chromiumArgs });
-  const loadMs: number[] = [];
-  const navigationMs: number[] = [];
   try {
+    return await use(preview.value.url, browser);
+  } finally {
+    await browser.close();
+    await preview.value.close();
+    rmSync(configFolder, { recursive: true, force: true });
+  }
+}
+
+/** Milliseconds from clicking the screen's button to the iron course summary being visible, for each of `runs` fresh page loads. */
+export function ironCourseNavigationMs(projectFolder: string, runs: number): Promise<{ readonly loadMs: number[]; readonly navigationMs: number[] }> {
+  return withPreviewBrowser(projectFolder, undefined, async (url, browser) => {
+    const loadMs: number[] = [];
+    const navigationMs: number[] = [];
     for (let run = 0; run < runs; run += 1) {
       const page = await browser.newPage();
       const loadStarted = performance.now();
-      await page.goto(preview.value.url);
+      await page.goto(url);
       const open = page.getByRole('button', { name: 'Open TH-0417' });
       await open.waitFor({ state: 'visible' });
       loadMs.push(performance.now() - loadStarted);
@@ -62,12 +76,8 @@ export async function ironCourseNavigationMs(projectFolder: string, runs: number
       navigationMs.push(performance.now() - started);
       await page.close();
     }
-  } finally {
-    await browser.close();
-    await preview.value.close();
-    rmSync(configFolder, { recursive: true, force: true });
-  }
-  return { loadMs, navigationMs };
+    return { loadMs, navigationMs };
+  });
 }
 
 /**
@@ -75,26 +85,18 @@ export async function ironCourseNavigationMs(projectFolder: string, runs: number
  * (each case read from the host and its summary line computed in the page), for each of `runs` fresh
  * pages, through the real preview server started on that folder.
  */
-export async function casesListedMs(projectFolder: string, workspace: string, lastLabel: string, runs: number): Promise<number[]> {
-  const configFolder = mkdtempSync(join(tmpdir(), 'chelation-bench-'));
-  const preview = await runPreview({ appName: 'chelation-ledger', appVersion: 'bench', appFolder: projectFolder, configFolder, workspace });
-  if (!preview.ok) throw new Error(preview.issues.map((it) => it.message).join('; '));
-  const browser = await chromium.launch({ executablePath: '/usr/bin/chromium', args: chromiumArgs });
-  const listedMs: number[] = [];
-  try {
+export function casesListedMs(projectFolder: string, workspace: string, lastLabel: string, runs: number): Promise<number[]> {
+  return withPreviewBrowser(projectFolder, workspace, async (url, browser) => {
+    const listedMs: number[] = [];
     for (let run = 0; run < runs; run += 1) {
       const page = await browser.newPage();
       const started = performance.now();
-      await page.goto(preview.value.url);
+      await page.goto(url);
       // The list is shown once every case is read and summarised: its last line's open button.
       await page.getByRole('button', { name: `Open ${lastLabel}` }).waitFor({ state: 'visible', timeout: 300_000 });
       listedMs.push(performance.now() - started);
       await page.close();
     }
-  } finally {
-    await browser.close();
-    await preview.value.close();
-    rmSync(configFolder, { recursive: true, force: true });
-  }
-  return listedMs;
+    return listedMs;
+  });
 }

@@ -121,6 +121,9 @@ const labelOf = (json: unknown) => (json as { patient?: { label?: unknown } } | 
 
 /** The workspace's view of a host that speaks the contract. */
 export function workspaceHostOver(api: HostApi): WorkspaceHost {
+  /** A host call that takes a work id: followed (the id sent, its progress polled) when the caller follows it, else plain. */
+  const maybeFollowed = <R extends object, T>(followed: FollowedWork | undefined, request: R, call: (request: R & { workId?: string }) => Promise<T>): Promise<T> =>
+    followed ? followWork(api, followed, () => call({ ...request, workId: followed.workId })) : call(request);
   const revisions = new Map<string, string>();
   const create = async (json: unknown): Promise<Result<{ readonly id: string }>> => {
     if (typeof json !== 'object' || json === null || Array.isArray(json)) return fail(issue('invalid_file', ['file'], 'A case file is a JSON object; this one is not.'));
@@ -175,13 +178,11 @@ export function workspaceHostOver(api: HostApi): WorkspaceHost {
       }
       return create(json);
     },
-    previewRecordImport: (request, followed) => (followed ? followWork(api, followed, () => api.importDryRun({ ...request, workId: followed.workId })) : api.importDryRun(request)),
+    previewRecordImport: (request, followed) => maybeFollowed(followed, request, (sent) => api.importDryRun(sent)),
     async commitRecordImport(request, followed) {
       const baseRevision = revisions.get(request.caseId);
       if (baseRevision === undefined) return fail(issue('host_failed', ['caseId'], `"${request.caseId}" was not opened from this workspace; reopen it.`));
-      const committed = followed
-        ? await followWork(api, followed, () => api.importCommit({ ...request, baseRevision, workId: followed.workId }))
-        : await api.importCommit({ ...request, baseRevision });
+      const committed = await maybeFollowed(followed, { ...request, baseRevision }, (sent) => api.importCommit(sent));
       if (!committed.ok) return committed;
       revisions.set(request.caseId, committed.value.revision);
       return ok({ counts: committed.value.counts });
@@ -193,12 +194,11 @@ export function workspaceHostOver(api: HostApi): WorkspaceHost {
     async exportSheet(id, asOf, followed) {
       const listedSettings = await api.readSettings({});
       const request = { caseId: id, asOfDate: asOf, paper: listedSettings.ok ? listedSettings.value.paper : ('a4' as const) };
-      const written = followed ? await followWork(api, followed, () => api.exportSheetPdf({ ...request, workId: followed.workId })) : await api.exportSheetPdf(request);
+      const written = await maybeFollowed(followed, request, (sent) => api.exportSheetPdf(sent));
       return written.ok ? ok({ location: written.value.path }) : written;
     },
     async exportCalendar(id, asOf, followed) {
-      const request = { caseId: id, asOfDate: asOf };
-      const written = followed ? await followWork(api, followed, () => api.exportCalendar({ ...request, workId: followed.workId })) : await api.exportCalendar(request);
+      const written = await maybeFollowed(followed, { caseId: id, asOfDate: asOf }, (sent) => api.exportCalendar(sent));
       return written.ok ? ok({ location: written.value.path }) : written;
     },
     async readUnitSystem() {

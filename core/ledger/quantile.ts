@@ -46,6 +46,13 @@ const smallSampleCount = 256;
 export function quantilesOfUnsorted(values: ArrayLike<number>, probabilities: readonly number[]): number[] {
   const count = values.length;
   const positions = probabilities.map((probability) => quantilePosition(count, probability));
+  const sortedWhole = (): number[] => {
+    const sorted = Float64Array.from(values).sort();
+    return positions.map(({ lower, upper, weight }) => interpolated(sorted[lower]!, sorted[upper]!, weight));
+  };
+  // A small sample is sorted whole: below a few hundred values the sort costs less than the buckets' arrays
+  // (measured on the panel's 50-draw bands; a performance choice of ours, the results are the same).
+  if (count <= smallSampleCount) return sortedWhole();
   let least = Infinity;
   let greatest = -Infinity;
   let holdsNaN = false;
@@ -55,19 +62,12 @@ export function quantilesOfUnsorted(values: ArrayLike<number>, probabilities: re
     if (value > greatest) greatest = value;
     if (value !== value) holdsNaN = true;
   }
-  // A small sample is sorted whole: below a few hundred values the sort costs less than the buckets' arrays
-  // (measured on the panel's 50-draw bands; a performance choice of ours, the results are the same).
-  if (count <= smallSampleCount) {
-    const sorted = Float64Array.from(values).sort();
-    return positions.map(({ lower, upper, weight }) => interpolated(sorted[lower]!, sorted[upper]!, weight));
-  }
   const bucketCount = Math.max(1, count >>> 2);
   const scale = bucketCount / (greatest - least);
   if (holdsNaN || !(scale > 0 && scale < Infinity)) {
     // NaN, ±Infinity, or every value the same (then any order statistic is that value).
     if (!holdsNaN && least === greatest) return positions.map(({ weight }) => interpolated(least, least, weight));
-    const sorted = Float64Array.from(values).sort();
-    return positions.map(({ lower, upper, weight }) => interpolated(sorted[lower]!, sorted[upper]!, weight));
+    return sortedWhole();
   }
   const origin = least;
   const last = bucketCount - 1;

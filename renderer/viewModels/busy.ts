@@ -16,10 +16,18 @@ export interface BusyWork {
   readonly workId?: string;
 }
 
+/**
+ * The host's step with how many of the steps foreseen it is: "Checking 60,000 rows against the
+ * case (step 3 of 4)" (`done` counts the steps finished before this one). Imports and exports alike.
+ */
+export function hostStepText(progress: WorkProgress): string {
+  return `${progress.step} (step ${formatNumber(progress.done + 1, 0)} of ${formatNumber(progress.total, 0)})`;
+}
+
 /** The busy line's words: the work, then the host's step with its count, or the cases read so far ("120 of 1,000"). */
 export function busyText(busy: BusyWork): string {
   if (busy.step !== undefined) {
-    return busy.total === null ? `${busy.label}: ${busy.step}` : `${busy.label}: ${busy.step} (step ${formatNumber(Math.min(busy.done + 1, busy.total), 0)} of ${formatNumber(busy.total, 0)})`;
+    return busy.total === null ? `${busy.label}: ${busy.step}` : `${busy.label}: ${hostStepText({ step: busy.step, done: busy.done, total: busy.total })}`;
   }
   return busy.total === null ? `${busy.label}…` : `${busy.label}: ${formatNumber(busy.done, 0)} of ${formatNumber(busy.total, 0)}`;
 }

@@ -1,5 +1,6 @@
 import { importKinds } from '../../core/contract';
 import type { RecordImportPreview, WorkProgress } from '../hostPort';
+import { hostStepText } from './busy';
 import { formatNumber } from './format';
 
 /**
@@ -144,7 +145,7 @@ interface PendingImport {
 export function importStepText(pending: PendingImport): string {
   const { progress } = pending;
   if (!progress) return `${pending.label}…`;
-  return `${progress.step} (step ${formatNumber(progress.done + 1, 0)} of ${formatNumber(progress.total, 0)})`;
+  return hostStepText(progress);
 }
 
 /** The progress bar of an import under way: its accessible name, and steps done of those foreseen (none yet: an indeterminate bar). */
