@@ -1,8 +1,9 @@
 import { Worker, type MessagePort } from 'node:worker_threads';
 import { rankOutcomes, reviewPanelEntry, type PanelOptions, type PanelOutcome, type PanelReview } from '../../core/panel';
 import { fail, issue, ok, type Result } from '../../core/result';
-import { boundedMap } from './boundedMap';
-import { openAheadFiles, openCaseStore, type CaseStore } from './caseStore';
+import { join } from 'node:path';
+import { readCaseFile } from './caseFiles';
+import type { CaseStore } from './caseStore';
 
 /**
  * The review of a whole workspace (the command line's `panel`): every case
@@ -87,11 +88,17 @@ export interface ReviewWorkerData {
 
 const messageOf = (error: unknown): string => (error instanceof Error ? `${error.name}: ${error.message}` : String(error)).split('\n')[0]!.slice(0, 300);
 
-/** One case: opened, validated and reviewed; an unexpected fault becomes a reason beside the ranking, never a lost case. */
-async function outcomeOf(store: CaseStore, fileName: string, panel: PanelOptions): Promise<PanelOutcome> {
+/**
+ * One case: read, validated and reviewed; an unexpected fault becomes a reason beside the ranking, never a lost case.
+ * Read as the command line reads a case (app/host/caseFiles.ts readCaseFile: one synchronous read), not
+ * opened through the store: a review writes nothing, so it needs neither the file's revision nor its
+ * journal, and a thread that computes between reads gains nothing from reading asynchronously.
+ * The messages are the store's (tests/app/host/workspaceReview.test.ts compares them).
+ */
+function outcomeOf(folder: string, fileName: string, panel: PanelOptions): PanelOutcome {
   try {
-    const opened = await store.open(fileName);
-    const loaded = opened.ok ? ok(opened.value.caseFile) : fail(...opened.issues.filter((it) => it.severity === 'error'));
+    const read = readCaseFile(join(folder, fileName));
+    const loaded = read.ok ? read : fail(...read.issues.filter((it) => it.severity === 'error'));
     return reviewPanelEntry({ fileName, loaded }, panel);
   } catch (error) {
     return {
@@ -102,9 +109,8 @@ async function outcomeOf(store: CaseStore, fileName: string, panel: PanelOptions
   }
 }
 
-/** Cases reviewed in this thread, a few files read ahead so the disk works while the CPU computes. */
-const reviewHere = (store: CaseStore, fileNames: readonly string[], panel: PanelOptions): Promise<PanelOutcome[]> =>
-  boundedMap(fileNames, openAheadFiles, (fileName) => outcomeOf(store, fileName, panel));
+/** Cases reviewed in this thread, one after another. */
+const reviewHere = (folder: string, fileNames: readonly string[], panel: PanelOptions): PanelOutcome[] => fileNames.map((fileName) => outcomeOf(folder, fileName, panel));
 
 /**
  * Review and rank every case file of a workspace folder.
@@ -128,7 +134,9 @@ export async function reviewWorkspace(store: CaseStore, options: WorkspaceReview
   const workerFailures: string[] = [];
 
   const reviewBatchHere = async (batch: readonly number[]) => {
-    const reviewed = await reviewHere(store, batch.map((index) => fileNames[index]!), panel);
+    // A turn of the event loop between batches, so the workers' answers are taken and their next batches sent.
+    await new Promise<void>((resume) => setImmediate(resume));
+    const reviewed = reviewHere(store.folder, batch.map((index) => fileNames[index]!), panel);
     batch.forEach((index, k) => (outcomes[index] = reviewed[k]));
     reviewedHere += batch.length;
   };
@@ -204,12 +212,7 @@ export async function reviewWorkspace(store: CaseStore, options: WorkspaceReview
  * Called by app/host/workspaceWorker.ts, the worker script's entry.
  */
 export function serveReviewBatches(port: MessagePort, data: ReviewWorkerData): void {
-  const store = openCaseStore(data.folder);
-  let queue: Promise<void> = Promise.resolve();
   port.on('message', (request: BatchRequest) => {
-    queue = queue.then(async () => {
-      const outcomes = await reviewHere(store, request.fileNames, data.panel);
-      port.postMessage({ batchId: request.batchId, outcomes } satisfies BatchAnswer);
-    });
+    port.postMessage({ batchId: request.batchId, outcomes: reviewHere(data.folder, request.fileNames, data.panel) } satisfies BatchAnswer);
   });
 }

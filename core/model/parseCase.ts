@@ -1,9 +1,36 @@
+import { z } from 'zod';
 import { fail, ok, type Issue, type Result } from '../result';
 import { isWarningIssue } from './bounds';
 import { caseSchemas, type Case } from './caseFile';
 import { consistencyIssues } from './consistency';
 import { migrateCase } from './migrate';
 import { issuesFromZod } from './zodIssues';
+
+/**
+ * Cases read with the runtime schema before the 'both' level is compiled
+ * (zod's z.compile: "same issues and error messages", zod.dev/compile). The
+ * compiled schema validates a valid case several times faster and, on any
+ * issue, hands the case back to the runtime parser, so the result is the same
+ * either way (tests/core/model/compiledSchema.test.ts compares them). Compiling
+ * costs about as much as reading two or three cases, so a command that reads
+ * one case never pays it and a workspace of a thousand pays it once: a
+ * modelling choice of ours. Where code may not be generated at run time (a
+ * page whose Content-Security-Policy forbids it), zod says so and the runtime
+ * schema is kept.
+ */
+export const casesBeforeCompiling = 3;
+
+let casesRead = 0;
+let compiledBoth: typeof caseSchemas.both | null = null;
+
+/** The 'both'-level schema: the runtime one for the first cases read in this process, then the compiled one. */
+export function bothLevelSchema(): typeof caseSchemas.both {
+  if (compiledBoth !== null) return compiledBoth;
+  casesRead += 1;
+  if (casesRead <= casesBeforeCompiling || !z.util.allowsEval.value) return caseSchemas.both;
+  compiledBoth = z.compile(caseSchemas.both);
+  return compiledBoth;
+}
 
 /**
  * Read a case file: migrate it to the current version, validate it, and
@@ -30,7 +57,7 @@ export function parseCase(json: unknown): Result<Case> {
 
   // One pass at the 'both' level finds the refusals and the range warnings (bounds.ts says why they are
   // exactly those of a 'refuse' pass and a 'warn' pass); most cases have neither, and are read once.
-  const checked = caseSchemas.both.safeParse(migrated.value, { reportInput: true });
+  const checked = bothLevelSchema().safeParse(migrated.value, { reportInput: true });
   let theCase: Case;
   let rangeWarnings: Issue[] = [];
   if (checked.success) {
