@@ -30,6 +30,8 @@ export interface ComputeOptions {
   readonly ferritinWindowMonths?: number;
   /** Projection model (default 'burden-dependent'; 'constant-rate' for comparison). */
   readonly model?: ProjectionModel;
+  /** Project the case's proposed regimens beside the current one (default true; false: the current regimen only). */
+  readonly projectProposed?: boolean;
 }
 
 export interface CaseResults {
@@ -105,7 +107,7 @@ export function computeCase(caseFile: Case, asOf: IsoDate, options: ComputeOptio
   const ferritin = ferritinSummary(context, options.ferritinWindowMonths ?? 12, lastResponse);
   const ageYears = ageOnDate(caseFile.patient.age, asOf);
   const model = options.model ?? 'burden-dependent';
-  const projectionRun = projectionSummary(context, intake.value.intake, bodyIron.bodyIron, basis, ageYears, { horizonMonths, seed, samples, model });
+  const projectionRun = projectionSummary(context, intake.value.intake, bodyIron.bodyIron, basis, ageYears, { horizonMonths, seed, samples, model, projectProposed: options.projectProposed ?? true });
   if (!projectionRun.ok) return projectionRun;
   const projection = projectionRun.value;
   // The projection's and the basis' own assumptions, listed with the conversion's.

@@ -98,31 +98,42 @@ export function computeIronAccount(input: LedgerInput): IronAccount {
   const weightChanges = [...input.weights]
     .sort((a, b) => a.date.localeCompare(b.date))
     .map((entry) => ({ dayIndex: epochDayFromIso(entry.date) - firstEpochDay, weightKg: entry.weightKg }));
-  let weightIndex = 0;
+  // The weight is constant between changes: each segment [from, to) of days is filled at once.
+  const segments: { readonly from: number; readonly to: number; readonly weightKg: number }[] = [];
+  let segmentStart = 0;
   let currentWeight = weightKgAt(input.weights, firstDay);
-  for (let index = 0; index < dayCount; index += 1) {
-    while (weightIndex < weightChanges.length && weightChanges[weightIndex]!.dayIndex <= index) {
-      currentWeight = weightChanges[weightIndex]!.weightKg;
-      weightIndex += 1;
+  for (const change of weightChanges) {
+    if (change.dayIndex >= dayCount) break;
+    if (change.dayIndex > segmentStart) {
+      segments.push({ from: segmentStart, to: change.dayIndex, weightKg: currentWeight });
+      segmentStart = change.dayIndex;
     }
-    daily.weightKg[index] = currentWeight;
-    daily.basalLossMg[index] = input.basalLossMgPerDay;
+    currentWeight = change.weightKg;
   }
+  segments.push({ from: segmentStart, to: dayCount, weightKg: currentWeight });
+  for (const segment of segments) daily.weightKg.fill(segment.weightKg, segment.from, segment.to);
+  daily.basalLossMg.fill(input.basalLossMgPerDay);
   for (const span of input.chelation) {
     const from = Math.max(0, daysBetween(firstDay, span.start));
     const to = Math.min(dayCount - 1, span.end === null ? dayCount - 1 : daysBetween(firstDay, span.end));
     const removalAt = removalByWeight(span);
-    for (let index = from; index <= to; index += 1) {
-      daily.chelationOutMg[index]! += removalAt(daily.weightKg[index]!);
+    for (const segment of segments) {
+      const last = Math.min(to, segment.to - 1);
+      if (segment.from > last || segment.to <= from) continue;
+      const removalMgPerDay = removalAt(segment.weightKg);
+      for (let index = Math.max(from, segment.from); index <= last; index += 1) daily.chelationOutMg[index]! += removalMgPerDay;
     }
   }
 
-  const anchors = new Map<number, number[]>();
+  // The days with a measured LIC, in day order, each with its measurements in record order.
+  const anchorsByDay = new Map<number, number[]>();
   for (const measurement of input.licMeasurements) {
     const index = daysBetween(firstDay, measurement.date);
     if (index < 0 || index >= dayCount) continue;
-    anchors.set(index, [...(anchors.get(index) ?? []), measurement.licMgPerGDry]);
+    anchorsByDay.set(index, [...(anchorsByDay.get(index) ?? []), measurement.licMgPerGDry]);
   }
+  const anchorDays = [...anchorsByDay.keys()].sort((a, b) => a - b);
+  let nextAnchor = 0;
 
   const months: MonthOfAccount[] = [];
   const monthLastIndex: number[] = [];
@@ -147,8 +158,9 @@ export function computeIronAccount(input: LedgerInput): IronAccount {
       chelationOutMg += chelationMg;
       basalLossMg += basalMg;
       if (bodyIronMg !== null) bodyIronMg += inMg - bloodOutMg - chelationMg - basalMg;
-      const measured = anchors.get(index);
-      if (measured) {
+      if (nextAnchor < anchorDays.length && anchorDays[nextAnchor] === index) {
+        nextAnchor += 1;
+        const measured = anchorsByDay.get(index)!;
         const meanLic = measured.reduce((sum, value) => sum + value, 0) / measured.length;
         // The measurement describes the end of its day: it replaces the running estimate.
         const carriedMg: number | null = bodyIronMg;

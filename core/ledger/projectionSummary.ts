@@ -33,6 +33,8 @@ export interface ProjectionOptions {
   readonly seed: number;
   readonly samples: number;
   readonly model: ProjectionModel;
+  /** False: the current regimen only, the proposed ones not projected. */
+  readonly projectProposed: boolean;
 }
 
 /**
@@ -72,9 +74,10 @@ export function projectionSummary(
       0,
     );
   const basisOf = (periods: readonly ChelationPeriod[]) => (periods.some((period) => measuredDrugs.has(period.drug)) ? ('measured' as const) : ('published' as const));
+  const proposedRegimens = options.projectProposed ? caseFile.proposedRegimens : [];
   const periodsOfScenario = new Map<string, readonly ChelationPeriod[]>([
     ['current', currentPeriods],
-    ...caseFile.proposedRegimens.map((regimen) => [regimen.id, regimen.periods] as const),
+    ...proposedRegimens.map((regimen) => [regimen.id, regimen.periods] as const),
   ]);
   const scenarios = [
     {
@@ -82,7 +85,7 @@ export function projectionSummary(
       name: currentPeriods.length > 0 ? `current regimen (${currentPeriods.map(describePeriod).join(' + ')})` : 'current: no chelation',
       periods: currentPeriods,
     },
-    ...caseFile.proposedRegimens.map((regimen) => ({ id: regimen.id, name: regimen.name, periods: regimen.periods })),
+    ...proposedRegimens.map((regimen) => ({ id: regimen.id, name: regimen.name, periods: regimen.periods })),
   ].map(({ id, name, periods }) => ({ id, name, removalMgPerDay: removalOf(periods), efficiencyBasis: basisOf(periods), efficiencyScale: 1 }));
   const floor = resolveAssumption('projection-floor-lic-mg-per-g-dry', overrides);
   const share = resolveAssumption('projection-burden-share', overrides);

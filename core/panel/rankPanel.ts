@@ -68,14 +68,16 @@ export interface PanelOptions {
  * The panel shows no band and no month ahead: only the net balance of the
  * current regimen on the review date (which depends neither on the sampling nor
  * on the horizon) and the findings (whose rules read the review date's figures,
- * never a projected month's). So each case is computed with the fewest samples
- * the projection accepts (core/ledger/projection.ts) rather than the review's
- * 500, over a horizon of one month rather than 24: a modelling choice of ours
- * that keeps a clinic's workspace quick to rank, and changes nothing the panel
- * shows (tests/core/panel checks its rows against the full review's). The
- * workspace's Cases screen computes its summary lines the same way.
+ * never a projected month's, and no projection but the current regimen's). So
+ * each case is computed with the fewest samples the projection accepts
+ * (core/ledger/projection.ts) rather than the review's 500, over a horizon of
+ * one month rather than 24, and its proposed regimens are not projected: a
+ * modelling choice of ours that keeps a clinic's workspace quick to rank, and
+ * changes nothing the panel shows (tests/core/panel checks its rows against
+ * the full review's). The workspace's Cases screen computes its summary lines
+ * the same way.
  */
-export const summaryComputeOptions = { samples: 50, horizonMonths: 1 } as const;
+export const summaryComputeOptions = { samples: 50, horizonMonths: 1, projectProposed: false } as const;
 
 const severityRank = (severity: Severity) => severities.indexOf(severity);
 
