@@ -3,7 +3,7 @@
  * "WS-0001"… built from the demo TH-0417 with their record, weights and doses
  * varied) opened, validated, computed and ranked by `chelation-ledger panel`
  * (app/host/workspaceReview.ts over the case store and core/panel, one thread
- * per core). Measured as a whole command in a child process, with its peak
+ * per core but one). Measured as a whole command in a child process, with its peak
  * resident memory (worker threads included: they share the process).
  */
 import { spawnSync } from 'node:child_process';

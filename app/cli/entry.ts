@@ -37,7 +37,7 @@ const io: CliHostIo = {
     return runPreview({ appName: name, appVersion: version, appFolder, configFolder: userConfigFolder(process.env, process.platform, homedir()), ...options });
   },
   openStore: (folder) => openCaseStore(folder),
-  // One thread per core for a workspace review (CHELATION_LEDGER_WORKERS overrides); the worker script is built beside dist/cli.cjs.
+  // One thread per core but one for a workspace review (CHELATION_LEDGER_WORKERS overrides); the worker script is built beside dist/cli.cjs.
   workspaceWorkers: () => workspaceWorkersFrom(process.env, availableParallelism(), join(__dirname, 'workspaceWorker.cjs')),
 };
 

@@ -67,7 +67,7 @@ export async function panelCommand(args: ParsedArgs, io: CliIo & StoreIo & Panel
     io.err(formatIssues(workers.issues));
     return exitCodes.usage;
   }
-  // Each case is read and validated once, then reviewed, shared over one thread per core.
+  // Each case is read and validated once, then reviewed, shared over one thread per core but one (app/host/workspaceReview.ts coresLeftToTheEngine).
   const reviewed = await reviewWorkspace(io.openStore(folder), { ...(asOf === undefined ? {} : { asOf }), today: io.today(), workers: workers?.value ?? null });
   if (!reviewed.ok) {
     io.err(formatIssues(reviewed.issues));

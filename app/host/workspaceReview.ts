@@ -31,18 +31,28 @@ export const workersVariable = 'CHELATION_LEDGER_WORKERS';
 export const maxReviewThreads = 16;
 
 /**
+ * Cores left to V8's own threads: with one thread reviewing, its compiler and
+ * garbage collector already keep about half of a second core busy (measured on
+ * the 2-core machine of bench/results: 1,000 cases took 2.8 s of wall time
+ * and 4.0 s of processor time), so on two cores a second reviewing thread
+ * made the review slower, not faster (3.1 s against 2.8 s). A modelling
+ * choice of ours, from that measurement.
+ */
+export const coresLeftToTheEngine = 1;
+
+/**
  * The threads of a workspace review from the environment: `CHELATION_LEDGER_WORKERS`
- * when set (a whole number 1–16), else one per core.
+ * when set (a whole number 1–16), else one per core but {@link coresLeftToTheEngine}.
  *
  * @param env - the process environment
  * @param cores - os.availableParallelism()
  * @param script - the bundled worker script
  * @returns the plan, or an issue naming the variable, its value and the range
- * @example workspaceWorkersFrom({}, 2, 'dist/workspaceWorker.cjs') → ok({ script: 'dist/workspaceWorker.cjs', threads: 2 })
+ * @example workspaceWorkersFrom({}, 4, 'dist/workspaceWorker.cjs') → ok({ script: 'dist/workspaceWorker.cjs', threads: 3 })
  */
 export function workspaceWorkersFrom(env: Readonly<Record<string, string | undefined>>, cores: number, script: string): Result<WorkspaceWorkers> {
   const raw = env[workersVariable];
-  if (raw === undefined || raw.trim() === '') return ok({ script, threads: Math.max(1, Math.min(maxReviewThreads, Math.floor(cores))) });
+  if (raw === undefined || raw.trim() === '') return ok({ script, threads: Math.max(1, Math.min(maxReviewThreads, Math.floor(cores) - coresLeftToTheEngine)) });
   const threads = Number(raw);
   if (!/^\s*\d+\s*$/.test(raw) || threads < 1 || threads > maxReviewThreads) {
     return fail(issue('out_of_range', [workersVariable], `${workersVariable} "${raw.slice(0, 40)}" is not a number of threads for a workspace review: a whole number 1–${maxReviewThreads} (1 reviews in one thread).`));

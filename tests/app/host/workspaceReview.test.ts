@@ -134,8 +134,9 @@ describe('the built command line’s panel', () => {
 });
 
 describe('workspaceWorkersFrom', () => {
-  it('uses one thread per core unless the variable says otherwise, from 1 to 16', () => {
-    expect(workspaceWorkersFrom({}, 2, 'w.cjs')).toEqual(ok({ script: 'w.cjs', threads: 2 }));
+  it('uses one thread per core but one (left to the engine’s own threads) unless the variable says otherwise, from 1 to 16', () => {
+    expect(workspaceWorkersFrom({}, 4, 'w.cjs')).toEqual(ok({ script: 'w.cjs', threads: 3 }));
+    expect(workspaceWorkersFrom({}, 2, 'w.cjs')).toEqual(ok({ script: 'w.cjs', threads: 1 }));
     expect(workspaceWorkersFrom({}, 1, 'w.cjs')).toEqual(ok({ script: 'w.cjs', threads: 1 }));
     expect(workspaceWorkersFrom({}, 64, 'w.cjs')).toEqual(ok({ script: 'w.cjs', threads: 16 }));
     expect(workspaceWorkersFrom({ [workersVariable]: '1' }, 8, 'w.cjs')).toEqual(ok({ script: 'w.cjs', threads: 1 }));
