@@ -24,33 +24,39 @@ function periodsWithPaths(theCase: Case): { path: Path; period: { readonly start
   ];
 }
 
-function duplicateIds(theCase: Case): Issue[] {
-  const seen = new Map<string, Path>();
-  const found: Issue[] = [];
-  const entries: { path: Path; id: string }[] = [
-    ...theCase.transfusions.map((it, index) => ({ path: ['transfusions', index, 'id'], id: it.id })),
-    ...theCase.results.map((it, index) => ({ path: ['results', index, 'id'], id: it.id })),
-    ...theCase.chelationPeriods.map((it, index) => ({ path: ['chelationPeriods', index, 'id'], id: it.id })),
-    ...theCase.coMedications.map((it, index) => ({ path: ['coMedications', index, 'id'], id: it.id })),
-    ...theCase.proposedRegimens.map((it, index) => ({ path: ['proposedRegimens', index, 'id'], id: it.id })),
-    ...theCase.dispensings.map((it, index) => ({ path: ['dispensings', index, 'id'], id: it.id })),
-    ...(['hepaticImpairment', 'cardiacFailure', 'renalRiskFactors'] as const).flatMap((list) =>
-      theCase.clinicalState[list].map((it, index) => ({ path: ['clinicalState', list, index, 'id'], id: it.id })),
-    ),
+/** The lists whose entries carry an id, in the order their duplicates are reported. */
+function listsWithIds(theCase: Case): { readonly base: Path; readonly entries: readonly { readonly id: string }[] }[] {
+  return [
+    { base: ['transfusions'], entries: theCase.transfusions },
+    { base: ['results'], entries: theCase.results },
+    { base: ['chelationPeriods'], entries: theCase.chelationPeriods },
+    { base: ['coMedications'], entries: theCase.coMedications },
+    { base: ['proposedRegimens'], entries: theCase.proposedRegimens },
+    { base: ['dispensings'], entries: theCase.dispensings },
+    ...(['hepaticImpairment', 'cardiacFailure', 'renalRiskFactors'] as const).map((list) => ({ base: ['clinicalState', list], entries: theCase.clinicalState[list] })),
   ];
-  for (const { path, id } of entries) {
-    const first = seen.get(id);
-    if (first) {
-      found.push(issue('inconsistent', path, `${pathText(path)} "${id}" is already used by ${pathText(first)}; each entry needs its own id.`));
-    } else {
-      seen.set(id, path);
+}
+
+function duplicateIds(theCase: Case): Issue[] {
+  // One loop over every list (entries of many shapes, read only for their id), and a path made only
+  // for a duplicate: this runs for every case opened.
+  const seen = new Map<string, { readonly base: Path; readonly index: number }>();
+  const found: Issue[] = [];
+  for (const { base, entries } of listsWithIds(theCase)) {
+    for (let index = 0; index < entries.length; index += 1) {
+      const id = entries[index]!.id;
+      const first = seen.get(id);
+      if (first === undefined) {
+        seen.set(id, { base, index });
+        continue;
+      }
+      const path = [...base, index, 'id'];
+      found.push(issue('inconsistent', path, `${pathText(path)} "${id}" is already used by ${pathText([...first.base, first.index, 'id'])}; each entry needs its own id.`));
     }
   }
   return found;
 }
 
-/** Two periods of one drug that share days: usually a regimen change typed without ending the old period. */
-/** Periods of one drug that overlap (a duplicated period counts the drug twice); `base` is the list's path. */
 function overlappingSameDrug(periods: readonly ChelationPeriod[], base: Path = ['chelationPeriods']): Issue[] {
   const endOf = (index: number) => periods[index]!.endDate ?? '9999-12-31';
   // The overlapping pairs (later index, earlier index), found drug by drug in one sweep over the start
