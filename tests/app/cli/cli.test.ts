@@ -1,14 +1,15 @@
 import { spawnSync } from 'node:child_process';
-import { mkdirSync, mkdtempSync, rmSync } from 'node:fs';
+import { mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { dirname } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { join } from 'node:path';
+import { Script } from 'node:vm';
 import { describe, expect, it } from 'vitest';
 import { parseArgs } from '../../../app/cli/args';
 import { formulaCatalogue } from '../../../core/catalogue';
 import { describeFormula, flagForInput } from '../../../core/formulas/describe';
 // @ts-expect-error plain ESM build script without type declarations
-import { buildCli } from '../../../app/build/build-cli.mjs';
+import { buildCli, cliBundleFile, cliCodeCacheFile } from '../../../app/build/build-cli.mjs';
 import { cli } from './harness';
 
 const projectRoot = fileURLToPath(new URL('../../..', import.meta.url));
@@ -194,7 +195,7 @@ describe('calc <calculator>', () => {
 });
 
 describe('the built command line', () => {
-  it('runs from the single-file bundle that npm install builds', async () => {
+  it('runs from the bundle that npm install builds, with its code cache, without it, or with one V8 refuses', async () => {
     // Inside the project, so the bundle finds its external runtime dependencies in node_modules.
     const outfile = join(mkdtempSync(join(projectRoot, 'dist', 'test-cli-')), 'cli.cjs');
     await buildCli(outfile);
@@ -210,7 +211,25 @@ describe('the built command line', () => {
     expect(bad.status).toBe(1);
     expect(bad.stdout).toBe('');
     expect(bad.stderr).toContain('--volume-ml: Volume transfused -5 mL is outside the plausible range 1–10000 mL.');
-    rmSync(dirname(outfile), { recursive: true, force: true });
+
+    // The code cache the build made is one this Node's V8 accepts for this bundle (V8's own check:
+    // cachedDataRejected), wrapped as app/build/cliLoader.cjs wraps it.
+    const folder = dirname(outfile);
+    const bundlePath = join(folder, cliBundleFile);
+    const cachePath = join(folder, cliCodeCacheFile);
+    const wrapped = `(function (exports, require, module, __filename, __dirname) {${readFileSync(bundlePath, 'utf8')}\n})`;
+    expect(new Script(wrapped, { filename: bundlePath, cachedData: readFileSync(cachePath) }).cachedDataRejected).toBe(false);
+    // Without the cache, or with one V8 refuses, the command gives the same output.
+    const withCache = spawnSync(process.execPath, [outfile, 'findings', `${projectRoot}assets/demo/th-0417.json`, '--json'], { encoding: 'utf8' });
+    expect(withCache.status).toBe(0);
+    writeFileSync(cachePath, Buffer.from('not a code cache'));
+    const refused = spawnSync(process.execPath, [outfile, 'findings', `${projectRoot}assets/demo/th-0417.json`, '--json'], { encoding: 'utf8' });
+    rmSync(cachePath);
+    const without = spawnSync(process.execPath, [outfile, 'findings', `${projectRoot}assets/demo/th-0417.json`, '--json'], { encoding: 'utf8' });
+    expect([refused.status, without.status]).toEqual([0, 0]);
+    expect(refused.stdout).toBe(withCache.stdout);
+    expect(without.stdout).toBe(withCache.stdout);
+    rmSync(folder, { recursive: true, force: true });
     // A build and two processes: a ceiling for a loaded shared machine, not a speed check.
   }, 60_000);
 });

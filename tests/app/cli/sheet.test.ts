@@ -1,10 +1,10 @@
 import { spawnSync } from 'node:child_process';
 import { mkdirSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
-import { join } from 'node:path';
+import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
 // @ts-expect-error plain ESM build script without type declarations
-import { buildCli } from '../../../app/build/build-cli.mjs';
+import { buildCli, cliBundleFile } from '../../../app/build/build-cli.mjs';
 import { cli, demoCase, runWith, tempDir } from './harness';
 
 const demo = demoCase('th-0417');
@@ -75,7 +75,7 @@ describe('sheet command', () => {
     mkdirSync(join(projectRoot, 'dist'), { recursive: true });
     const outfile = join(mkdtempSync(join(projectRoot, 'dist', 'test-cli-')), 'cli.cjs');
     await buildCli(outfile);
-    const bundle = readFileSync(outfile, 'utf8');
+    const bundle = readFileSync(join(dirname(outfile), cliBundleFile), 'utf8');
     expect(bundle).toContain('require("pdfmake")');
     expect(bundle).not.toContain('class LayoutBuilder');
     const path = join(tempDir(), 'built.pdf');
