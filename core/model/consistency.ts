@@ -247,17 +247,18 @@ export function consistencyIssues(theCase: Case): Issue[] {
   }
 
   const { age } = theCase.patient;
+  const { reviewDate } = theCase.review;
+  const events = age.kind === 'birth-date' || reviewDate !== null ? eventDates(theCase) : [];
   if (age.kind === 'birth-date') {
-    for (const { path, date } of eventDates(theCase)) {
+    for (const { path, date } of events) {
       if (date < age.birthDate) {
         found.push(issue('inconsistent', path, `${pathText(path)} ${date} is before the birth date ${age.birthDate}.`));
       }
     }
   }
 
-  const { reviewDate } = theCase.review;
   if (reviewDate !== null) {
-    for (const { path, date } of eventDates(theCase)) {
+    for (const { path, date } of events) {
       if (date > reviewDate) {
         found.push(issue('inconsistent', path, `${pathText(path)} ${date} is after the review date ${reviewDate}; check the date.`, 'warning'));
       }

@@ -7,6 +7,22 @@ export interface DatedAt {
   readonly date: IsoDate;
 }
 
+/** The lists whose entries record something that happened to the patient, and the field of each entry's date. */
+function datedLists(theCase: Case): readonly { readonly base: readonly string[]; readonly field: string; readonly entries: readonly object[] }[] {
+  return [
+    { base: ['patient', 'weights'], field: 'date', entries: theCase.patient.weights },
+    { base: ['patient', 'heights'], field: 'date', entries: theCase.patient.heights },
+    { base: ['transfusions'], field: 'date', entries: theCase.transfusions },
+    { base: ['results'], field: 'date', entries: theCase.results },
+    { base: ['chelationPeriods'], field: 'startDate', entries: theCase.chelationPeriods },
+    { base: ['coMedications'], field: 'startDate', entries: theCase.coMedications },
+    { base: ['dispensings'], field: 'date', entries: theCase.dispensings },
+    ...(['hepaticImpairment', 'cardiacFailure', 'renalRiskFactors'] as const).map((list) => ({ base: ['clinicalState', list], field: 'date', entries: theCase.clinicalState[list] })),
+  ];
+}
+
+const dateIn = (entry: object, field: string): IsoDate => (entry as Record<string, IsoDate>)[field]!;
+
 /**
  * Every date that records something that happened to the patient (not review or
  * sign-off dates, not proposed regimens), with its path.
@@ -16,15 +32,28 @@ export interface DatedAt {
  */
 export function eventDates(theCase: Case): DatedAt[] {
   const dates: DatedAt[] = [];
-  theCase.patient.weights.forEach((it, index) => dates.push({ path: ['patient', 'weights', index, 'date'], date: it.date }));
-  theCase.patient.heights.forEach((it, index) => dates.push({ path: ['patient', 'heights', index, 'date'], date: it.date }));
-  theCase.transfusions.forEach((it, index) => dates.push({ path: ['transfusions', index, 'date'], date: it.date }));
-  theCase.results.forEach((it, index) => dates.push({ path: ['results', index, 'date'], date: it.date }));
-  theCase.chelationPeriods.forEach((it, index) => dates.push({ path: ['chelationPeriods', index, 'startDate'], date: it.startDate }));
-  theCase.coMedications.forEach((it, index) => dates.push({ path: ['coMedications', index, 'startDate'], date: it.startDate }));
-  theCase.dispensings.forEach((it, index) => dates.push({ path: ['dispensings', index, 'date'], date: it.date }));
-  for (const list of ['hepaticImpairment', 'cardiacFailure', 'renalRiskFactors'] as const) {
-    theCase.clinicalState[list].forEach((it, index) => dates.push({ path: ['clinicalState', list, index, 'date'], date: it.date }));
+  for (const { base, field, entries } of datedLists(theCase)) {
+    entries.forEach((entry, index) => dates.push({ path: [...base, index, field], date: dateIn(entry, field) }));
   }
   return dates;
+}
+
+/**
+ * The earliest and the latest of the case's {@link eventDates}, or null when it has none:
+ * what a review window needs, without a path per date.
+ *
+ * @param theCase - a parsed case; not changed
+ * @example eventDateSpan(TH-0417) → { earliest: '2021-09-01', latest: '2026-11-17' }
+ */
+export function eventDateSpan(theCase: Case): { readonly earliest: IsoDate; readonly latest: IsoDate } | null {
+  let earliest: IsoDate | null = null;
+  let latest: IsoDate | null = null;
+  for (const { field, entries } of datedLists(theCase)) {
+    for (const entry of entries) {
+      const date = dateIn(entry, field);
+      if (earliest === null || date < earliest) earliest = date;
+      if (latest === null || date > latest) latest = date;
+    }
+  }
+  return earliest === null || latest === null ? null : { earliest, latest };
 }

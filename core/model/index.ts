@@ -25,7 +25,7 @@ export { sortedByDate } from './sortedByDate';
 export { latestWeightOnOrBefore } from './latestWeight';
 export { periodsActiveOn, type DatedPeriod } from './periodsActiveOn';
 export { periodsOverlapping } from './periodsOverlapping';
-export { resultsOfKindBetween } from './resultsOfKindBetween';
+export { resultsByKindBetween, resultsOfKindBetween } from './resultsOfKindBetween';
 export { continuousRunStart } from './continuousRunStart';
 export { eventDates, type DatedAt } from './eventDates';
 export { checkReviewDate, reviewWindow, reviewYearsAfterRecord, type ReviewWindow } from './reviewWindow';

@@ -2,7 +2,7 @@ import { addMonthsIso, type IsoDate } from '../dates/isoDate';
 import { fail, issue, ok, type Result } from '../result';
 import type { Case } from './caseFile';
 import { describeCaseDateProblem, isCaseDate } from './caseDate';
-import { eventDates } from './eventDates';
+import { eventDateSpan } from './eventDates';
 
 /**
  * How far after the last dated entry a review may be set: 5 years. A modelling choice
@@ -26,11 +26,16 @@ export interface ReviewWindow {
  * @example reviewWindow(caseWithEntries('2022-01-04', '2026-11-10')) → { from: '2022-01-04', to: '2031-11-10' }
  */
 export function reviewWindow(theCase: Case): ReviewWindow | null {
-  const dates = eventDates(theCase).map((it) => it.date);
-  for (const period of theCase.chelationPeriods) if (period.endDate !== null) dates.push(period.endDate);
-  if (dates.length === 0) return null;
-  const sorted = [...dates].sort();
-  return { from: sorted[0]!, to: addMonthsIso(sorted[sorted.length - 1]!, 12 * reviewYearsAfterRecord) };
+  const span = eventDateSpan(theCase);
+  let from = span?.earliest ?? null;
+  let last = span?.latest ?? null;
+  for (const period of theCase.chelationPeriods) {
+    if (period.endDate === null) continue;
+    if (from === null || period.endDate < from) from = period.endDate;
+    if (last === null || period.endDate > last) last = period.endDate;
+  }
+  if (from === null || last === null) return null;
+  return { from, to: addMonthsIso(last, 12 * reviewYearsAfterRecord) };
 }
 
 /**

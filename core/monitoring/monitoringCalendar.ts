@@ -1,7 +1,7 @@
 import { addDaysIso, addMonthsIso, daysBetween, type IsoDate } from '../dates';
 import type { Case, ChelationPeriod } from '../model/caseFile';
 import { periodsActiveOn } from '../model/periodsActiveOn';
-import { resultsOfKindBetween } from '../model/resultsOfKindBetween';
+import { resultsByKindBetween, resultsOfKindBetween } from '../model/resultsOfKindBetween';
 import { earliestCaseDate } from '../model/caseDate';
 import { checkReviewDate } from '../model/reviewWindow';
 import { ageOnDate } from '../patient/ageOnDate';
@@ -220,6 +220,7 @@ export function monitoringCalendar(theCase: Case, asOf: IsoDate, options: Monito
   const active = periodsActiveOn(theCase.chelationPeriods, asOf);
   const items: MonitoringItem[] = [];
   const notApplicable: MonitoringSkipped[] = [];
+  const onRecord = resultsByKindBetween(theCase.results, earliestCaseDate, asOf);
   for (const rule of monitoringRules()) {
     const fit = applicability(rule, theCase, asOf, active);
     if (!fit.applies) {
@@ -228,7 +229,7 @@ export function monitoringCalendar(theCase: Case, asOf: IsoDate, options: Monito
     }
     const { interval, why: intervalWhy } = ruleInterval(rule, theCase, asOf, active, fit.drugs, ancIntervalDays);
     // An examination recorded as not done does not count as done.
-    const done = rule.resultKind === null ? [] : resultsOfKindBetween(theCase.results, rule.resultKind, earliestCaseDate, asOf).filter((it) => !('outcome' in it) || it.outcome !== 'not-done');
+    const done = rule.resultKind === null ? [] : onRecord(rule.resultKind).filter((it) => !('outcome' in it) || it.outcome !== 'not-done');
     const lastDate = done.at(-1)?.date ?? null;
     const dueDate = lastDate === null ? asOf : addInterval(lastDate, interval);
     const status: MonitoringStatus = dueDate < asOf ? 'overdue' : dueDate === asOf ? 'due-now' : 'upcoming';

@@ -105,6 +105,7 @@ export function safetyContext(caseFile: Case, results: CaseResults, asOf: IsoDat
   if (!calendar.ok) throw new Error(`Monitoring calendar refused a checked review: ${calendar.issues.map((it) => it.message).join(' ')}`);
   const childPugh = latestOnOrBefore(caseFile.clinicalState.hepaticImpairment, asOf);
   const cardiacFailure = latestOnOrBefore(caseFile.clinicalState.cardiacFailure, asOf);
+  const appliedThresholds = new Map<string, AppliedThreshold>();
   return {
     caseFile,
     results,
@@ -121,6 +122,14 @@ export function safetyContext(caseFile: Case, results: CaseResults, asOf: IsoDat
       sorted.filter((it) => it.entry.kind === kind).map((it) => ({ entry: it.entry as Extract<ResultEntry, { readonly kind: Kind }>, ref: it.ref })),
     ageOn,
     heightOn: (date) => sortedByDate(caseFile.patient.heights).filter((it) => it.date <= date).at(-1),
-    threshold: (id) => applyThreshold(id, overrides),
+    threshold: (id) => {
+      // Each rule asks for its thresholds, some many times (a title, a text, the sources): each is applied once per review.
+      let applied = appliedThresholds.get(id);
+      if (applied === undefined) {
+        applied = applyThreshold(id, overrides);
+        appliedThresholds.set(id, applied);
+      }
+      return applied;
+    },
   };
 }

@@ -1,4 +1,4 @@
-import { compareAsc, isWithinInterval, parseISO } from 'date-fns';
+import { addMonths, compareAsc, isWithinInterval, parseISO } from 'date-fns';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { toIsoDate } from '../../../core/dates';
@@ -6,10 +6,13 @@ import {
   latestWeightOnOrBefore,
   parseCase,
   periodsActiveOn,
+  resultsByKindBetween,
   resultsOfKindBetween,
   sortedByDate,
   type WeightEntry,
 } from '../../../core/model';
+import { eventDateSpan, eventDates } from '../../../core/model/eventDates';
+import { reviewWindow, reviewYearsAfterRecord } from '../../../core/model/reviewWindow';
 import { deepFreeze, readDemo } from './caseFixtures';
 
 // Outside reference: date-fns (compareAsc, isWithinInterval on parsed dates)
@@ -129,5 +132,64 @@ describe('resultsOfKindBetween', () => {
       }),
       { seed: 4, numRuns: 200 },
     );
+  });
+
+  it('grouped for many kinds (resultsByKindBetween) gives each kind what it gives, in the same order', () => {
+    // The same reference: membership by date-fns isWithinInterval, order by date-fns compareAsc, ties in file order.
+    const kinds = [...new Set(results.map((it) => it.kind)), 'blood-lead' as const];
+    fc.assert(
+      fc.property(isoDate, isoDate, (first, second) => {
+        const [fromDate, toDate] = first <= second ? [first, second] : [second, first];
+        const interval = { start: parseISO(fromDate), end: parseISO(toDate) };
+        const lookup = resultsByKindBetween(results, fromDate, toDate);
+        for (const kind of kinds) {
+          const expected = results
+            .map((it, index) => ({ it, index }))
+            .filter(({ it }) => it.kind === kind && isWithinInterval(parseISO(it.date), interval))
+            .sort((a, b) => compareAsc(parseISO(a.it.date), parseISO(b.it.date)) || a.index - b.index)
+            .map(({ it }) => it);
+          expect(lookup(kind)).toEqual(expected);
+          expect(lookup(kind)).toEqual(resultsOfKindBetween(results, kind, fromDate, toDate));
+        }
+      }),
+      { seed: 5, numRuns: 200 },
+    );
+  });
+});
+
+describe('eventDateSpan and reviewWindow', () => {
+  it('take the earliest and latest event dates as date-fns orders them, on the demos with their dates drawn anew', () => {
+    // Outside reference: date-fns compareAsc over every date eventDates lists (with the periods' end
+    // dates for the window), and date-fns addMonths for the window's end.
+    const demo = parseCase(readDemo('th-0417'));
+    if (!demo.ok) throw new Error('demo did not parse');
+    fc.assert(
+      fc.property(fc.array(isoDate, { minLength: 4, maxLength: 4 }), fc.boolean(), ([weightDate, resultDate, transfusionDate, endDate], ended) => {
+        const base = demo.value;
+        const theCase = {
+          ...base,
+          patient: { ...base.patient, weights: [{ ...base.patient.weights[0]!, date: weightDate! }, ...base.patient.weights.slice(1)] },
+          results: [{ ...base.results[0]!, date: resultDate! }, ...base.results.slice(1)],
+          transfusions: [...base.transfusions.slice(1), { ...base.transfusions[0]!, date: transfusionDate! }],
+          chelationPeriods: base.chelationPeriods.map((period, index) => (index === 0 ? { ...period, endDate: ended ? endDate! : null } : period)),
+        };
+        const events = eventDates(theCase).map((it) => it.date);
+        const ordered = [...events].sort((a, b) => compareAsc(parseISO(a), parseISO(b)));
+        expect(eventDateSpan(theCase)).toEqual({ earliest: ordered[0], latest: ordered.at(-1) });
+        const withEnds = [...events, ...theCase.chelationPeriods.flatMap((period) => (period.endDate === null ? [] : [period.endDate]))].sort((a, b) =>
+          compareAsc(parseISO(a), parseISO(b)),
+        );
+        expect(reviewWindow(theCase)).toEqual({ from: withEnds[0], to: toIsoDate(addMonths(parseISO(withEnds.at(-1)!), 12 * reviewYearsAfterRecord)) });
+      }),
+      { seed: 1605, numRuns: 200 },
+    );
+  });
+
+  it('is null for a case with no dated entry', () => {
+    const demo = parseCase(readDemo('th-0417'));
+    if (!demo.ok) throw new Error('demo did not parse');
+    const empty = { ...demo.value, patient: { ...demo.value.patient, weights: [], heights: [] }, transfusions: [], results: [], chelationPeriods: [], coMedications: [], dispensings: [], clinicalState: { hepaticImpairment: [], cardiacFailure: [], renalRiskFactors: [] } };
+    expect(eventDateSpan(empty)).toBeNull();
+    expect(reviewWindow(empty)).toBeNull();
   });
 });
