@@ -111,6 +111,12 @@ export function monthEndIso(date: IsoDate): IsoDate {
   return isoOf(year, month, daysInMonth(year, month));
 }
 
+/** Days from a date to the end of its month, both counted. @example daysLeftInMonth('2024-02-10') === 20 */
+export function daysLeftInMonth(date: IsoDate): number {
+  const [year, month, day] = partsOf(date);
+  return daysInMonth(year, month) - day + 1;
+}
+
 /** 'YYYY-MM' of a date. @example monthKey('2026-11-20') === '2026-11' */
 export function monthKey(date: IsoDate): string {
   return date.slice(0, 7);

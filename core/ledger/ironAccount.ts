@@ -1,4 +1,4 @@
-import { addMonthsIso, daysBetween, epochDayFromIso, isoFromEpochDay, monthKey, monthStartIso, type IsoDate } from '../dates/isoDate';
+import { daysBetween, daysLeftInMonth, epochDayFromIso, isoFromEpochDay, monthKey, type IsoDate } from '../dates/isoDate';
 import { angelucciSlopeMgPerKgPerMgPerGDry } from '../iron/bodyIron';
 import type { ChelationSpan, LedgerInput } from './ledgerInput';
 import { weightKgAt } from './weightAt';
@@ -139,10 +139,13 @@ export function computeIronAccount(input: LedgerInput): IronAccount {
   const monthLastIndex: number[] = [];
   /** Each measurement day with the stores it sets and the balance carried to it from the one before. */
   const meetings: { readonly index: number; readonly anchoredMg: number; readonly carriedMg: number | null }[] = [];
-  let bodyIronMg: number | null = null;
+  // The running estimate as a plain number with a flag, not number | null: a variable that may hold null
+  // keeps its number boxed, one allocation per day of the record.
+  let anchored = false;
+  let runningMg = 0;
   for (let monthFirstIndex = 0; monthFirstIndex < dayCount; ) {
     const monthFirstDay = isoFromEpochDay(firstEpochDay + monthFirstIndex);
-    const nextMonthIndex = Math.min(dayCount, epochDayFromIso(addMonthsIso(monthStartIso(monthFirstDay), 1)) - firstEpochDay);
+    const nextMonthIndex = Math.min(dayCount, monthFirstIndex + daysLeftInMonth(monthFirstDay));
     let transfusedInMg = 0;
     let removedWithBloodMg = 0;
     let chelationOutMg = 0;
@@ -157,15 +160,16 @@ export function computeIronAccount(input: LedgerInput): IronAccount {
       removedWithBloodMg += bloodOutMg;
       chelationOutMg += chelationMg;
       basalLossMg += basalMg;
-      if (bodyIronMg !== null) bodyIronMg += inMg - bloodOutMg - chelationMg - basalMg;
+      if (anchored) runningMg += inMg - bloodOutMg - chelationMg - basalMg;
       if (nextAnchor < anchorDays.length && anchorDays[nextAnchor] === index) {
         nextAnchor += 1;
         const measured = anchorsByDay.get(index)!;
         const meanLic = measured.reduce((sum, value) => sum + value, 0) / measured.length;
         // The measurement describes the end of its day: it replaces the running estimate.
-        const carriedMg: number | null = bodyIronMg;
-        bodyIronMg = angelucciSlopeMgPerKgPerMgPerGDry * meanLic * daily.weightKg[index]!;
-        meetings.push({ index, anchoredMg: bodyIronMg, carriedMg });
+        const carriedMg: number | null = anchored ? runningMg : null;
+        runningMg = angelucciSlopeMgPerKgPerMgPerGDry * meanLic * daily.weightKg[index]!;
+        anchored = true;
+        meetings.push({ index, anchoredMg: runningMg, carriedMg });
         const date = isoFromEpochDay(firstEpochDay + index);
         for (const value of measured) measuredLic.push({ date, licMgPerGDry: value });
       }
@@ -173,6 +177,7 @@ export function computeIronAccount(input: LedgerInput): IronAccount {
     const lastIndex = nextMonthIndex - 1;
     monthLastIndex.push(lastIndex);
     const weightKg = daily.weightKg[lastIndex]!;
+    const bodyIronMg = anchored ? runningMg : null;
     months.push({
       month: monthKey(monthFirstDay),
       firstDay: monthFirstDay,
@@ -191,6 +196,7 @@ export function computeIronAccount(input: LedgerInput): IronAccount {
     monthFirstIndex = nextMonthIndex;
   }
   const weightAtAsOf = daily.weightKg[dayCount - 1]!;
+  const bodyIronMg = anchored ? runningMg : null;
   return {
     firstDay,
     lastDay: input.asOf,

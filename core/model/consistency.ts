@@ -10,7 +10,7 @@ import { ageOnDate } from '../patient/ageOnDate';
 import { chelatorIdForPeriod, findChelator } from '../chelators/catalogue';
 import { latestWeightOnOrBefore } from './latestWeight';
 import { pathText } from './zodIssues';
-import { eventDates } from './eventDates';
+import { eventDatesWhere } from './eventDates';
 
 type Path = readonly (string | number)[];
 
@@ -247,21 +247,16 @@ export function consistencyIssues(theCase: Case): Issue[] {
   }
 
   const { age } = theCase.patient;
-  const { reviewDate } = theCase.review;
-  const events = age.kind === 'birth-date' || reviewDate !== null ? eventDates(theCase) : [];
   if (age.kind === 'birth-date') {
-    for (const { path, date } of events) {
-      if (date < age.birthDate) {
-        found.push(issue('inconsistent', path, `${pathText(path)} ${date} is before the birth date ${age.birthDate}.`));
-      }
+    for (const { path, date } of eventDatesWhere(theCase, (date) => date < age.birthDate)) {
+      found.push(issue('inconsistent', path, `${pathText(path)} ${date} is before the birth date ${age.birthDate}.`));
     }
   }
 
+  const { reviewDate } = theCase.review;
   if (reviewDate !== null) {
-    for (const { path, date } of events) {
-      if (date > reviewDate) {
-        found.push(issue('inconsistent', path, `${pathText(path)} ${date} is after the review date ${reviewDate}; check the date.`, 'warning'));
-      }
+    for (const { path, date } of eventDatesWhere(theCase, (date) => date > reviewDate)) {
+      found.push(issue('inconsistent', path, `${pathText(path)} ${date} is after the review date ${reviewDate}; check the date.`, 'warning'));
     }
     theCase.proposedRegimens.forEach((regimen, regimenIndex) =>
       regimen.periods.forEach((period, index) => {

@@ -31,9 +31,24 @@ const dateIn = (entry: object, field: string): IsoDate => (entry as Record<strin
  * @returns the dates in file order
  */
 export function eventDates(theCase: Case): DatedAt[] {
+  return eventDatesWhere(theCase, () => true);
+}
+
+/**
+ * The {@link eventDates} a test keeps, in file order, a path made only for those kept:
+ * the case checks look for the few dates before a birth date or after a review date.
+ *
+ * @param theCase - a parsed case; not changed
+ * @param keep - whether a date is wanted
+ * @example eventDatesWhere(theCase, (date) => date > '2026-11-20') → the events after that review date
+ */
+export function eventDatesWhere(theCase: Case, keep: (date: IsoDate) => boolean): DatedAt[] {
   const dates: DatedAt[] = [];
   for (const { base, field, entries } of datedLists(theCase)) {
-    entries.forEach((entry, index) => dates.push({ path: [...base, index, field], date: dateIn(entry, field) }));
+    entries.forEach((entry, index) => {
+      const date = dateIn(entry, field);
+      if (keep(date)) dates.push({ path: [...base, index, field], date });
+    });
   }
   return dates;
 }

@@ -2,7 +2,7 @@ import { UTCDate } from '@date-fns/utc';
 import { addDays, addMonths, differenceInCalendarDays, endOfMonth, format, startOfMonth } from 'date-fns';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { addDaysIso, addMonthsIso, daysBetween, isIsoDate, monthEndIso, monthStartIso, toIsoDate } from '../../../core/dates/isoDate';
+import { addDaysIso, addMonthsIso, daysBetween, daysLeftInMonth, isIsoDate, monthEndIso, monthStartIso, toIsoDate } from '../../../core/dates/isoDate';
 
 // Outside reference: date-fns 4 (differenceInCalendarDays over @date-fns/utc's UTCDate) and the
 // JavaScript Date's own calendar, against our integer day arithmetic. Exact agreement is required:
@@ -74,6 +74,11 @@ describe('day and month arithmetic without Date objects', () => {
       fc.property(valid, (date) => monthStartIso(date) === text(startOfMonth(utc(date))) && monthEndIso(date) === text(endOfMonth(utc(date))) && toIsoDate(utc(date)) === date),
       { numRuns: 3000 },
     );
+  });
+
+  it('counts the days left in a month, the date included, as date-fns does', () => {
+    fc.assert(fc.property(valid, (date) => daysLeftInMonth(date) === differenceInCalendarDays(endOfMonth(utc(date)), utc(date)) + 1), { numRuns: 3000 });
+    expect([daysLeftInMonth('2024-02-10'), daysLeftInMonth('2023-02-28'), daysLeftInMonth('2026-12-01')]).toEqual([20, 1, 31]);
   });
 
   it('refuses what is not a calendar date, as before', () => {
