@@ -74,6 +74,14 @@ export const weeklyThroughoutAncIntervalDays = 7;
  * @example monitoringRules().find((it) => it.itemId === 'alt')?.firstMonthInterval → { days: 14 }
  */
 export function monitoringRules(): readonly MonitoringRule[] {
+  // The table is fixed: built once, on first use (every monitoring calendar reads it).
+  builtRules ??= buildMonitoringRules();
+  return builtRules;
+}
+
+let builtRules: readonly MonitoringRule[] | undefined;
+
+function buildMonitoringRules(): readonly MonitoringRule[] {
   const liverTest = (itemId: 'alt' | 'ast' | 'bilirubin', what: string): MonitoringRule => ({
     id: `${itemId}-on-deferasirox`,
     itemId,

@@ -106,6 +106,7 @@ export function safetyContext(caseFile: Case, results: CaseResults, asOf: IsoDat
   const childPugh = latestOnOrBefore(caseFile.clinicalState.hepaticImpairment, asOf);
   const cardiacFailure = latestOnOrBefore(caseFile.clinicalState.cardiacFailure, asOf);
   const appliedThresholds = new Map<string, AppliedThreshold>();
+  const resultsByKind = new Map<ResultKind, readonly { readonly entry: ResultEntry; readonly ref: string }[]>();
   return {
     caseFile,
     results,
@@ -118,8 +119,15 @@ export function safetyContext(caseFile: Case, results: CaseResults, asOf: IsoDat
     active,
     activeDrugs: new Set(active.map((regimen) => regimen.period.drug)),
     activeCoMedications,
-    resultsOf: <Kind extends ResultKind>(kind: Kind) =>
-      sorted.filter((it) => it.entry.kind === kind).map((it) => ({ entry: it.entry as Extract<ResultEntry, { readonly kind: Kind }>, ref: it.ref })),
+    resultsOf: <Kind extends ResultKind>(kind: Kind) => {
+      // Rules ask for the same kinds again and again (creatinine by each renal rule): each list is made once per review.
+      let ofKind = resultsByKind.get(kind);
+      if (ofKind === undefined) {
+        ofKind = sorted.filter((it) => it.entry.kind === kind).map((it) => ({ entry: it.entry, ref: it.ref }));
+        resultsByKind.set(kind, ofKind);
+      }
+      return ofKind as readonly DatedResult<Kind>[];
+    },
     ageOn,
     heightOn: (date) => sortedByDate(caseFile.patient.heights).filter((it) => it.date <= date).at(-1),
     threshold: (id) => {
