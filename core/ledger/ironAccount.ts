@@ -95,33 +95,43 @@ export function computeIronAccount(input: LedgerInput): IronAccount {
   // The loops below run over integer day numbers; ISO strings are made once per month,
   // not once per day (a 20-year record has about 7,300 days).
   const firstEpochDay = epochDayFromIso(firstDay);
-  const weightChanges = [...input.weights]
-    .sort((a, b) => a.date.localeCompare(b.date))
-    .map((entry) => ({ dayIndex: epochDayFromIso(entry.date) - firstEpochDay, weightKg: entry.weightKg }));
-  // The weight is constant between changes: each segment [from, to) of days is filled at once.
-  const segments: { readonly from: number; readonly to: number; readonly weightKg: number }[] = [];
+  // The weight is constant between changes: each segment of days [from, to) is filled at once. Kept in
+  // typed arrays, not objects: a weight may be whole or not, and objects holding both kinds of number
+  // make V8 throw away and redo its optimized code for this function.
+  const weightsByDate = [...input.weights].sort((a, b) => a.date.localeCompare(b.date));
+  const segmentFrom = new Int32Array(weightsByDate.length + 1);
+  const segmentTo = new Int32Array(weightsByDate.length + 1);
+  const segmentWeightKg = new Float64Array(weightsByDate.length + 1);
+  let segmentCount = 0;
   let segmentStart = 0;
   let currentWeight = weightKgAt(input.weights, firstDay);
-  for (const change of weightChanges) {
-    if (change.dayIndex >= dayCount) break;
-    if (change.dayIndex > segmentStart) {
-      segments.push({ from: segmentStart, to: change.dayIndex, weightKg: currentWeight });
-      segmentStart = change.dayIndex;
+  const closeSegment = (to: number) => {
+    segmentFrom[segmentCount] = segmentStart;
+    segmentTo[segmentCount] = to;
+    segmentWeightKg[segmentCount] = currentWeight;
+    segmentCount += 1;
+  };
+  for (const entry of weightsByDate) {
+    const dayIndex = epochDayFromIso(entry.date) - firstEpochDay;
+    if (dayIndex >= dayCount) break;
+    if (dayIndex > segmentStart) {
+      closeSegment(dayIndex);
+      segmentStart = dayIndex;
     }
-    currentWeight = change.weightKg;
+    currentWeight = entry.weightKg;
   }
-  segments.push({ from: segmentStart, to: dayCount, weightKg: currentWeight });
-  for (const segment of segments) daily.weightKg.fill(segment.weightKg, segment.from, segment.to);
+  closeSegment(dayCount);
+  for (let segment = 0; segment < segmentCount; segment += 1) daily.weightKg.fill(segmentWeightKg[segment]!, segmentFrom[segment]!, segmentTo[segment]!);
   daily.basalLossMg.fill(input.basalLossMgPerDay);
   for (const span of input.chelation) {
     const from = Math.max(0, daysBetween(firstDay, span.start));
     const to = Math.min(dayCount - 1, span.end === null ? dayCount - 1 : daysBetween(firstDay, span.end));
     const removalAt = removalByWeight(span);
-    for (const segment of segments) {
-      const last = Math.min(to, segment.to - 1);
-      if (segment.from > last || segment.to <= from) continue;
-      const removalMgPerDay = removalAt(segment.weightKg);
-      for (let index = Math.max(from, segment.from); index <= last; index += 1) daily.chelationOutMg[index]! += removalMgPerDay;
+    for (let segment = 0; segment < segmentCount; segment += 1) {
+      const last = Math.min(to, segmentTo[segment]! - 1);
+      if (segmentFrom[segment]! > last || segmentTo[segment]! <= from) continue;
+      const removalMgPerDay = removalAt(segmentWeightKg[segment]!);
+      for (let index = Math.max(from, segmentFrom[segment]!); index <= last; index += 1) daily.chelationOutMg[index]! += removalMgPerDay;
     }
   }
 
