@@ -2,6 +2,7 @@ import { Worker, type MessagePort } from 'node:worker_threads';
 import { rankOutcomes, reviewPanelEntry, type PanelOptions, type PanelOutcome, type PanelReview } from '../../core/panel';
 import { fail, issue, ok, type Result } from '../../core/result';
 import { join } from 'node:path';
+import { prepareToReadManyCases } from '../../core/model/parseCase';
 import { readCaseFile } from './caseFiles';
 import type { CaseStore } from './caseStore';
 
@@ -133,6 +134,7 @@ export async function reviewWorkspace(store: CaseStore, options: WorkspaceReview
   const names = await store.caseFileNames();
   if (!names.ok) return names;
   const fileNames = names.value;
+  if (fileNames.length > 1) prepareToReadManyCases();
   const panel: PanelOptions = { ...(options.asOf === undefined ? {} : { asOf: options.asOf }), today: options.today };
   const outcomes = new Array<PanelOutcome | undefined>(fileNames.length);
   const batches: number[][] = [];
@@ -222,6 +224,7 @@ export async function reviewWorkspace(store: CaseStore, options: WorkspaceReview
  * Called by app/host/workspaceWorker.ts, the worker script's entry.
  */
 export function serveReviewBatches(port: MessagePort, data: ReviewWorkerData): void {
+  prepareToReadManyCases();
   port.on('message', (request: BatchRequest) => {
     port.postMessage({ batchId: request.batchId, outcomes: reviewHere(data.folder, request.fileNames, data.panel) } satisfies BatchAnswer);
   });

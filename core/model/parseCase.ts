@@ -27,8 +27,24 @@ let compiledBoth: typeof caseSchemas.both | null = null;
 export function bothLevelSchema(): typeof caseSchemas.both {
   if (compiledBoth !== null) return compiledBoth;
   casesRead += 1;
-  if (casesRead <= casesBeforeCompiling || !z.util.allowsEval.value) return caseSchemas.both;
-  compiledBoth = z.compile(caseSchemas.both);
+  if (casesRead <= casesBeforeCompiling) return caseSchemas.both;
+  return compiledSchemaOrRuntime();
+}
+
+/**
+ * For a host about to read a whole workspace (the panel): the schema is compiled
+ * now, so even its first cases are read with it. Reading them with the runtime
+ * schema would also have V8 optimize the runtime parser's code, which the rest
+ * of the workspace never runs (measured on 1,000 cases, 10 interleaved runs:
+ * median 2.20 s with three cases read first, 2.05 s compiled before the first).
+ */
+export function prepareToReadManyCases(): void {
+  if (compiledBoth === null) compiledSchemaOrRuntime();
+}
+
+function compiledSchemaOrRuntime(): typeof caseSchemas.both {
+  if (!z.util.allowsEval.value) return caseSchemas.both;
+  compiledBoth ??= z.compile(caseSchemas.both);
   return compiledBoth;
 }
 
