@@ -8,9 +8,9 @@ import type { CaseStore } from './caseStore';
 
 /**
  * The review of a whole workspace (the command line's `panel`): every case
- * file opened, validated, computed and checked (core/panel reviewPanelEntry),
+ * file read, validated, computed and checked (core/panel reviewPanelEntry),
  * then all of them ranked together (core/panel rankOutcomes). The per-case work
- * is shared between this thread and worker threads, one thread per core; the
+ * is shared between this thread and worker threads (one thread per core but one); the
  * ranking runs here on the collected outcomes, so the result is the same, row
  * for row and value for value, whatever the number of threads. A worker that
  * cannot start or fails hands its unfinished cases back, and they are reviewed
@@ -220,7 +220,7 @@ export async function reviewWorkspace(store: CaseStore, options: WorkspaceReview
 
 /**
  * The worker's side: answer each batch of file names with their outcomes, one
- * batch after another, from the case store of the folder it was started with.
+ * batch after another, read from the folder it was started with.
  * Called by app/host/workspaceWorker.ts, the worker script's entry.
  */
 export function serveReviewBatches(port: MessagePort, data: ReviewWorkerData): void {

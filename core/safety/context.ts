@@ -58,6 +58,15 @@ export interface SafetyContext {
   readonly cardiacFailure: { readonly status: 'present' | 'absent'; readonly date: IsoDate; readonly ref: string } | null;
 }
 
+/** A value per key, made by `make` the first time the key is asked for and kept for the rest of one review. */
+function onceEach<Key, Value>(): (key: Key, make: () => Value) => Value {
+  const made = new Map<Key, Value>();
+  return (key, make) => {
+    if (!made.has(key)) made.set(key, make());
+    return made.get(key)!;
+  };
+}
+
 /** The latest dated entry of a list on or before a date, with its index. */
 function latestOnOrBefore<Entry extends { readonly date: IsoDate }>(entries: readonly Entry[], asOf: IsoDate): { entry: Entry; index: number } | null {
   let found: { entry: Entry; index: number } | null = null;
@@ -105,8 +114,8 @@ export function safetyContext(caseFile: Case, results: CaseResults, asOf: IsoDat
   if (!calendar.ok) throw new Error(`Monitoring calendar refused a checked review: ${calendar.issues.map((it) => it.message).join(' ')}`);
   const childPugh = latestOnOrBefore(caseFile.clinicalState.hepaticImpairment, asOf);
   const cardiacFailure = latestOnOrBefore(caseFile.clinicalState.cardiacFailure, asOf);
-  const appliedThresholds = new Map<string, AppliedThreshold>();
-  const resultsByKind = new Map<ResultKind, readonly { readonly entry: ResultEntry; readonly ref: string }[]>();
+  const appliedThreshold = onceEach<string, AppliedThreshold>();
+  const resultsOfKind = onceEach<ResultKind, readonly { readonly entry: ResultEntry; readonly ref: string }[]>();
   return {
     caseFile,
     results,
@@ -119,25 +128,11 @@ export function safetyContext(caseFile: Case, results: CaseResults, asOf: IsoDat
     active,
     activeDrugs: new Set(active.map((regimen) => regimen.period.drug)),
     activeCoMedications,
-    resultsOf: <Kind extends ResultKind>(kind: Kind) => {
-      // Rules ask for the same kinds again and again (creatinine by each renal rule): each list is made once per review.
-      let ofKind = resultsByKind.get(kind);
-      if (ofKind === undefined) {
-        ofKind = sorted.filter((it) => it.entry.kind === kind).map((it) => ({ entry: it.entry, ref: it.ref }));
-        resultsByKind.set(kind, ofKind);
-      }
-      return ofKind as readonly DatedResult<Kind>[];
-    },
+    // Rules ask for the same kinds and thresholds again and again (a title, a text, the sources): each is made once per review.
+    resultsOf: <Kind extends ResultKind>(kind: Kind) =>
+      resultsOfKind(kind, () => sorted.filter((it) => it.entry.kind === kind).map((it) => ({ entry: it.entry, ref: it.ref }))) as readonly DatedResult<Kind>[],
     ageOn,
     heightOn: (date) => sortedByDate(caseFile.patient.heights).filter((it) => it.date <= date).at(-1),
-    threshold: (id) => {
-      // Each rule asks for its thresholds, some many times (a title, a text, the sources): each is applied once per review.
-      let applied = appliedThresholds.get(id);
-      if (applied === undefined) {
-        applied = applyThreshold(id, overrides);
-        appliedThresholds.set(id, applied);
-      }
-      return applied;
-    },
+    threshold: (id) => appliedThreshold(id, () => applyThreshold(id, overrides)),
   };
 }
